@@ -1,0 +1,11 @@
+/** Nearest-rank percentile of a list of timings (p in 0..100). */
+export function percentile(values: number[], p: number): number {
+  if (values.length === 0) return Number.NaN;
+  const sorted = [...values].sort((a, b) => a - b);
+  const rank = Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1));
+  return sorted[rank]!;
+}
+
+export function median(values: number[]): number {
+  return percentile(values, 50);
+}

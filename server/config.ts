@@ -1,0 +1,44 @@
+import { resolve } from 'node:path';
+import { z } from 'zod';
+
+/** Everything the server reads from the environment, with defaults that work out of the box. */
+const envSchema = z.object({
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default('0.0.0.0'),
+  DATABASE_FILE: z.string().default('data/ringcall.sqlite'),
+  DATA_DIR: z.string().default('data'),
+  CLIENT_DIR: z.string().default('dist'),
+  PUBLIC_URL: z.string().url().optional(),
+  DEMO_SEED: z.enum(['on', 'off']).default('on'),
+  LOG_REQUESTS: z.enum(['on', 'off']).default('on'),
+});
+
+export type ServerConfig = {
+  port: number;
+  host: string;
+  databaseFile: string;
+  dataDir: string;
+  clientDir: string;
+  publicUrl: string | undefined;
+  demoSeed: boolean;
+  logRequests: boolean;
+};
+
+export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Ringcall cannot start: the environment has bad settings:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  return {
+    port: e.PORT,
+    host: e.HOST,
+    databaseFile: resolve(e.DATABASE_FILE),
+    dataDir: resolve(e.DATA_DIR),
+    clientDir: resolve(e.CLIENT_DIR),
+    publicUrl: e.PUBLIC_URL,
+    demoSeed: e.DEMO_SEED === 'on',
+    logRequests: e.LOG_REQUESTS === 'on',
+  };
+}

@@ -1,0 +1,57 @@
+import { networkInterfaces } from 'node:os';
+import { readConfig } from './config';
+import { migrate, openDb } from './db';
+import { createApp } from './app';
+import { seedDemoIfEmpty } from './demo/seedDemo';
+import { DEMO_ARCHER_EMAIL, DEMO_JUDGES, DEMO_ORGANIZER, DEMO_PASSWORD } from './demo/demoPeople';
+import { APP_VERSION } from './version';
+
+/** Addresses phones on the same field network can use. */
+function lanAddresses(): string[] {
+  return Object.values(networkInterfaces())
+    .flat()
+    .filter((a) => a && a.family === 'IPv4' && !a.internal)
+    .map((a) => a!.address);
+}
+
+async function main(): Promise<void> {
+  const config = readConfig();
+  const db = openDb(config.databaseFile);
+  await migrate(db);
+  const seeded = config.demoSeed ? await seedDemoIfEmpty(db) : false;
+
+  const app = createApp({ db, version: APP_VERSION, clientDir: config.clientDir, logRequests: config.logRequests });
+  const server = app.listen(config.port, config.host, () => {
+    const address = server.address();
+    const port = typeof address === 'object' && address ? address.port : config.port;
+    const lines = [
+      `Ringcall ${APP_VERSION} is running.`,
+      `  Open:      http://localhost:${port}/`,
+      ...lanAddresses().map((ip) => `  On the field network: http://${ip}:${port}/`),
+      `  Database:  ${config.databaseFile}`,
+    ];
+    if (config.demoSeed) {
+      lines.push(
+        seeded ? '  Demo event created (invented data).' : '  Demo sign-ins (if this database holds the demo event):',
+        `    organizer  ${DEMO_ORGANIZER.email}`,
+        ...DEMO_JUDGES.map((j) => `    judge      ${j.email}`),
+        `    archer     ${DEMO_ARCHER_EMAIL()}`,
+        `    password   ${DEMO_PASSWORD}`,
+      );
+    }
+    console.log(lines.join('\n'));
+  });
+
+  const stop = () => {
+    server.close(() => {
+      void db.destroy().then(() => process.exit(0));
+    });
+  };
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+}
+
+main().catch((err: unknown) => {
+  console.error(err instanceof Error ? err.message : err);
+  process.exit(1);
+});

@@ -1,0 +1,22 @@
+import type { Knex } from 'knex';
+import * as m0001 from '../migrations/0001_people_and_events';
+
+type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
+
+/**
+ * Migrations are imported explicitly (not loaded from a folder) so they run the same under
+ * tsx and Vitest. Append new ones at the end; never edit or reorder a released one.
+ */
+const migrations: [string, Migration][] = [['0001_people_and_events', m0001]];
+
+export const migrationSource: Knex.MigrationSource<[string, Migration]> = {
+  getMigrations: async () => migrations,
+  getMigrationName: ([name]) => name,
+  getMigration: async ([, migration]) => ({
+    up: migration.up,
+    // Forward-only: rolling back is refused rather than silently destroying field data.
+    down: async () => {
+      throw new Error('Ringcall migrations are forward-only.');
+    },
+  }),
+};

@@ -1,0 +1,28 @@
+import { Link, Outlet } from 'react-router-dom';
+import { ConnectionBadge } from '../ui/ConnectionBadge';
+import { ThemeToggle } from '../ui/ThemeToggle';
+import { RingMark } from '../ui/RingMark';
+import { UpdatePrompt } from './pwa/UpdatePrompt';
+
+export function AppLayout() {
+  return (
+    <div className="flex min-h-dvh flex-col">
+      <header className="sticky top-0 z-40 bg-ink text-white shadow">
+        <div className="mx-auto flex max-w-3xl items-center gap-3 px-4 py-3">
+          <Link to="/" className="flex min-h-12 items-center gap-2 text-2xl font-bold tracking-tight">
+            <RingMark className="h-9 w-9" />
+            Ringcall
+          </Link>
+          <div className="ml-auto flex items-center gap-2">
+            <ThemeToggle />
+            <ConnectionBadge />
+          </div>
+        </div>
+      </header>
+      <main className="mx-auto w-full max-w-3xl flex-1 px-4 py-5">
+        <Outlet />
+      </main>
+      <UpdatePrompt />
+    </div>
+  );
+}

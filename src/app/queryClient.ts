@@ -1,0 +1,27 @@
+import { QueryClient, defaultShouldDehydrateQuery } from '@tanstack/react-query';
+import { createSyncStoragePersister } from '@tanstack/query-sync-storage-persister';
+import type { PersistQueryClientOptions } from '@tanstack/react-query-persist-client';
+
+const WEEK_MS = 7 * 24 * 60 * 60 * 1000;
+
+export const queryClient = new QueryClient({
+  defaultOptions: {
+    queries: {
+      // Kept as long as the persisted copy so screens still render after days offline.
+      gcTime: WEEK_MS,
+      staleTime: 30_000,
+      // Try the network even when the browser claims to be offline: field Wi-Fi often lies.
+      networkMode: 'offlineFirst',
+    },
+  },
+});
+
+export const persistOptions: Omit<PersistQueryClientOptions, 'queryClient'> = {
+  persister: createSyncStoragePersister({ storage: window.localStorage, key: 'ringcall.query-cache' }),
+  maxAge: WEEK_MS,
+  buster: __APP_VERSION__,
+  dehydrateOptions: {
+    // A failed refetch offline marks a query as errored; keep its last good data anyway.
+    shouldDehydrateQuery: (q) => defaultShouldDehydrateQuery(q) || q.state.data !== undefined,
+  },
+};

@@ -1,0 +1,21 @@
+import { createBrowserRouter } from 'react-router-dom';
+import { AppLayout } from './AppLayout';
+import { RouteError } from './RouteError';
+
+/** Each screen is its own lazily loaded chunk, so a phone downloads the pad without the organizer's screens. */
+export const router = createBrowserRouter([
+  {
+    path: '/',
+    element: <AppLayout />,
+    errorElement: <RouteError />,
+    children: [
+      {
+        errorElement: <RouteError />,
+        children: [
+          { index: true, lazy: async () => ({ Component: (await import('../features/home/HomeScreen')).HomeScreen }) },
+          { path: '*', lazy: async () => ({ Component: (await import('./NotFound')).NotFound }) },
+        ],
+      },
+    ],
+  },
+]);

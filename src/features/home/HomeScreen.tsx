@@ -1,0 +1,66 @@
+import { SafetyNote } from '../../ui/SafetyNote';
+import { useOnline } from '../../local/online';
+import { useServerHealth } from './api/serverHealth';
+
+const STEPS = [
+  { title: 'Join your target', text: 'Use the join code printed on your target sheet. Your phone keeps the card even with no signal.' },
+  { title: 'Two writers, one call', text: 'The caller calls each arrow, highest first. Two writers enter it on their own phones.' },
+  { title: 'Cross-check, then pull', text: 'Ringcall compares both entries arrow by arrow. Settle any difference before arrows are pulled.' },
+  { title: 'Signed and ranked', text: 'When signal returns, ends reach the judges to sign, and signed cards feed the standings.' },
+];
+
+function ServerLine() {
+  const online = useOnline();
+  const health = useServerHealth();
+  if (health.data) {
+    const checked = new Date(health.dataUpdatedAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
+    return (
+      <p data-testid="server-line">
+        <span aria-hidden="true">{online ? '✓ ' : '▲ '}</span>
+        {online ? `Event server reached at ${checked}` : `No signal. Last reached the event server at ${checked}`} · version{' '}
+        {health.data.version}
+      </p>
+    );
+  }
+  if (health.isPending) return <p data-testid="server-line">Looking for the event server…</p>;
+  return (
+    <p data-testid="server-line">
+      <span aria-hidden="true">▲ </span>
+      {online ? 'The event server is not answering. Scoring on this phone still works.' : 'No signal. Scoring on this phone still works.'}
+    </p>
+  );
+}
+
+export function HomeScreen() {
+  return (
+    <div className="space-y-6">
+      <section className="space-y-2">
+        <h1 className="text-3xl font-bold leading-tight">Your scorecard, on the field, with or without signal</h1>
+        <p className="text-lg">Ringcall keeps every called arrow on this phone first, then brings it to the event when it can.</p>
+      </section>
+
+      <ol className="space-y-3">
+        {STEPS.map((step, i) => (
+          <li key={step.title} className="surface flex gap-4 rounded-xl border border-line bg-card p-4">
+            <span
+              aria-hidden="true"
+              className="flex h-11 w-11 shrink-0 items-center justify-center rounded-full bg-ink text-xl font-bold text-white"
+            >
+              {i + 1}
+            </span>
+            <div>
+              <h2 className="text-xl font-bold">{step.title}</h2>
+              <p>{step.text}</p>
+            </div>
+          </li>
+        ))}
+      </ol>
+
+      <SafetyNote />
+
+      <footer className="text-base text-ink-soft">
+        <ServerLine />
+      </footer>
+    </div>
+  );
+}

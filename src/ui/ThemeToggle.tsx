@@ -1,0 +1,22 @@
+import { useEffect, useState } from 'react';
+
+const KEY = 'ringcall.theme';
+
+/** The "bright sun" theme: pure black on white for screens read in direct sunlight. */
+export function ThemeToggle() {
+  const [sun, setSun] = useState(() => localStorage.getItem(KEY) === 'sun');
+  useEffect(() => {
+    document.documentElement.dataset.theme = sun ? 'sun' : 'field';
+    localStorage.setItem(KEY, sun ? 'sun' : 'field');
+  }, [sun]);
+  return (
+    <button
+      type="button"
+      aria-pressed={sun}
+      onClick={() => setSun((s) => !s)}
+      className="min-h-12 whitespace-nowrap rounded-lg border-2 border-white/70 px-3 text-base font-bold text-white"
+    >
+      {sun ? "☀ Sun: on" : "☀ Sun"}
+    </button>
+  );
+}

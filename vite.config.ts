@@ -1,0 +1,60 @@
+import { defineConfig } from 'vite';
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+import { VitePWA } from 'vite-plugin-pwa';
+import pkg from './package.json' with { type: 'json' };
+
+export default defineConfig({
+  define: {
+    __APP_VERSION__: JSON.stringify(pkg.version),
+  },
+  plugins: [
+    react(),
+    tailwindcss(),
+    VitePWA({
+      // A new version waits until the person taps "Update" (never mid-end); see src/app/pwa.
+      registerType: 'prompt',
+      injectRegister: false,
+      includeAssets: ['favicon.svg', 'icons/apple-touch-icon.png'],
+      manifest: {
+        name: 'Ringcall scorecard',
+        short_name: 'Ringcall',
+        description: 'Offline scorecard for target archery: two writers, one cross-check, synced when signal returns.',
+        lang: 'en',
+        start_url: '/',
+        scope: '/',
+        display: 'standalone',
+        orientation: 'portrait',
+        background_color: '#f7f6f1',
+        theme_color: '#123047',
+        icons: [
+          { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png' },
+          { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png' },
+          { src: '/icons/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+        ],
+      },
+      workbox: {
+        // The first install takes control at once so a phone that loses signal right after
+        // opening the app still has it; later versions wait for the person's go-ahead.
+        clientsClaim: true,
+        skipWaiting: false,
+        cleanupOutdatedCaches: true,
+        // Only the woff2 font files (the browsers we support all read woff2).
+        globPatterns: ['**/*.{js,css,html,svg,png,webmanifest}', '**/atkinson-hyperlegible-latin-*.woff2'],
+        navigateFallback: '/index.html',
+        navigateFallbackDenylist: [/^\/api\//, /^\/\.well-known\//, /^\/files\//],
+      },
+    }),
+  ],
+  build: {
+    manifest: true,
+    sourcemap: false,
+    chunkSizeWarningLimit: 600,
+  },
+  server: {
+    proxy: {
+      '/api': 'http://localhost:3000',
+      '/.well-known': 'http://localhost:3000',
+    },
+  },
+});
