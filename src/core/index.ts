@@ -1,0 +1,58 @@
+// The scoring core shared by the phone and the server: pure functions, no platform code.
+export { ScoringError } from './errors';
+export type { ScoringErrorCode } from './errors';
+
+export {
+  ARROW_VALUES,
+  arrowPoints,
+  compareArrowValues,
+  isArrowValue,
+  isHit,
+  isTen,
+  isX,
+  parseArrowValue,
+} from './arrowValue';
+export type { ArrowValue } from './arrowValue';
+
+export {
+  BOW_STYLES,
+  FACE_IDS,
+  TRIPLE_SPOT_SPACING_MM,
+  VENUES,
+  describeFaceFor,
+  getFace,
+  isFaceId,
+  scoresInnerTenOnly,
+  scoringValues,
+} from './faces';
+export type { BowStyle, Face, FaceId, FaceZone, Venue, ZoneColour, ZoneValue } from './faces';
+
+export {
+  MAX_ARROW_POINTS,
+  ROUND_CATALOG,
+  defineCustomRound,
+  endsOfRound,
+  getRound,
+  roundArrowCount,
+  roundEndCount,
+  roundMaxScore,
+} from './rounds';
+export type { RoundDefinition, RoundDistance, RoundEnd } from './rounds';
+
+export { countingArrows, endTotal, sortEnd, validateEnd } from './ends';
+export type { EndCheck, EndRules } from './ends';
+export { endRules } from './endRules';
+
+export { cardTotals } from './card';
+export type { CardEnd, CardTotals, DistanceTally, Tally } from './card';
+
+export { oneArrowPerSpot, scorePlottedArrow } from './plotting';
+export type { PlottedArrow, PlottedScore } from './plotting';
+
+export { crossCheck } from './crossCheck';
+export type { CrossCheck, CrossCheckArrow, CrossCheckStatus } from './crossCheck';
+
+export { rankArchers } from './ranking';
+export type { Placing, RankInput } from './ranking';
+
+export { canonicalJson } from './canonicalJson';
