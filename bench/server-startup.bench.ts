@@ -21,7 +21,16 @@ t = performance.now();
 await seedDemoIfEmpty(db);
 console.log(`seed demo event:        ${(performance.now() - t).toFixed(1)} ms`);
 
-const server = createApp({ db, version: 'bench', logRequests: false }).listen(0, '127.0.0.1');
+const app = createApp({
+  db,
+  version: 'bench',
+  secret: new TextEncoder().encode('bench-secret-bench-secret-bench-secret'),
+  mailer: { send: async () => undefined },
+  mailCaught: false,
+  dataDir: dir,
+  logRequests: false,
+});
+const server = app.listen(0, '127.0.0.1');
 await new Promise((resolve) => server.once('listening', resolve));
 const { port } = server.address() as AddressInfo;
 

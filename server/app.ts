@@ -1,14 +1,28 @@
 import express, { type Express } from 'express';
+import cookieParser from 'cookie-parser';
 import morgan from 'morgan';
 import type { Db } from './db';
+import type { Mailer } from './mail/mailer';
+import type { AppContext } from './context';
 import { securityHeaders } from './http/security';
 import { clientFiles } from './http/clientFiles';
 import { routeNotFound, errorHandler } from './http/errorHandler';
+import { requireUser } from './auth/requireUser';
+import { BCRYPT_COST } from './auth/passwords';
 import { healthRoutes } from './routes/health';
+import { authRoutes } from './routes/auth';
+import { caughtMailRoutes } from './routes/caughtMail';
 
 export type AppDeps = {
   db: Db;
   version: string;
+  secret: Uint8Array;
+  mailer: Mailer;
+  mailCaught: boolean;
+  dataDir: string;
+  publicUrl?: string;
+  /** Defaults to the production cost; tests lower it to stay fast. */
+  bcryptCost?: number;
   /** Folder of the built client; when it has no index.html only the API is served. */
   clientDir?: string;
   logRequests?: boolean;
@@ -16,6 +30,17 @@ export type AppDeps = {
 
 /** Builds the whole HTTP app without opening a port, so tests can drive it with supertest. */
 export function createApp(deps: AppDeps): Express {
+  const ctx: AppContext = {
+    db: deps.db,
+    secret: deps.secret,
+    mailer: deps.mailer,
+    mailCaught: deps.mailCaught,
+    dataDir: deps.dataDir,
+    publicUrl: deps.publicUrl,
+    bcryptCost: deps.bcryptCost ?? BCRYPT_COST,
+    requireUser: requireUser(deps.db, deps.secret),
+  };
+
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -24,7 +49,10 @@ export function createApp(deps: AppDeps): Express {
 
   const api = express.Router();
   api.use(express.json({ limit: '256kb' }));
+  api.use(cookieParser());
   api.use(healthRoutes(deps.version));
+  api.use(authRoutes(ctx));
+  api.use(caughtMailRoutes(ctx));
   api.use(routeNotFound);
   app.use('/api', api);
 

@@ -11,6 +11,10 @@ const envSchema = z.object({
   PUBLIC_URL: z.string().url().optional(),
   DEMO_SEED: z.enum(['on', 'off']).default('on'),
   LOG_REQUESTS: z.enum(['on', 'off']).default('on'),
+  AUTH_SECRET: z.string().min(32, 'use at least 32 characters').optional(),
+  SMTP_URL: z.string().url().optional(),
+  MAIL_FROM: z.string().default('Ringcall <no-reply@ringcall.local>'),
+  MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
 });
 
 export type ServerConfig = {
@@ -22,6 +26,10 @@ export type ServerConfig = {
   publicUrl: string | undefined;
   demoSeed: boolean;
   logRequests: boolean;
+  authSecret: string | undefined;
+  smtpUrl: string | undefined;
+  mailFrom: string;
+  mailCatcherPort: number;
 };
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
@@ -40,5 +48,9 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     publicUrl: e.PUBLIC_URL,
     demoSeed: e.DEMO_SEED === 'on',
     logRequests: e.LOG_REQUESTS === 'on',
+    authSecret: e.AUTH_SECRET,
+    smtpUrl: e.SMTP_URL,
+    mailFrom: e.MAIL_FROM,
+    mailCatcherPort: e.MAIL_CATCHER_PORT,
   };
 }

@@ -5,6 +5,9 @@ import { createApp } from './app';
 import { seedDemoIfEmpty } from './demo/seedDemo';
 import { DEMO_ARCHER_EMAIL, DEMO_JUDGES, DEMO_ORGANIZER, DEMO_PASSWORD } from './demo/demoPeople';
 import { APP_VERSION } from './version';
+import { loadAuthSecret } from './auth/secret';
+import { startMailCatcher } from './mail/mailCatcher';
+import { createMailer } from './mail/mailer';
 
 /** Addresses phones on the same field network can use. */
 function lanAddresses(): string[] {
@@ -20,7 +23,22 @@ async function main(): Promise<void> {
   await migrate(db);
   const seeded = config.demoSeed ? await seedDemoIfEmpty(db) : false;
 
-  const app = createApp({ db, version: APP_VERSION, clientDir: config.clientDir, logRequests: config.logRequests });
+  const secret = loadAuthSecret(config.dataDir, config.authSecret);
+  // Without a real SMTP server, mail goes to the app's own catcher and can be read in the app.
+  const catcher = config.smtpUrl ? undefined : await startMailCatcher(db, config.mailCatcherPort);
+  const mailer = createMailer(config.smtpUrl ?? catcher!.smtpUrl, config.mailFrom);
+
+  const app = createApp({
+    db,
+    version: APP_VERSION,
+    secret,
+    mailer,
+    mailCaught: !config.smtpUrl,
+    dataDir: config.dataDir,
+    ...(config.publicUrl ? { publicUrl: config.publicUrl } : {}),
+    clientDir: config.clientDir,
+    logRequests: config.logRequests,
+  });
   const server = app.listen(config.port, config.host, () => {
     const address = server.address();
     const port = typeof address === 'object' && address ? address.port : config.port;
@@ -29,6 +47,9 @@ async function main(): Promise<void> {
       `  Open:      http://localhost:${port}/`,
       ...lanAddresses().map((ip) => `  On the field network: http://${ip}:${port}/`),
       `  Database:  ${config.databaseFile}`,
+      catcher
+        ? `  Mail:      caught locally (SMTP on 127.0.0.1:${catcher.port}); read it in the app under "Caught mail"`
+        : '  Mail:      sent through SMTP_URL',
     ];
     if (config.demoSeed) {
       lines.push(
@@ -44,7 +65,7 @@ async function main(): Promise<void> {
 
   const stop = () => {
     server.close(() => {
-      void db.destroy().then(() => process.exit(0));
+      void Promise.all([db.destroy(), catcher?.close()]).then(() => process.exit(0));
     });
   };
   process.on('SIGINT', stop);

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import * as m0001 from '../migrations/0001_people_and_events';
+import * as m0002 from '../migrations/0002_accounts_and_setup';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
 
@@ -7,7 +8,10 @@ type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Pro
  * Migrations are imported explicitly (not loaded from a folder) so they run the same under
  * tsx and Vitest. Append new ones at the end; never edit or reorder a released one.
  */
-const migrations: [string, Migration][] = [['0001_people_and_events', m0001]];
+const migrations: [string, Migration][] = [
+  ['0001_people_and_events', m0001],
+  ['0002_accounts_and_setup', m0002],
+];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {
   getMigrations: async () => migrations,

@@ -27,7 +27,7 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
 
   await db.transaction(async (trx) => {
     const [organizer] = await trx('users')
-      .insert({ email: DEMO_ORGANIZER.email, display_name: DEMO_ORGANIZER.name, password_hash: passwordHash, created_at: at })
+      .insert({ email: DEMO_ORGANIZER.email, display_name: DEMO_ORGANIZER.name, password_hash: passwordHash, email_verified_at: at, created_at: at })
       .returning('id');
     const organizerId = (organizer as { id: number }).id;
 
@@ -48,7 +48,7 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
 
     for (const judge of DEMO_JUDGES) {
       const [user] = await trx('users')
-        .insert({ email: judge.email, display_name: judge.name, password_hash: passwordHash, created_at: at })
+        .insert({ email: judge.email, display_name: judge.name, password_hash: passwordHash, email_verified_at: at, created_at: at })
         .returning('id');
       await trx('event_roles').insert({ event_id: eventId, user_id: (user as { id: number }).id, role: 'judge', created_at: at });
     }
@@ -63,7 +63,7 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
 
     for (const archer of demoArchers()) {
       const [user] = await trx('users')
-        .insert({ email: archer.email, display_name: archer.name, password_hash: passwordHash, created_at: at })
+        .insert({ email: archer.email, display_name: archer.name, password_hash: passwordHash, email_verified_at: at, created_at: at })
         .returning('id');
       const userId = (user as { id: number }).id;
       await trx('event_roles').insert({ event_id: eventId, user_id: userId, role: 'archer', created_at: at });

@@ -4,22 +4,40 @@ import { join } from 'node:path';
 import type { Express } from 'express';
 import { createApp } from '../../../server/app';
 import { migrate, openDb, type Db } from '../../../server/db';
+import { startMailCatcher } from '../../../server/mail/mailCatcher';
+import { createMailer } from '../../../server/mail/mailer';
+import { TEST_SECRET } from './people';
 
 export type TestServer = { app: Express; db: Db; dir: string; file: string; close: () => Promise<void> };
 
-/** A fresh, migrated SQLite file in its own temp folder, and the app built on it. */
-export async function startTestServer(options: { clientDir?: string } = {}): Promise<TestServer> {
+/** bcrypt cost for tests only: production uses 12 (asserted in tests/server/auth.test.ts). */
+export const TEST_BCRYPT_COST = 4;
+
+/** A fresh, migrated SQLite file in its own temp folder, a mail catcher, and the app built on them. */
+export async function startTestServer(options: { clientDir?: string; bcryptCost?: number } = {}): Promise<TestServer> {
   const dir = mkdtempSync(join(tmpdir(), 'ringcall-test-'));
   const file = join(dir, 'test.sqlite');
   const db = openDb(file);
   await migrate(db);
-  const app = createApp({ db, version: 'test', logRequests: false, ...(options.clientDir ? { clientDir: options.clientDir } : {}) });
+  const catcher = await startMailCatcher(db, 0);
+  const app = createApp({
+    db,
+    version: 'test',
+    secret: TEST_SECRET,
+    mailer: createMailer(catcher.smtpUrl, 'Ringcall test <test@ringcall.example>'),
+    mailCaught: true,
+    dataDir: dir,
+    bcryptCost: options.bcryptCost ?? TEST_BCRYPT_COST,
+    logRequests: false,
+    ...(options.clientDir ? { clientDir: options.clientDir } : {}),
+  });
   return {
     app,
     db,
     dir,
     file,
     close: async () => {
+      await catcher.close();
       await db.destroy();
       rmSync(dir, { recursive: true, force: true });
     },

@@ -1,0 +1,23 @@
+import type { RequestHandler } from 'express';
+import type { Db } from '../db';
+import { unauthorized } from '../http/httpError';
+import { verifyAccessToken } from './tokens';
+import './types';
+
+/** Requires a valid access token (`Authorization: Bearer …`) and loads the person it names. */
+export function requireUser(db: Db, secret: Uint8Array): RequestHandler {
+  return async (req, _res, next) => {
+    const header = req.get('authorization') ?? '';
+    const match = /^Bearer (.+)$/i.exec(header);
+    if (!match) return next(unauthorized());
+    try {
+      const { userId } = await verifyAccessToken(secret, match[1]!);
+      const user = await db('users').where({ id: userId }).first();
+      if (!user) return next(unauthorized('Your account was not found. Please sign in again.'));
+      req.user = { id: user.id, email: user.email, displayName: user.display_name, emailVerified: !!user.email_verified_at };
+      next();
+    } catch {
+      next(unauthorized('Your sign-in has expired. Please sign in again.'));
+    }
+  };
+}

@@ -1,0 +1,36 @@
+import { createHash, randomBytes } from 'node:crypto';
+import { SignJWT, jwtVerify } from 'jose';
+
+const ACCESS_TTL_SECONDS = 15 * 60;
+const ISSUER = 'ringcall';
+const AUDIENCE = 'ringcall-api';
+
+export type AccessClaims = { userId: number };
+
+/** Short-lived access token (HS256 with the server's secret). */
+export async function signAccessToken(secret: Uint8Array, userId: number, now = new Date()) {
+  const iat = Math.floor(now.getTime() / 1000);
+  const exp = iat + ACCESS_TTL_SECONDS;
+  const token = await new SignJWT({})
+    .setProtectedHeader({ alg: 'HS256', typ: 'JWT' })
+    .setSubject(String(userId))
+    .setIssuer(ISSUER)
+    .setAudience(AUDIENCE)
+    .setIssuedAt(iat)
+    .setExpirationTime(exp)
+    .sign(secret);
+  return { token, expiresAt: new Date(exp * 1000).toISOString() };
+}
+
+/** Verifies signature, algorithm (allow-list: HS256 only), issuer, audience and expiry. */
+export async function verifyAccessToken(secret: Uint8Array, token: string): Promise<AccessClaims> {
+  const { payload } = await jwtVerify(token, secret, { algorithms: ['HS256'], issuer: ISSUER, audience: AUDIENCE });
+  const userId = Number(payload.sub);
+  if (!Number.isInteger(userId) || userId <= 0) throw new Error('Token has no valid subject.');
+  return { userId };
+}
+
+/** An opaque random token (refresh, e-mail links); only its hash is stored. */
+export const randomToken = (): string => randomBytes(32).toString('base64url');
+
+export const sha256Hex = (value: string): string => createHash('sha256').update(value).digest('hex');
