@@ -1,4 +1,5 @@
 import { apiErrorSchema } from '../contract/apiError';
+import { accessToken, forgetAccessToken, refreshSession } from '../features/auth/session';
 
 /** A failed API call, carrying the server's readable message. */
 export class ApiError extends Error {
@@ -12,25 +13,50 @@ export class ApiError extends Error {
   }
 }
 
-/** JSON request to Ringcall's own API; every failure becomes an ApiError with a message to show. */
-export async function apiRequest<T>(path: string, init: RequestInit = {}): Promise<T> {
-  let response: Response;
+export const isSignedOutError = (error: unknown) => error instanceof ApiError && error.status === 401;
+
+async function send(path: string, init: RequestInit, token: string | undefined): Promise<Response> {
+  const headers = new Headers(init.headers);
+  headers.set('Accept', 'application/json');
+  if (init.body && !(init.body instanceof FormData) && !headers.has('Content-Type')) headers.set('Content-Type', 'application/json');
+  if (token) headers.set('Authorization', `Bearer ${token}`);
   try {
-    response = await fetch(path, {
-      ...init,
-      headers: { Accept: 'application/json', ...(init.body ? { 'Content-Type': 'application/json' } : {}), ...init.headers },
-    });
+    return await fetch(path, { ...init, headers, credentials: 'same-origin' });
   } catch {
     throw new ApiError(0, 'network', 'No connection to the Ringcall server right now.');
   }
-  const text = await response.text();
-  const body: unknown = text ? safeJson(text) : undefined;
-  if (!response.ok) {
-    const parsed = apiErrorSchema.safeParse(body);
-    if (parsed.success) throw new ApiError(response.status, parsed.data.error.code, parsed.data.error.message);
-    throw new ApiError(response.status, 'http', `The server answered ${response.status} without an explanation.`);
+}
+
+/** Sends with the access token; on a 401 refreshes the sign-in once and tries again. */
+async function authorizedFetch(path: string, init: RequestInit): Promise<Response> {
+  let response = await send(path, init, await accessToken());
+  if (response.status === 401) {
+    forgetAccessToken();
+    const session = await refreshSession();
+    if (session) response = await send(path, init, session.accessToken);
   }
-  return body as T;
+  if (!response.ok) throw await errorFrom(response);
+  return response;
+}
+
+async function errorFrom(response: Response): Promise<ApiError> {
+  const text = await response.text();
+  const parsed = apiErrorSchema.safeParse(safeJson(text));
+  if (parsed.success) return new ApiError(response.status, parsed.data.error.code, parsed.data.error.message);
+  return new ApiError(response.status, 'http', `The server answered ${response.status} without an explanation.`);
+}
+
+/** JSON request to Ringcall's own API; every failure becomes an ApiError with a message to show. */
+export async function apiRequest<T>(path: string, init: RequestInit = {}): Promise<T> {
+  const response = await authorizedFetch(path, init);
+  const text = await response.text();
+  return (text ? safeJson(text) : undefined) as T;
+}
+
+/** Downloads a file (a PDF, a CSV) from the API with the person's sign-in. */
+export async function apiDownload(path: string): Promise<Blob> {
+  const response = await authorizedFetch(path, { method: 'GET' });
+  return response.blob();
 }
 
 function safeJson(text: string): unknown {

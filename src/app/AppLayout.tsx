@@ -19,10 +19,10 @@ export function AppLayout() {
           </div>
         </div>
       </header>
+      <UpdatePrompt />
       <main className="mx-auto w-full max-w-3xl flex-1 px-4 py-5">
         <Outlet />
       </main>
-      <UpdatePrompt />
     </div>
   );
 }

@@ -1,6 +1,7 @@
 import { createBrowserRouter } from 'react-router-dom';
 import { AppLayout } from './AppLayout';
 import { RouteError } from './RouteError';
+import { authRoutes } from '../features/auth/routes';
 
 /** Each screen is its own lazily loaded chunk, so a phone downloads the pad without the organizer's screens. */
 export const router = createBrowserRouter([
@@ -13,6 +14,8 @@ export const router = createBrowserRouter([
         errorElement: <RouteError />,
         children: [
           { index: true, lazy: async () => ({ Component: (await import('../features/home/HomeScreen')).HomeScreen }) },
+          ...authRoutes,
+          { path: 'mail', lazy: async () => ({ Component: (await import('../features/mail/CaughtMailScreen')).CaughtMailScreen }) },
           { path: '*', lazy: async () => ({ Component: (await import('./NotFound')).NotFound }) },
         ],
       },

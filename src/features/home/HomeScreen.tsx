@@ -1,6 +1,7 @@
 import { SafetyNote } from '../../ui/SafetyNote';
 import { useOnline } from '../../local/online';
 import { useServerHealth } from './api/serverHealth';
+import { AccountPanel } from './AccountPanel';
 
 const STEPS = [
   { title: 'Join your target', text: 'Use the join code printed on your target sheet. Your phone keeps the card even with no signal.' },
@@ -38,6 +39,8 @@ export function HomeScreen() {
         <h1 className="text-3xl font-bold leading-tight">Your scorecard, on the field, with or without signal</h1>
         <p className="text-lg">Ringcall keeps every called arrow on this phone first, then brings it to the event when it can.</p>
       </section>
+
+      <AccountPanel />
 
       <ol className="space-y-3">
         {STEPS.map((step, i) => (

@@ -1,0 +1,44 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { apiRequest } from '../../../api/request';
+import type { AuthSession, SignInInput, SignUpInput } from '../../../contract/auth';
+import { setSession } from '../session';
+import { meQuery } from './me';
+
+async function startSession(path: string, body: unknown): Promise<AuthSession> {
+  const response = await fetch(path, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
+    body: JSON.stringify(body),
+    credentials: 'same-origin',
+  }).catch(() => undefined);
+  if (!response) throw new Error('No connection to the Ringcall server. Signing in needs signal once; scoring does not.');
+  const json = (await response.json().catch(() => undefined)) as AuthSession | { error?: { message?: string } } | undefined;
+  if (!response.ok) throw new Error((json as { error?: { message?: string } })?.error?.message ?? 'Signing in failed.');
+  return json as AuthSession;
+}
+
+function useSessionMutation<T>(path: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (input: T) => startSession(path, input),
+    onSuccess: async (session) => {
+      setSession(session);
+      await client.invalidateQueries({ queryKey: meQuery.queryKey });
+    },
+  });
+}
+
+export const useSignIn = () => useSessionMutation<SignInInput>('/api/auth/sign-in');
+export const useSignUp = () => useSessionMutation<SignUpInput>('/api/auth/sign-up');
+
+export function useSignOut() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: () => apiRequest<void>('/api/auth/sign-out', { method: 'POST' }).catch(() => undefined),
+    onSuccess: async () => {
+      setSession(undefined);
+      client.setQueryData(meQuery.queryKey, null);
+      await client.invalidateQueries();
+    },
+  });
+}
