@@ -56,3 +56,6 @@ export { rankArchers } from './ranking';
 export type { Placing, RankInput } from './ranking';
 
 export { canonicalJson } from './canonicalJson';
+
+export { endView, settlementApplies } from './endState';
+export type { EndFacts, EndState, EndView, Settlement, WriterRecord } from './endState';

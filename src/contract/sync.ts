@@ -1,0 +1,142 @@
+import { z } from 'zod';
+import { ARROW_VALUES, type ArrowValue, type RoundDefinition } from '../core';
+
+/**
+ * The field path between phone and server. Every change a phone makes is a mutation with a
+ * per-client sequence number; the server applies each exactly once (see DEVELOPERS.md, "Sync").
+ */
+
+export const arrowValueSchema = z.enum(ARROW_VALUES as unknown as [ArrowValue, ...ArrowValue[]], {
+  error: (issue) => `"${String(issue.input)}" is not an arrow value. Use X, 10 to 1, or M.`,
+});
+
+export const ARROW_FLAGS = ['bounce-out', 'pass-through', 'missing', 'hanging', 'judge-needed'] as const;
+export type ArrowFlag = (typeof ARROW_FLAGS)[number];
+export const arrowFlagSchema = z.enum(ARROW_FLAGS);
+
+export const writerSlotSchema = z.union([z.literal(1), z.literal(2)]);
+export type WriterSlot = z.infer<typeof writerSlotSchema>;
+
+export const TASKS = ['writer1', 'writer2', 'caller', 'follower'] as const;
+export type Task = (typeof TASKS)[number];
+
+const id = z.number().int().positive();
+const endIndex = z.number().int().min(0).max(499);
+
+/** A writer's record of one archer's end (replaces that writer's previous record of it). */
+export const endWriteArgsSchema = z.object({
+  sessionId: id,
+  entryId: id,
+  endIndex,
+  slot: writerSlotSchema,
+  arrows: z.array(arrowValueSchema).max(24, 'An end cannot hold more than 24 arrows.'),
+  flags: z
+    .array(z.object({ index: z.number().int().min(0).max(23), flag: arrowFlagSchema }))
+    .max(48)
+    .default([]),
+});
+export type EndWriteArgs = z.infer<typeof endWriteArgsSchema>;
+
+/** The caller's decision on a mismatch: the agreed end, and the arrows sent to a judge. */
+export const endSettleArgsSchema = z.object({
+  sessionId: id,
+  entryId: id,
+  endIndex,
+  arrows: z.array(arrowValueSchema).max(24),
+  disputed: z.array(z.number().int().min(0).max(23)).max(24).default([]),
+  /** The writers' record revisions the caller looked at; a newer record makes this stale. */
+  basis: z.object({ first: z.number().int().min(0), second: z.number().int().min(0) }),
+});
+export type EndSettleArgs = z.infer<typeof endSettleArgsSchema>;
+
+const base = { id: z.uuid(), seq: z.number().int().positive(), at: z.iso.datetime() };
+
+export const mutationSchema = z.discriminatedUnion(
+  'kind',
+  [
+    z.object({ ...base, kind: z.literal('end.write'), args: endWriteArgsSchema }),
+    z.object({ ...base, kind: z.literal('end.settle'), args: endSettleArgsSchema }),
+  ],
+  { error: 'Unknown kind of change. This phone may need the newest version of Ringcall.' },
+);
+export type Mutation = z.infer<typeof mutationSchema>;
+export type MutationKind = Mutation['kind'];
+
+export const pushRequestSchema = z.object({
+  clientId: z.string().min(8).max(100),
+  mutations: z.array(mutationSchema).min(1).max(500, 'Send at most 500 changes at once.'),
+});
+export type PushRequest = z.infer<typeof pushRequestSchema>;
+
+export type MutationResult =
+  | { seq: number; id: string; status: 'applied' | 'duplicate' }
+  | { seq: number; id: string; status: 'rejected'; reason: string };
+
+export type PushResponse = {
+  results: MutationResult[];
+  /** Highest seq the server holds for this client, applied or rejected. */
+  lastSeq: number;
+  /** Present when the batch stopped at a gap: the next seq the server expects. */
+  expectedSeq?: number;
+};
+
+/** Server records as the phone sees them (pull and push effects). */
+export type EndRecordDto = {
+  sessionId: number;
+  entryId: number;
+  endIndex: number;
+  slot: WriterSlot;
+  arrows: ArrowValue[];
+  flags: { index: number; flag: ArrowFlag }[];
+  revision: number;
+  writtenBy: number;
+  writtenAt: string;
+};
+
+export type SettlementDto = {
+  sessionId: number;
+  entryId: number;
+  endIndex: number;
+  arrows: ArrowValue[];
+  disputed: number[];
+  basis: { first: number; second: number };
+  settledBy: number;
+  settledAt: string;
+};
+
+export type ChangeDto =
+  | { version: number; type: 'end'; record: EndRecordDto }
+  | { version: number; type: 'settlement'; record: SettlementDto };
+
+export type PullResponse = { changes: ChangeDto[]; cursor: number; hasMore: boolean };
+
+/** Joining a target group with its code. */
+export const joinRequestSchema = z.object({
+  code: z
+    .string({ error: 'Enter the join code from the target sheet.' })
+    .trim()
+    .toUpperCase()
+    .min(4, 'A join code has 6 characters.')
+    .max(16, 'A join code has 6 characters.'),
+  task: z.enum(TASKS, { error: 'Choose writer 1, writer 2, caller or following.' }),
+});
+export type JoinRequest = z.infer<typeof joinRequestSchema>;
+
+/** Everything a phone needs to score a target offline. */
+export type TargetPackage = {
+  event: { id: number; name: string; venue: string };
+  session: { id: number; name: string; startsAt: string; closed: boolean };
+  targetNumber: number;
+  task: Task;
+  members: { userId: number; name: string; task: Task }[];
+  archers: {
+    entryId: number;
+    position: 'A' | 'B' | 'C' | 'D';
+    name: string;
+    club: string;
+    division: string;
+    bowStyle: 'recurve' | 'compound' | 'barebow';
+    /** The round this archer shoots in the session (snapshot). */
+    round: RoundDefinition;
+  }[];
+};
