@@ -3,8 +3,10 @@ import { ConnectionBadge } from '../ui/ConnectionBadge';
 import { ThemeToggle } from '../ui/ThemeToggle';
 import { RingMark } from '../ui/RingMark';
 import { UpdatePrompt } from './pwa/UpdatePrompt';
+import { useSyncBridge } from '../local/useSync';
 
 export function AppLayout() {
+  useSyncBridge();
   return (
     <div className="flex min-h-dvh flex-col">
       <header className="sticky top-0 z-40 bg-ink text-white shadow">

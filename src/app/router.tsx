@@ -2,6 +2,7 @@ import { createBrowserRouter } from 'react-router-dom';
 import { AppLayout } from './AppLayout';
 import { RouteError } from './RouteError';
 import { authRoutes } from '../features/auth/routes';
+import { padRoutes } from '../features/pad/routes';
 
 /** Each screen is its own lazily loaded chunk, so a phone downloads the pad without the organizer's screens. */
 export const router = createBrowserRouter([
@@ -15,6 +16,7 @@ export const router = createBrowserRouter([
         children: [
           { index: true, lazy: async () => ({ Component: (await import('../features/home/HomeScreen')).HomeScreen }) },
           ...authRoutes,
+          ...padRoutes,
           { path: 'mail', lazy: async () => ({ Component: (await import('../features/mail/CaughtMailScreen')).CaughtMailScreen }) },
           { path: '*', lazy: async () => ({ Component: (await import('./NotFound')).NotFound }) },
         ],

@@ -1,19 +1,26 @@
 import { useOnline } from '../local/online';
+import { useSyncStatus, useWaitingCount } from '../local/useSync';
 
-/** Quiet, always-visible network state: a shape and a word, never colour alone. */
+/** Quiet, always-visible network and sync state: a shape and words, never colour alone. */
 export function ConnectionBadge() {
   const online = useOnline();
+  const waiting = useWaitingCount();
+  const status = useSyncStatus();
+  const attention = !online || status.phase === 'signed-out' || status.phase === 'error';
+  const label = !online ? 'Offline' : status.phase === 'signed-out' && waiting > 0 ? 'Sign in' : 'Online';
   return (
     <span
       role="status"
       aria-live="polite"
       data-testid="connection-badge"
-      className={`inline-flex items-center gap-2 rounded-full border-2 px-3 py-1 text-base font-bold ${
-        online ? 'border-white/70 text-white' : 'border-caution-bg bg-caution-bg text-caution-ink'
+      title={status.lastError}
+      className={`inline-flex items-center gap-2 whitespace-nowrap rounded-full border-2 px-3 py-1 text-base font-bold ${
+        attention ? 'border-caution-bg bg-caution-bg text-caution-ink' : 'border-white/70 text-white'
       }`}
     >
-      <span aria-hidden="true">{online ? '●' : '▲'}</span>
-      {online ? 'Online' : 'Offline'}
+      <span aria-hidden="true">{attention ? '▲' : status.phase === 'syncing' ? '↻' : '●'}</span>
+      {label}
+      {waiting > 0 && <span data-testid="waiting-count">· {waiting} waiting</span>}
     </span>
   );
 }

@@ -27,7 +27,9 @@ export function AccountPanel() {
     <section aria-label="Account" className="surface space-y-3 rounded-xl border border-line bg-card p-4">
       <p>
         Signed in as <strong data-testid="signed-in-name">{user.displayName}</strong>
-        {!user.emailVerified && <span className="block text-base">▲ Confirm your e-mail address with the link we sent you.</span>}
+        {!user.emailVerified && (
+          <span className="block text-base">▲ Confirm your e-mail address with the link we sent you.</span>
+        )}
       </p>
       {roles.length > 0 && (
         <ul className="space-y-1">

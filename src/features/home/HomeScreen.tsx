@@ -2,24 +2,43 @@ import { SafetyNote } from '../../ui/SafetyNote';
 import { useOnline } from '../../local/online';
 import { useServerHealth } from './api/serverHealth';
 import { AccountPanel } from './AccountPanel';
+import { MyTargets } from './MyTargets';
+import { useMe } from '../auth/api/me';
 
 const STEPS = [
-  { title: 'Join your target', text: 'Use the join code printed on your target sheet. Your phone keeps the card even with no signal.' },
-  { title: 'Two writers, one call', text: 'The caller calls each arrow, highest first. Two writers enter it on their own phones.' },
-  { title: 'Cross-check, then pull', text: 'Ringcall compares both entries arrow by arrow. Settle any difference before arrows are pulled.' },
-  { title: 'Signed and ranked', text: 'When signal returns, ends reach the judges to sign, and signed cards feed the standings.' },
+  {
+    title: 'Join your target',
+    text: 'Use the join code printed on your target sheet. Your phone keeps the card even with no signal.',
+  },
+  {
+    title: 'Two writers, one call',
+    text: 'The caller calls each arrow, highest first. Two writers enter it on their own phones.',
+  },
+  {
+    title: 'Cross-check, then pull',
+    text: 'Ringcall compares both entries arrow by arrow. Settle any difference before arrows are pulled.',
+  },
+  {
+    title: 'Signed and ranked',
+    text: 'When signal returns, ends reach the judges to sign, and signed cards feed the standings.',
+  },
 ];
 
 function ServerLine() {
   const online = useOnline();
   const health = useServerHealth();
   if (health.data) {
-    const checked = new Date(health.dataUpdatedAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
+    const checked = new Date(health.dataUpdatedAt).toLocaleTimeString([], {
+      hour: '2-digit',
+      minute: '2-digit',
+    });
     return (
       <p data-testid="server-line">
         <span aria-hidden="true">{online ? '✓ ' : '▲ '}</span>
-        {online ? `Event server reached at ${checked}` : `No signal. Last reached the event server at ${checked}`} · version{' '}
-        {health.data.version}
+        {online
+          ? `Event server reached at ${checked}`
+          : `No signal. Last reached the event server at ${checked}`}{' '}
+        · version {health.data.version}
       </p>
     );
   }
@@ -27,18 +46,27 @@ function ServerLine() {
   return (
     <p data-testid="server-line">
       <span aria-hidden="true">▲ </span>
-      {online ? 'The event server is not answering. Scoring on this phone still works.' : 'No signal. Scoring on this phone still works.'}
+      {online
+        ? 'The event server is not answering. Scoring on this phone still works.'
+        : 'No signal. Scoring on this phone still works.'}
     </p>
   );
 }
 
 export function HomeScreen() {
+  const me = useMe();
   return (
     <div className="space-y-6">
       <section className="space-y-2">
-        <h1 className="text-3xl font-bold leading-tight">Your scorecard, on the field, with or without signal</h1>
-        <p className="text-lg">Ringcall keeps every called arrow on this phone first, then brings it to the event when it can.</p>
+        <h1 className="text-3xl font-bold leading-tight">
+          Your scorecard, on the field, with or without signal
+        </h1>
+        <p className="text-lg">
+          Ringcall keeps every called arrow on this phone first, then brings it to the event when it can.
+        </p>
       </section>
+
+      {me.data && <MyTargets userId={me.data.user.id} />}
 
       <AccountPanel />
 

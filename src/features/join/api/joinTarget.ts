@@ -1,0 +1,22 @@
+import { useMutation } from '@tanstack/react-query';
+import { apiRequest } from '../../../api/request';
+import type { JoinRequest, TargetPackage } from '../../../contract/sync';
+import { localDb, targetKeyOf, type JoinedTarget } from '../../../local/db';
+import { askPersistentStorage } from '../../../local/useSync';
+
+/** Joins a target group and keeps its package on the phone for offline scoring. */
+export async function joinTarget(input: JoinRequest, userId: number): Promise<JoinedTarget> {
+  const pkg = await apiRequest<TargetPackage>('/api/join', { method: 'POST', body: JSON.stringify(input) });
+  const row: JoinedTarget = {
+    ...pkg,
+    key: targetKeyOf(userId, pkg.session.id, pkg.targetNumber),
+    userId,
+    joinedAt: new Date().toISOString(),
+  };
+  await localDb().targets.put(row);
+  await askPersistentStorage();
+  return row;
+}
+
+export const useJoinTarget = (userId: number) =>
+  useMutation({ mutationFn: (input: JoinRequest) => joinTarget(input, userId) });

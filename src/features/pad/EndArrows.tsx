@@ -1,0 +1,72 @@
+import type { ArrowValue } from '../../core';
+import type { ArrowFlag } from '../../contract/sync';
+import { arrowLook } from './arrowLook';
+
+export const FLAG_LABELS: Record<ArrowFlag, string> = {
+  'bounce-out': 'Bounce-out',
+  'pass-through': 'Pass-through',
+  missing: 'Missing arrow',
+  hanging: 'Hanging arrow',
+  'judge-needed': 'Judge needed',
+};
+
+type Props = {
+  arrows: readonly ArrowValue[];
+  slots: number;
+  flags?: { index: number; flag: ArrowFlag }[];
+  selected?: number | undefined;
+  onSelect?: (index: number) => void;
+  /** Positions to mark as differing from the other card. */
+  differing?: ReadonlySet<number>;
+  label: string;
+};
+
+/** One end's values, highest to lowest, in boxes the size of a thumb; empty boxes show what is left. */
+export function EndArrows({ arrows, slots, flags = [], selected, onSelect, differing, label }: Props) {
+  return (
+    <ol className="flex flex-wrap gap-2" aria-label={label}>
+      {Array.from({ length: Math.max(slots, arrows.length) }, (_, i) => {
+        const value = arrows[i];
+        const flag = flags.find((f) => f.index === i);
+        const differs = differing?.has(i);
+        const box = `relative flex h-14 w-12 items-center justify-center rounded-lg text-[28px] font-bold ${
+          value ? arrowLook(value) : 'border-2 border-dashed border-line text-ink-soft'
+        } ${selected === i ? 'ring-4 ring-ink ring-offset-2' : ''} ${differs ? 'outline outline-4 outline-brick' : ''}`;
+        const content = (
+          <>
+            {value ?? '·'}
+            {flag && (
+              <span
+                className="absolute -right-2 -top-3 rounded bg-ink px-1 text-base leading-tight text-white"
+                title={FLAG_LABELS[flag.flag]}
+              >
+                ⚑
+              </span>
+            )}
+            {differs && (
+              <span className="absolute -bottom-3 rounded bg-brick px-1 text-base leading-tight text-white">
+                ≠
+              </span>
+            )}
+          </>
+        );
+        return (
+          <li key={i}>
+            {onSelect && value ? (
+              <button
+                type="button"
+                className={box}
+                onClick={() => onSelect(i)}
+                aria-label={`Arrow ${i + 1}: ${value}${flag ? `, ${FLAG_LABELS[flag.flag]}` : ''}`}
+              >
+                {content}
+              </button>
+            ) : (
+              <span className={box}>{content}</span>
+            )}
+          </li>
+        );
+      })}
+    </ol>
+  );
+}

@@ -1,0 +1,154 @@
+import { useState } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { endView } from '../../core';
+import { endKeyOf, type JoinedTarget } from '../../local/db';
+import type { LocalEnd } from '../../local/endFacts';
+import { SafetyNote } from '../../ui/SafetyNote';
+import { useMe } from '../auth/api/me';
+import { CallerView } from './CallerView';
+import { END_STATE_LABELS } from './endStateLabel';
+import { Rejections } from './Rejections';
+import { SyncLine } from './SyncLine';
+import { TASK_LABELS } from './taskNames';
+import { usePadData } from './usePadData';
+import { roundEnds } from './useEndNavigation';
+import { WriterPad } from './WriterPad';
+
+/** The first end where this phone still has work: an unfinished card (writer) or a mismatch (caller). */
+function firstOpenEnd(target: JoinedTarget, ends: Map<string, LocalEnd>): number {
+  const count = Math.max(...target.archers.map((a) => roundEnds(a).length));
+  const slot = target.task === 'writer1' ? 1 : target.task === 'writer2' ? 2 : undefined;
+  for (let endIndex = 0; endIndex < count; endIndex += 1) {
+    const unfinished = target.archers.some((a) => {
+      const local = ends.get(endKeyOf(target.session.id, a.entryId, endIndex));
+      const perEnd = roundEnds(a)[endIndex]?.arrowsPerEnd ?? 0;
+      if (slot) return (local?.slots[slot]?.arrows.length ?? 0) < perEnd;
+      const state = local ? endView(local.facts).state : 'open';
+      return state !== 'agreed' && state !== 'settled' && state !== 'signed';
+    });
+    if (unfinished) return endIndex;
+  }
+  return count - 1;
+}
+
+function Pad({
+  target,
+  ends,
+  rejected,
+}: {
+  target: JoinedTarget;
+  ends: Map<string, LocalEnd>;
+  rejected: Parameters<typeof Rejections>[0]['rows'];
+}) {
+  const [endIndex, setEndIndex] = useState(() => firstOpenEnd(target, ends));
+  const [archerIndex, setArcherIndex] = useState(0);
+  const endCount = Math.max(...target.archers.map((a) => roundEnds(a).length));
+  const slot = target.task === 'writer1' ? 1 : target.task === 'writer2' ? 2 : undefined;
+  const goToEnd = (i: number) => {
+    setEndIndex(Math.min(endCount - 1, Math.max(0, i)));
+    setArcherIndex(0);
+  };
+
+  return (
+    <div className="space-y-4">
+      <header className="space-y-2">
+        <p className="text-base">
+          {target.event.name} · {target.session.name}
+        </p>
+        <h1 className="text-3xl font-bold">
+          Target {target.targetNumber}{' '}
+          <span className="text-xl font-normal">· {TASK_LABELS[target.task]}</span>
+        </h1>
+      </header>
+      <SafetyNote compact />
+      <Rejections rows={rejected} target={target} />
+
+      <nav aria-label="Ends" className="flex items-center gap-2">
+        <button
+          type="button"
+          className="h-14 w-16 rounded-lg border-2 border-ink text-2xl font-bold disabled:opacity-30"
+          onClick={() => goToEnd(endIndex - 1)}
+          disabled={endIndex === 0}
+          aria-label="Previous end"
+        >
+          ◀
+        </button>
+        <p className="flex-1 text-center text-2xl font-bold" data-testid="end-number">
+          End {endIndex + 1} <span className="text-lg font-normal">of {endCount}</span>
+        </p>
+        <button
+          type="button"
+          className="h-14 w-16 rounded-lg border-2 border-ink text-2xl font-bold disabled:opacity-30"
+          onClick={() => goToEnd(endIndex + 1)}
+          disabled={endIndex >= endCount - 1}
+          aria-label="Next end"
+        >
+          ▶
+        </button>
+      </nav>
+
+      {slot ? (
+        <>
+          <div className="grid grid-cols-4 gap-2" role="tablist" aria-label="Archers in card order">
+            {target.archers.map((a, i) => {
+              const local = ends.get(endKeyOf(target.session.id, a.entryId, endIndex));
+              const state = local ? endView(local.facts).state : 'open';
+              const count = local?.slots[slot]?.arrows.length ?? 0;
+              return (
+                <button
+                  key={a.entryId}
+                  type="button"
+                  role="tab"
+                  aria-selected={i === archerIndex}
+                  onClick={() => setArcherIndex(i)}
+                  className={`min-h-16 rounded-lg border-2 px-1 text-left ${i === archerIndex ? 'border-ink bg-ink text-white' : 'border-line bg-card'}`}
+                >
+                  <span className="block text-xl font-bold">{a.position}</span>
+                  <span className="block truncate text-base">{a.name.split(' ')[0]}</span>
+                  <span className="block text-base" aria-label={END_STATE_LABELS[state].word}>
+                    {END_STATE_LABELS[state].mark} {count}
+                  </span>
+                </button>
+              );
+            })}
+          </div>
+          <WriterPad
+            target={target}
+            slot={slot}
+            ends={ends}
+            endIndex={endIndex}
+            archerIndex={archerIndex}
+            onArcherIndex={setArcherIndex}
+          />
+        </>
+      ) : (
+        <CallerView target={target} ends={ends} endIndex={endIndex} />
+      )}
+      <SyncLine />
+    </div>
+  );
+}
+
+export function PadScreen() {
+  const params = useParams();
+  const sessionId = Number(params.sessionId);
+  const targetNumber = Number(params.targetNumber);
+  const me = useMe();
+  const data = usePadData(sessionId, targetNumber, me.data?.user.id);
+  if (data === undefined) return <p>Opening the pad…</p>;
+  if (data === null) {
+    return (
+      <div className="space-y-4">
+        <h1 className="text-2xl font-bold">This phone has not joined target {targetNumber}</h1>
+        <p>Scan the join code on your target sheet to start scoring.</p>
+        <Link
+          to="/join"
+          className="inline-flex min-h-14 items-center rounded-lg bg-moss px-5 font-bold text-white"
+        >
+          Join a target
+        </Link>
+      </div>
+    );
+  }
+  return <Pad key={data.target.key} target={data.target} ends={data.ends} rejected={data.rejected} />;
+}

@@ -1,0 +1,64 @@
+import { useLiveQuery } from 'dexie-react-hooks';
+import { localDb } from '../../local/db';
+import { exportWaiting } from '../../local/outbox';
+import { useSyncStatus, useWaitingCount } from '../../local/useSync';
+import { syncLoop } from '../../local/syncLoop';
+import { useOnline } from '../../local/online';
+
+async function saveWaiting() {
+  const { fileName, json } = await exportWaiting(localDb());
+  const url = URL.createObjectURL(new Blob([json], { type: 'application/json' }));
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = fileName;
+  a.click();
+  URL.revokeObjectURL(url);
+}
+
+/** What waits to sync, in words, with a way to send now and a file for the judge if it cannot. */
+export function SyncLine() {
+  const waiting = useWaitingCount();
+  const status = useSyncStatus();
+  const online = useOnline();
+  const persistence = useLiveQuery(() => localDb().meta.get('storagePersistence'), [])?.value;
+  const text =
+    waiting === 0
+      ? status.lastSyncAt
+        ? `✓ Everything on this phone has reached the event server.`
+        : '✓ Nothing waiting to send.'
+      : status.phase === 'signed-out'
+        ? `▲ ${waiting} change${waiting === 1 ? '' : 's'} waiting. Sign in again to send them; they are kept on this phone.`
+        : !online || status.phase === 'offline'
+          ? `▲ ${waiting} change${waiting === 1 ? '' : 's'} waiting for signal. They are kept on this phone.`
+          : status.phase === 'error'
+            ? `▲ ${waiting} waiting. ${status.lastError ?? ''} Trying again soon.`
+            : `↻ Sending ${waiting} change${waiting === 1 ? '' : 's'}…`;
+  return (
+    <section aria-label="Sync" className="surface space-y-2 rounded-xl border border-line bg-card p-3">
+      <p data-testid="sync-line">{text}</p>
+      {persistence === 'refused' && (
+        <p className="text-base">
+          This browser may clear stored data when the phone is short of space. Sync whenever you have signal.
+        </p>
+      )}
+      {waiting > 0 && (
+        <div className="flex flex-wrap gap-2">
+          <button
+            type="button"
+            className="min-h-12 rounded-lg border-2 border-ink px-3 font-bold"
+            onClick={() => syncLoop().kick()}
+          >
+            Send now
+          </button>
+          <button
+            type="button"
+            className="min-h-12 rounded-lg border-2 border-ink px-3 font-bold"
+            onClick={() => void saveWaiting()}
+          >
+            Save waiting changes as a file
+          </button>
+        </div>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,266 @@
+import { useState } from 'react';
+import { cardTotals, endRules, type ArrowValue } from '../../core';
+import { ARROW_FLAGS, type WriterSlot } from '../../contract/sync';
+import { endKeyOf, localDb, type JoinedTarget } from '../../local/db';
+import type { LocalEnd } from '../../local/endFacts';
+import { endView } from '../../core';
+import { recordChange } from '../../local/outbox';
+import { syncLoop } from '../../local/syncLoop';
+import { Notice } from '../../ui/Notice';
+import { ArrowKeypad } from './ArrowKeypad';
+import { EndArrows, FLAG_LABELS } from './EndArrows';
+import { addArrow, flagArrow, removeArrow, type EditableEnd } from './endEdits';
+import { roundEnds, type TargetArcher } from './useEndNavigation';
+import { END_STATE_LABELS } from './endStateLabel';
+
+type Props = {
+  target: JoinedTarget;
+  slot: WriterSlot;
+  ends: Map<string, LocalEnd>;
+  endIndex: number;
+  archerIndex: number;
+  onArcherIndex: (i: number) => void;
+};
+
+const other = (slot: WriterSlot): WriterSlot => (slot === 1 ? 2 : 1);
+
+function withoutKey<T>(record: Record<string, T>, key: string): Record<string, T> {
+  const { [key]: _dropped, ...rest } = record;
+  return rest;
+}
+
+/** The writer's pad for one archer's end: keys, the end so far, totals, and the other card. */
+export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherIndex }: Props) {
+  const archer = target.archers[archerIndex]!;
+  const endInfo = roundEnds(archer)[endIndex];
+  const key = endKeyOf(target.session.id, archer.entryId, endIndex);
+  const local = ends.get(key);
+  const stored: EditableEnd = {
+    arrows: [...(local?.slots[slot]?.arrows ?? [])],
+    flags: [...(local?.slots[slot]?.flags ?? [])],
+  };
+  // Taps faster than IndexedDB answers build on what was just typed, not on the last stored value.
+  const [typed, setTyped] = useState<Record<string, EditableEnd>>({});
+  const mine = typed[key] ?? stored;
+  // Once the store has caught up, show the store again (so a refused change visibly reverts).
+  if (typed[key] && JSON.stringify(typed[key]) === JSON.stringify(stored)) setTyped(withoutKey(typed, key));
+  const theirs = local?.slots[other(slot)];
+  const view = local ? endView(local.facts) : undefined;
+  const [undo, setUndo] = useState<Record<string, EditableEnd[]>>({});
+  const [selected, setSelected] = useState<number>();
+  const [notice, setNotice] = useState<string>();
+  const locked = view?.state === 'signed';
+
+  const rules = endInfo
+    ? endRules(archer.round, endInfo.distanceIndex, archer.bowStyle, { allowPartial: true })
+    : undefined;
+
+  const write = async (next: EditableEnd, previous: EditableEnd) => {
+    setUndo((u) => ({ ...u, [key]: [...(u[key] ?? []), previous] }));
+    setTyped((t) => ({ ...t, [key]: next }));
+    const started = performance.now();
+    await recordChange(localDb(), target.userId, {
+      kind: 'end.write',
+      args: {
+        sessionId: target.session.id,
+        entryId: archer.entryId,
+        endIndex,
+        slot,
+        arrows: next.arrows,
+        flags: next.flags,
+      },
+    });
+    // Read by bench/pad-tap.bench.ts: tap to IndexedDB commit.
+    performance.measure('ringcall:tap-to-commit', { start: started });
+    syncLoop().kick();
+  };
+
+  const onValue = (value: ArrowValue) => {
+    if (!rules) return;
+    if (mine.arrows.length >= rules.arrowsPerEnd) {
+      setNotice(`All ${rules.arrowsPerEnd} arrows are in. Tap an arrow to change or remove it.`);
+      return;
+    }
+    setNotice(undefined);
+    const next = addArrow(mine, value);
+    void write(next, mine);
+    // A full end moves on to the next archer whose end is not complete yet.
+    if (next.arrows.length === rules.arrowsPerEnd) {
+      const nextIndex = target.archers.findIndex(
+        (a, i) =>
+          i > archerIndex &&
+          (ends.get(endKeyOf(target.session.id, a.entryId, endIndex))?.slots[slot]?.arrows.length ?? 0) <
+            rules.arrowsPerEnd,
+      );
+      if (nextIndex >= 0) onArcherIndex(nextIndex);
+    }
+  };
+
+  const onUndo = () => {
+    const stack = undo[key] ?? [];
+    const previous = stack[stack.length - 1];
+    if (!previous) return;
+    setUndo((u) => ({ ...u, [key]: stack.slice(0, -1) }));
+    setTyped((t) => ({ ...t, [key]: previous }));
+    void recordChange(localDb(), target.userId, {
+      kind: 'end.write',
+      args: {
+        sessionId: target.session.id,
+        entryId: archer.entryId,
+        endIndex,
+        slot,
+        arrows: previous.arrows,
+        flags: previous.flags,
+      },
+    }).then(() => syncLoop().kick());
+  };
+
+  // The archer's own card as this writer keeps it: every end this writer entered.
+  const ownEnds = roundEnds(archer).map((e) =>
+    e.endIndex === endIndex
+      ? mine.arrows
+      : ends.get(endKeyOf(target.session.id, archer.entryId, e.endIndex))?.slots[slot]?.arrows,
+  );
+  const totals = cardTotals(
+    archer.round,
+    ownEnds.map((v) => (v && v.length ? [...v] : undefined)),
+  );
+
+  if (!endInfo || !rules) return <Notice tone="info">This archer's round has no end {endIndex + 1}.</Notice>;
+  const endTotal = totals.ends[endIndex]?.total;
+  const differing = new Set(view?.check.arrows.filter((a) => !a.same).map((a) => a.index) ?? []);
+
+  return (
+    <section aria-label={`${archer.name}, end ${endIndex + 1}`} className="space-y-4">
+      <div className="flex items-baseline justify-between gap-2">
+        <h2 className="text-2xl font-bold">
+          {archer.position} · {archer.name}
+        </h2>
+        <p className="text-lg" data-testid="end-state">
+          <span aria-hidden="true">{END_STATE_LABELS[view?.state ?? 'open'].mark} </span>
+          {END_STATE_LABELS[view?.state ?? 'open'].word}
+        </p>
+      </div>
+      <EndArrows
+        label="Your values for this end"
+        arrows={mine.arrows}
+        flags={mine.flags}
+        slots={rules.arrowsPerEnd}
+        selected={selected}
+        onSelect={locked ? undefined : (i) => setSelected(selected === i ? undefined : i)}
+        differing={view?.state === 'mismatch' ? differing : undefined}
+      />
+      <p className="text-xl" data-testid="totals">
+        End <strong data-testid="end-total">{endTotal ?? 0}</strong> · Running total{' '}
+        <strong data-testid="running-total">{totals.total}</strong> · 10s {totals.tens} · Xs {totals.xs}
+      </p>
+
+      {selected !== undefined && mine.arrows[selected] && (
+        <div className="surface space-y-2 rounded-xl border-2 border-ink bg-card p-3">
+          <p className="font-bold">
+            Arrow {selected + 1}: {mine.arrows[selected]}
+          </p>
+          <div className="flex flex-wrap gap-2">
+            <button
+              type="button"
+              className="min-h-12 rounded-lg border-2 border-brick px-3 font-bold text-brick"
+              onClick={() => {
+                void write(removeArrow(mine, selected), mine);
+                setSelected(undefined);
+              }}
+            >
+              Remove this arrow
+            </button>
+            {ARROW_FLAGS.map((flag) => {
+              const on = mine.flags.some((f) => f.index === selected && f.flag === flag);
+              return (
+                <button
+                  key={flag}
+                  type="button"
+                  aria-pressed={on}
+                  className={`min-h-12 rounded-lg border-2 px-3 font-bold ${on ? 'border-ink bg-ink text-white' : 'border-ink'}`}
+                  onClick={() => {
+                    void write(flagArrow(mine, selected, on ? undefined : flag), mine);
+                    setSelected(undefined);
+                  }}
+                >
+                  ⚑ {FLAG_LABELS[flag]}
+                </button>
+              );
+            })}
+          </div>
+        </div>
+      )}
+
+      {notice && <Notice tone="info">{notice}</Notice>}
+      {locked ? (
+        <Notice tone="info">This end is signed. Ask a judge to correct it.</Notice>
+      ) : (
+        <ArrowKeypad
+          allowed={rules.allowed}
+          onValue={onValue}
+          onUndo={onUndo}
+          canUndo={(undo[key]?.length ?? 0) > 0}
+        />
+      )}
+
+      <OtherCard
+        slot={other(slot)}
+        theirs={theirs?.arrows}
+        state={view?.state}
+        agreed={view?.arrows}
+        arrowsPerEnd={rules.arrowsPerEnd}
+        differing={differing}
+      />
+    </section>
+  );
+}
+
+function OtherCard({
+  slot,
+  theirs,
+  state,
+  agreed,
+  arrowsPerEnd,
+  differing,
+}: {
+  slot: WriterSlot;
+  theirs: readonly ArrowValue[] | undefined;
+  state: string | undefined;
+  agreed: ArrowValue[] | undefined;
+  arrowsPerEnd: number;
+  differing: Set<number>;
+}) {
+  return (
+    <section
+      aria-label="Cross-check"
+      className="surface space-y-2 rounded-xl border border-line bg-card p-3"
+      data-testid="cross-check"
+    >
+      <h3 className="font-bold">Cross-check with writer {slot}</h3>
+      {!theirs ? (
+        <p>Writer {slot}'s card for this end has not reached this phone yet.</p>
+      ) : (
+        <>
+          <EndArrows
+            label={`Writer ${slot}'s values`}
+            arrows={theirs}
+            slots={arrowsPerEnd}
+            differing={state === 'mismatch' ? differing : undefined}
+          />
+          {state === 'agreed' && <p>✓ Both cards agree.</p>}
+          {state === 'mismatch' && (
+            <p className="font-bold text-brick">
+              ≠ The cards differ at arrow {[...differing].map((i) => i + 1).join(', ')}. The caller settles it
+              before arrows are pulled.
+            </p>
+          )}
+          {state === 'settled' && agreed && <p>✓ Settled by the caller: {agreed.join(' ')}</p>}
+          {state === 'disputed' && <p>? A judge is deciding this end.</p>}
+        </>
+      )}
+    </section>
+  );
+}
+
+export type { TargetArcher };

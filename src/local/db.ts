@@ -1,0 +1,95 @@
+import { Dexie, type EntityTable } from 'dexie';
+import type {
+  ArrowFlag,
+  EndSettleArgs,
+  EndWriteArgs,
+  MutationKind,
+  TargetPackage,
+  WriterSlot,
+} from '../contract/sync';
+import type { ArrowValue } from '../core';
+
+/** A target group this phone joined, with everything needed to score it offline. */
+export type JoinedTarget = TargetPackage & { key: string; userId: number; joinedAt: string };
+
+/** The server's copy of a writer's record, as last pulled. */
+export type EndRecordRow = {
+  key: string; // session:entry:end:slot
+  endKey: string; // session:entry:end
+  sessionId: number;
+  entryId: number;
+  endIndex: number;
+  slot: WriterSlot;
+  arrows: ArrowValue[];
+  flags: { index: number; flag: ArrowFlag }[];
+  revision: number;
+  writtenBy: number;
+  writtenAt: string;
+};
+
+/** The server's copy of a caller's settlement, as last pulled. */
+export type SettlementRow = {
+  endKey: string;
+  sessionId: number;
+  entryId: number;
+  endIndex: number;
+  arrows: ArrowValue[];
+  disputed: number[];
+  basis: { first: number; second: number };
+  settledBy: number;
+  settledAt: string;
+};
+
+export type OutboxStatus = 'pending' | 'applied' | 'rejected';
+
+/** A change made on this phone. Pending rows are the phone's own view on top of the server's. */
+export type OutboxRow = {
+  clientId: string;
+  seq: number;
+  id: string;
+  userId: number;
+  kind: MutationKind;
+  args: EndWriteArgs | EndSettleArgs;
+  at: string;
+  /** The end this change is about (session:entry:end), for the pad's overlay. */
+  endKey: string;
+  status: OutboxStatus;
+  reason?: string;
+  /** Set when the person has read a rejection. */
+  seenAt?: string;
+};
+
+export type MetaRow = { key: string; value: unknown };
+
+export class LocalDb extends Dexie {
+  meta!: EntityTable<MetaRow, 'key'>;
+  targets!: EntityTable<JoinedTarget, 'key'>;
+  endRecords!: EntityTable<EndRecordRow, 'key'>;
+  settlements!: EntityTable<SettlementRow, 'endKey'>;
+  outbox!: Dexie.Table<OutboxRow, [string, number]>;
+
+  constructor(name = 'ringcall') {
+    super(name);
+    this.version(1).stores({
+      meta: 'key',
+      targets: 'key, userId',
+      endRecords: 'key, endKey, sessionId',
+      settlements: 'endKey, sessionId',
+      outbox: '[clientId+seq], id, status, endKey, userId, [clientId+status]',
+    });
+  }
+}
+
+export const endKeyOf = (sessionId: number, entryId: number, endIndex: number) =>
+  `${sessionId}:${entryId}:${endIndex}`;
+export const recordKeyOf = (sessionId: number, entryId: number, endIndex: number, slot: WriterSlot) =>
+  `${endKeyOf(sessionId, entryId, endIndex)}:${slot}`;
+export const targetKeyOf = (userId: number, sessionId: number, targetNumber: number) =>
+  `${userId}:${sessionId}:${targetNumber}`;
+
+let shared: LocalDb | undefined;
+/** The phone's one database (tests open their own with another name). */
+export function localDb(): LocalDb {
+  shared ??= new LocalDb();
+  return shared;
+}

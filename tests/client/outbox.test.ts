@@ -1,0 +1,117 @@
+import 'fake-indexeddb/auto';
+import { afterEach, describe, expect, it } from 'vitest';
+import { LocalDb } from '../../src/local/db';
+import { clientIdFor, exportWaiting, recordChange, waitingCount } from '../../src/local/outbox';
+import { syncOnce, type SyncTransport } from '../../src/local/syncEngine';
+import { ApiError } from '../../src/api/request';
+import type { EndWriteArgs } from '../../src/contract/sync';
+
+let n = 0;
+const dbs: LocalDb[] = [];
+function freshDb(): LocalDb {
+  n += 1;
+  const db = new LocalDb(`outbox-test-${n}`);
+  dbs.push(db);
+  return db;
+}
+afterEach(async () => {
+  for (const db of dbs.splice(0)) await db.delete();
+});
+
+const write = (
+  endIndex: number,
+  arrows: EndWriteArgs['arrows'],
+): { kind: 'end.write'; args: EndWriteArgs } => ({
+  kind: 'end.write',
+  args: { sessionId: 1, entryId: 7, endIndex, slot: 1, arrows, flags: [] },
+});
+
+describe('the outbox', () => {
+  it('numbers changes 1, 2, 3… per person on one install, even when taps overlap', async () => {
+    const db = freshDb();
+    const rows = await Promise.all([
+      recordChange(db, 5, write(0, ['X'])),
+      recordChange(db, 5, write(0, ['X', '9'])),
+      recordChange(db, 5, write(0, ['X', '9', '9'])),
+    ]);
+    expect(rows.map((r) => r.seq)).toEqual([1, 2, 3]);
+    expect(new Set(rows.map((r) => r.clientId)).size).toBe(1);
+    const other = await recordChange(db, 6, write(1, ['5']));
+    expect(other.seq).toBe(1);
+    expect(other.clientId).not.toBe(rows[0]!.clientId);
+    expect(other.clientId.split('.')[0]).toBe(rows[0]!.clientId.split('.')[0]);
+    expect(await waitingCount(db)).toBe(4);
+  });
+
+  it('survives closing and reopening the database (a reload)', async () => {
+    const db = freshDb();
+    await recordChange(db, 5, write(0, ['8']));
+    db.close();
+    const reopened = new LocalDb(db.name);
+    dbs.push(reopened);
+    expect(await waitingCount(reopened)).toBe(1);
+    const next = await recordChange(reopened, 5, write(0, ['8', '7']));
+    expect(next.seq).toBe(2);
+    expect(next.clientId).toBe(await clientIdFor(reopened, 5));
+  });
+
+  it('keeps every change waiting when the server cannot be reached', async () => {
+    const db = freshDb();
+    await recordChange(db, 5, write(0, ['8']));
+    const offline: SyncTransport = {
+      push: async () => {
+        throw new ApiError(0, 'network', 'No connection');
+      },
+      pull: async () => {
+        throw new ApiError(0, 'network', 'No connection');
+      },
+    };
+    await expect(syncOnce(db, 5, offline)).rejects.toThrow('No connection');
+    expect(await waitingCount(db)).toBe(1);
+  });
+
+  it('keeps every change waiting when the sign-in has expired (401)', async () => {
+    const db = freshDb();
+    await recordChange(db, 5, write(0, ['8']));
+    const signedOut: SyncTransport = {
+      push: async () => {
+        throw new ApiError(401, 'unauthorized', 'Please sign in again.');
+      },
+      pull: async () => ({ changes: [], cursor: 0, hasMore: false }),
+    };
+    await expect(syncOnce(db, 5, signedOut)).rejects.toMatchObject({ status: 401 });
+    const rows = await db.outbox.toArray();
+    expect(rows.map((r) => r.status)).toEqual(['pending']);
+  });
+
+  it('marks refused changes with the reason and keeps them, applied ones as applied', async () => {
+    const db = freshDb();
+    await recordChange(db, 5, write(0, ['8']));
+    await recordChange(db, 5, write(1, ['4']));
+    const transport: SyncTransport = {
+      push: async (body) => ({
+        results: [
+          { seq: body.mutations[0]!.seq, id: body.mutations[0]!.id, status: 'applied' },
+          {
+            seq: body.mutations[1]!.seq,
+            id: body.mutations[1]!.id,
+            status: 'rejected',
+            reason: '4 is not a value on the 80 cm six-ring face.',
+          },
+        ],
+        lastSeq: 2,
+      }),
+      pull: async () => ({ changes: [], cursor: 0, hasMore: false }),
+    };
+    const report = await syncOnce(db, 5, transport);
+    expect(report).toMatchObject({ pushed: 2, applied: 1, rejected: 1 });
+    const rows = await db.outbox.orderBy('[clientId+seq]').toArray();
+    expect(rows.map((r) => [r.status, r.reason])).toEqual([
+      ['applied', undefined],
+      ['rejected', '4 is not a value on the 80 cm six-ring face.'],
+    ]);
+    const file = JSON.parse((await exportWaiting(db)).json);
+    expect(file.clients[0].mutations).toHaveLength(1);
+    expect(file.clients[0].mutations[0]).toMatchObject({ seq: 2, status: 'rejected' });
+  });
+});
