@@ -30,14 +30,24 @@ export default tseslint.config(
         'error',
         {
           patterns: [
-            { group: ['react', 'react-dom', 'express', 'knex', 'better-sqlite3', 'dexie', 'node:*'], message: 'src/core and src/contract stay free of UI, server and platform code.' },
+            {
+              group: ['react', 'react-dom', 'express', 'knex', 'better-sqlite3', 'dexie', 'node:*'],
+              message: 'src/core and src/contract stay free of UI, server and platform code.',
+            },
           ],
         },
       ],
     },
   },
   {
-    files: ['server/**/*.ts', 'migrations/**/*.ts', 'tests/{server,e2e,support}/**/*.ts', 'bench/**/*.ts', 'scripts/**/*.ts', '*.config.{ts,js}'],
+    files: [
+      'server/**/*.ts',
+      'migrations/**/*.ts',
+      'tests/{server,e2e,support}/**/*.ts',
+      'bench/**/*.ts',
+      'scripts/**/*.ts',
+      '*.config.{ts,js}',
+    ],
     languageOptions: { globals: globals.node },
   },
 );

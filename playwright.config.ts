@@ -2,6 +2,8 @@ import { defineConfig, devices } from '@playwright/test';
 import { chromiumArgs, chromiumPath } from './tests/support/chromium';
 
 const PORT = Number(process.env.E2E_PORT ?? 4317);
+// One data folder per port, so two runs on one machine never share a database. Workers inherit it.
+process.env.E2E_DATA_DIR = `.tmp/e2e-${PORT}`;
 
 export default defineConfig({
   testDir: 'tests/e2e',
@@ -29,7 +31,12 @@ export default defineConfig({
     url: `http://127.0.0.1:${PORT}/api/health`,
     reuseExistingServer: false,
     timeout: 60_000,
-    env: { PORT: String(PORT), HOST: '127.0.0.1' },
+    env: {
+      PORT: String(PORT),
+      HOST: '127.0.0.1',
+      DATA_DIR: process.env.E2E_DATA_DIR,
+      MAIL_CATCHER_PORT: '0',
+    },
     stdout: 'ignore',
     stderr: 'pipe',
   },

@@ -19,7 +19,8 @@ export default defineConfig({
       manifest: {
         name: 'Ringcall scorecard',
         short_name: 'Ringcall',
-        description: 'Offline scorecard for target archery: two writers, one cross-check, synced when signal returns.',
+        description:
+          'Offline scorecard for target archery: two writers, one cross-check, synced when signal returns.',
         lang: 'en',
         start_url: '/',
         scope: '/',

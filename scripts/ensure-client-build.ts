@@ -12,10 +12,14 @@ const sources = ['src', 'public', 'index.html', 'vite.config.ts', 'package.json'
 function newestMtime(path: string): number {
   const stat = statSync(path);
   if (!stat.isDirectory()) return stat.mtimeMs;
-  return readdirSync(path).reduce((newest, name) => Math.max(newest, newestMtime(join(path, name))), stat.mtimeMs);
+  return readdirSync(path).reduce(
+    (newest, name) => Math.max(newest, newestMtime(join(path, name))),
+    stat.mtimeMs,
+  );
 }
 
-const stale = !existsSync(built) || sources.some((s) => existsSync(s) && newestMtime(s) > statSync(built).mtimeMs);
+const stale =
+  !existsSync(built) || sources.some((s) => existsSync(s) && newestMtime(s) > statSync(built).mtimeMs);
 if (stale) {
   console.log('Building the Ringcall client (first start or changed sources)…');
   const run = spawnSync('npm', ['run', 'build'], { stdio: 'inherit' });

@@ -8,7 +8,10 @@ import { join } from 'node:path';
 
 type Chunk = { file: string; src?: string; isEntry?: boolean; imports?: string[]; dynamicImports?: string[] };
 const dist = 'dist';
-const manifest = JSON.parse(readFileSync(join(dist, '.vite', 'manifest.json'), 'utf8')) as Record<string, Chunk>;
+const manifest = JSON.parse(readFileSync(join(dist, '.vite', 'manifest.json'), 'utf8')) as Record<
+  string,
+  Chunk
+>;
 
 function closure(keys: string[], seen = new Set<string>()): Set<string> {
   for (const key of keys) {
@@ -20,7 +23,8 @@ function closure(keys: string[], seen = new Set<string>()): Set<string> {
 }
 
 const gzipKiB = (files: Set<string>) =>
-  [...files].reduce((sum, key) => sum + gzipSync(readFileSync(join(dist, manifest[key]!.file))).length, 0) / 1024;
+  [...files].reduce((sum, key) => sum + gzipSync(readFileSync(join(dist, manifest[key]!.file))).length, 0) /
+  1024;
 
 const entryKey = Object.keys(manifest).find((k) => manifest[k]!.isEntry && k.endsWith('index.html'));
 if (!entryKey) throw new Error('No entry chunk in the Vite manifest.');

@@ -12,6 +12,15 @@ import { BCRYPT_COST } from './auth/passwords';
 import { healthRoutes } from './routes/health';
 import { authRoutes } from './routes/auth';
 import { caughtMailRoutes } from './routes/caughtMail';
+import { eventRoutes } from './routes/events';
+import { divisionRoutes } from './routes/divisions';
+import { sessionRoutes } from './routes/sessions';
+import { entryRoutes } from './routes/entries';
+import { staffRoutes } from './routes/staff';
+import { targetRoutes } from './routes/targets';
+import { printoutRoutes } from './routes/printouts';
+import { syncRoutes } from './routes/sync';
+import { joinRoutes } from './routes/join';
 
 export type AppDeps = {
   db: Db;
@@ -53,6 +62,15 @@ export function createApp(deps: AppDeps): Express {
   api.use(healthRoutes(deps.version));
   api.use(authRoutes(ctx));
   api.use(caughtMailRoutes(ctx));
+  api.use(eventRoutes(ctx));
+  api.use(divisionRoutes(ctx));
+  api.use(sessionRoutes(ctx));
+  api.use(entryRoutes(ctx));
+  api.use(staffRoutes(ctx));
+  api.use(targetRoutes(ctx));
+  api.use(printoutRoutes(ctx));
+  api.use(syncRoutes(ctx));
+  api.use(joinRoutes(ctx));
   api.use(routeNotFound);
   app.use('/api', api);
 

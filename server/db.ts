@@ -18,7 +18,10 @@ export function openDb(file: string): Db {
     pool: {
       min: 1,
       max: 1,
-      afterCreate(conn: { pragma: (sql: string) => unknown }, done: (err: Error | null, conn: unknown) => void) {
+      afterCreate(
+        conn: { pragma: (sql: string) => unknown },
+        done: (err: Error | null, conn: unknown) => void,
+      ) {
         try {
           // These two pragmas are the only SQLite-specific statements: durability (WAL) and integrity (FKs).
           conn.pragma('journal_mode = WAL');

@@ -53,7 +53,9 @@ async function main(): Promise<void> {
     ];
     if (config.demoSeed) {
       lines.push(
-        seeded ? '  Demo event created (invented data).' : '  Demo sign-ins (if this database holds the demo event):',
+        seeded
+          ? '  Demo event created (invented data).'
+          : '  Demo sign-ins (if this database holds the demo event):',
         `    organizer  ${DEMO_ORGANIZER.email}`,
         ...DEMO_JUDGES.map((j) => `    judge      ${j.email}`),
         `    archer     ${DEMO_ARCHER_EMAIL()}`,

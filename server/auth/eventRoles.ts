@@ -17,7 +17,8 @@ export function requireEventRole(db: Db, ...allowed: EventRole[]): RequestHandle
   return async (req, _res, next) => {
     if (!req.user) return next(unauthorized());
     const eventId = Number(req.params.eventId);
-    if (!Number.isInteger(eventId) || eventId <= 0) return next(badRequest('The event number in the address is not valid.'));
+    if (!Number.isInteger(eventId) || eventId <= 0)
+      return next(badRequest('The event number in the address is not valid.'));
     const event = await db('events').where({ id: eventId }).first('id');
     if (!event) return next(notFound('That event does not exist.'));
     const roles = await rolesInEvent(db, req.user.id, eventId);

@@ -5,7 +5,8 @@ import { HttpError } from '../http/httpError';
 const WINDOW_MS = 15 * 60 * 1000;
 
 function tooMany(message: string) {
-  return (_req: Request, _res: unknown, next: (err: unknown) => void) => next(new HttpError(429, 'too_many_attempts', message));
+  return (_req: Request, _res: unknown, next: (err: unknown) => void) =>
+    next(new HttpError(429, 'too_many_attempts', message));
 }
 
 /**
@@ -20,8 +21,13 @@ export function signInLimits() {
     skipSuccessfulRequests: true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    keyGenerator: (req) => `account:${String((req.body as { email?: unknown } | undefined)?.email ?? '').trim().toLowerCase()}`,
-    handler: tooMany('Too many wrong passwords for this account. Wait 15 minutes and try again, or ask the organizer for help.'),
+    keyGenerator: (req) =>
+      `account:${String((req.body as { email?: unknown } | undefined)?.email ?? '')
+        .trim()
+        .toLowerCase()}`,
+    handler: tooMany(
+      'Too many wrong passwords for this account. Wait 15 minutes and try again, or ask the organizer for help.',
+    ),
   });
   const perAddress = rateLimit({
     windowMs: WINDOW_MS,

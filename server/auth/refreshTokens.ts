@@ -25,20 +25,27 @@ export async function issueRefreshToken(db: Db, userId: number, userAgent: strin
   return token;
 }
 
-export type RotateResult = { ok: true; userId: number; token: string } | { ok: false; reason: 'unknown' | 'expired' | 'revoked' | 'reused' };
+export type RotateResult =
+  | { ok: true; userId: number; token: string }
+  | { ok: false; reason: 'unknown' | 'expired' | 'revoked' | 'reused' };
 
 /**
  * Exchanges a refresh token for a new one. Reuse of an already rotated token (outside the short
  * race window) means it was copied: the whole family is revoked and the person signs in again.
  */
 export async function rotateRefreshToken(db: Db, token: string, userAgent: string): Promise<RotateResult> {
-  const row = await db('refresh_tokens').where({ token_hash: sha256Hex(token) }).first();
+  const row = await db('refresh_tokens')
+    .where({ token_hash: sha256Hex(token) })
+    .first();
   if (!row) return { ok: false, reason: 'unknown' };
   if (row.revoked_at) return { ok: false, reason: 'revoked' };
   if (Date.parse(row.expires_at) <= Date.now()) return { ok: false, reason: 'expired' };
   if (row.rotated_at) {
     if (Date.now() - Date.parse(row.rotated_at) > RACE_GRACE_MS) {
-      await db('refresh_tokens').where({ family_id: row.family_id }).whereNull('revoked_at').update({ revoked_at: nowIso() });
+      await db('refresh_tokens')
+        .where({ family_id: row.family_id })
+        .whereNull('revoked_at')
+        .update({ revoked_at: nowIso() });
       return { ok: false, reason: 'reused' };
     }
   } else {
@@ -49,6 +56,12 @@ export async function rotateRefreshToken(db: Db, token: string, userAgent: strin
 }
 
 export async function revokeRefreshFamily(db: Db, token: string): Promise<void> {
-  const row = await db('refresh_tokens').where({ token_hash: sha256Hex(token) }).first();
-  if (row) await db('refresh_tokens').where({ family_id: row.family_id }).whereNull('revoked_at').update({ revoked_at: nowIso() });
+  const row = await db('refresh_tokens')
+    .where({ token_hash: sha256Hex(token) })
+    .first();
+  if (row)
+    await db('refresh_tokens')
+      .where({ family_id: row.family_id })
+      .whereNull('revoked_at')
+      .update({ revoked_at: nowIso() });
 }

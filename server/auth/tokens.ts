@@ -1,4 +1,4 @@
-import { createHash, randomBytes } from 'node:crypto';
+import { createHash, randomBytes, type KeyObject } from 'node:crypto';
 import { SignJWT, jwtVerify } from 'jose';
 
 const ACCESS_TTL_SECONDS = 15 * 60;
@@ -23,8 +23,15 @@ export async function signAccessToken(secret: Uint8Array, userId: number, now = 
 }
 
 /** Verifies signature, algorithm (allow-list: HS256 only), issuer, audience and expiry. */
-export async function verifyAccessToken(secret: Uint8Array, token: string): Promise<AccessClaims> {
-  const { payload } = await jwtVerify(token, secret, { algorithms: ['HS256'], issuer: ISSUER, audience: AUDIENCE });
+export async function verifyAccessToken(
+  secret: Uint8Array | KeyObject,
+  token: string,
+): Promise<AccessClaims> {
+  const { payload } = await jwtVerify(token, secret, {
+    algorithms: ['HS256'],
+    issuer: ISSUER,
+    audience: AUDIENCE,
+  });
   const userId = Number(payload.sub);
   if (!Number.isInteger(userId) || userId <= 0) throw new Error('Token has no valid subject.');
   return { userId };

@@ -28,11 +28,60 @@ export const DEMO_DIVISIONS = [
   { bowStyle: 'barebow', className: 'Men', name: 'Barebow Men' },
 ] as const;
 
-const WOMEN = ['Ines', 'Marta', 'Siobhan', 'Yuki', 'Leonie', 'Farah', 'Greta', 'Noor', 'Ottilie', 'Bea', 'Rosa', 'Camille'];
-const MEN = ['Anselm', 'Dario', 'Kwame', 'Lars', 'Matteo', 'Ruairi', 'Tadeusz', 'Emil', 'Jonah', 'Pavel', 'Idris', 'Sven'];
+/** The demo's one session: each division shoots the catalog round for its bow style. */
+export const DEMO_SESSION = {
+  name: 'Saturday qualification',
+  startsAt: '2026-12-12T09:30',
+  roundFor: { recurve: '70m', compound: '50m-compound', barebow: '50m-barebow' },
+} as const;
+
+const WOMEN = [
+  'Ines',
+  'Marta',
+  'Siobhan',
+  'Yuki',
+  'Leonie',
+  'Farah',
+  'Greta',
+  'Noor',
+  'Ottilie',
+  'Bea',
+  'Rosa',
+  'Camille',
+];
+const MEN = [
+  'Anselm',
+  'Dario',
+  'Kwame',
+  'Lars',
+  'Matteo',
+  'Ruairi',
+  'Tadeusz',
+  'Emil',
+  'Jonah',
+  'Pavel',
+  'Idris',
+  'Sven',
+];
 const SURNAMES = [
-  'Ashdown', 'Brightwater', 'Calloway', 'Dunmore', 'Elsworth', 'Fenwick', 'Garrow', 'Halloran', 'Inchbald',
-  'Jessop', 'Kilbride', 'Lowther', 'Marchbank', 'Nettleford', 'Ormsby', 'Pennock', 'Quarrie', 'Rushworth',
+  'Ashdown',
+  'Brightwater',
+  'Calloway',
+  'Dunmore',
+  'Elsworth',
+  'Fenwick',
+  'Garrow',
+  'Halloran',
+  'Inchbald',
+  'Jessop',
+  'Kilbride',
+  'Lowther',
+  'Marchbank',
+  'Nettleford',
+  'Ormsby',
+  'Pennock',
+  'Quarrie',
+  'Rushworth',
 ];
 const CLUBS = [DEMO_CLUB, 'Stonebridge Bowmen', 'Kestrel Vale Archers', 'Millrace Toxophilites'];
 

@@ -1,12 +1,18 @@
 import bcrypt from 'bcryptjs';
 import type { Db } from '../db';
 import { nowIso } from '../time';
+import { getRound } from '../../src/core';
+import { ensureJoinCodes } from '../services/joinCodes';
+import { planTargets } from '../services/targetAssignment';
+import { loadLayout } from '../services/targetLayout';
+import type { SessionRow } from '../services/sessions';
 import {
   DEMO_DIVISIONS,
   DEMO_EVENT,
   DEMO_JUDGES,
   DEMO_ORGANIZER,
   DEMO_PASSWORD,
+  DEMO_SESSION,
   demoArchers,
 } from './demoPeople';
 
@@ -27,7 +33,13 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
 
   await db.transaction(async (trx) => {
     const [organizer] = await trx('users')
-      .insert({ email: DEMO_ORGANIZER.email, display_name: DEMO_ORGANIZER.name, password_hash: passwordHash, email_verified_at: at, created_at: at })
+      .insert({
+        email: DEMO_ORGANIZER.email,
+        display_name: DEMO_ORGANIZER.name,
+        password_hash: passwordHash,
+        email_verified_at: at,
+        created_at: at,
+      })
       .returning('id');
     const organizerId = (organizer as { id: number }).id;
 
@@ -44,26 +56,53 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
       })
       .returning('id');
     const eventId = (event as { id: number }).id;
-    await trx('event_roles').insert({ event_id: eventId, user_id: organizerId, role: 'organizer', created_at: at });
+    await trx('event_roles').insert({
+      event_id: eventId,
+      user_id: organizerId,
+      role: 'organizer',
+      created_at: at,
+    });
 
     for (const judge of DEMO_JUDGES) {
       const [user] = await trx('users')
-        .insert({ email: judge.email, display_name: judge.name, password_hash: passwordHash, email_verified_at: at, created_at: at })
+        .insert({
+          email: judge.email,
+          display_name: judge.name,
+          password_hash: passwordHash,
+          email_verified_at: at,
+          created_at: at,
+        })
         .returning('id');
-      await trx('event_roles').insert({ event_id: eventId, user_id: (user as { id: number }).id, role: 'judge', created_at: at });
+      await trx('event_roles').insert({
+        event_id: eventId,
+        user_id: (user as { id: number }).id,
+        role: 'judge',
+        created_at: at,
+      });
     }
 
     const divisionIds = new Map<string, number>();
     for (const division of DEMO_DIVISIONS) {
       const [row] = await trx('divisions')
-        .insert({ event_id: eventId, bow_style: division.bowStyle, class_name: division.className, name: division.name })
+        .insert({
+          event_id: eventId,
+          bow_style: division.bowStyle,
+          class_name: division.className,
+          name: division.name,
+        })
         .returning('id');
       divisionIds.set(division.name, (row as { id: number }).id);
     }
 
     for (const archer of demoArchers()) {
       const [user] = await trx('users')
-        .insert({ email: archer.email, display_name: archer.name, password_hash: passwordHash, email_verified_at: at, created_at: at })
+        .insert({
+          email: archer.email,
+          display_name: archer.name,
+          password_hash: passwordHash,
+          email_verified_at: at,
+          created_at: at,
+        })
         .returning('id');
       const userId = (user as { id: number }).id;
       await trx('event_roles').insert({ event_id: eventId, user_id: userId, role: 'archer', created_at: at });
@@ -77,6 +116,42 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
         created_at: at,
       });
     }
+
+    // One session with each division's catalog round, every archer on a target, join codes issued.
+    const [session] = await trx('event_sessions')
+      .insert({ event_id: eventId, name: DEMO_SESSION.name, starts_at: DEMO_SESSION.startsAt })
+      .returning('id');
+    const sessionId = (session as { id: number }).id;
+    for (const division of DEMO_DIVISIONS) {
+      const round = getRound(DEMO_SESSION.roundFor[division.bowStyle]);
+      await trx('session_divisions').insert({
+        session_id: sessionId,
+        division_id: divisionIds.get(division.name)!,
+        round_id: round.id,
+        round_json: JSON.stringify(round),
+      });
+    }
+    const sessionRow: SessionRow = {
+      id: sessionId,
+      event_id: eventId,
+      name: DEMO_SESSION.name,
+      starts_at: DEMO_SESSION.startsAt,
+      closed_at: null,
+    };
+    const placements = planTargets(await loadLayout(trx, sessionRow));
+    for (const p of placements) {
+      await trx('target_assignments').insert({
+        session_id: sessionId,
+        entry_id: p.entryId,
+        target_number: p.targetNumber,
+        position: p.position,
+      });
+    }
+    await ensureJoinCodes(
+      trx,
+      sessionId,
+      placements.map((p) => p.targetNumber),
+    );
   });
   return true;
 }

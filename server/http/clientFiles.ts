@@ -15,7 +15,8 @@ export function clientFiles(clientDir: string): Router | undefined {
       index: false,
       setHeaders(res, path) {
         // Hashed assets never change; the shell, manifest and service worker must always be revalidated.
-        if (path.includes(`${join(clientDir, 'assets')}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+        if (path.includes(`${join(clientDir, 'assets')}`))
+          res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
         else res.setHeader('Cache-Control', 'no-cache');
       },
     }),

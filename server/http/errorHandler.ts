@@ -12,27 +12,36 @@ function fromBodyParser(err: BodyParserError): HttpError | undefined {
       return new HttpError(400, 'bad_json', 'The request body is not valid JSON.');
     case 'encoding.unsupported':
     case 'charset.unsupported':
-      return new HttpError(415, 'unsupported_encoding', 'The request uses an encoding the server does not read.');
+      return new HttpError(
+        415,
+        'unsupported_encoding',
+        'The request uses an encoding the server does not read.',
+      );
     default:
       return undefined;
   }
 }
 
 export const routeNotFound: RequestHandler = (req, _res, next) => {
-  next(notFound(`Nothing is at ${req.method} ${req.originalUrl.split("?")[0]}.`));
+  next(notFound(`Nothing is at ${req.method} ${req.originalUrl.split('?')[0]}.`));
 };
 
 /** Turns every failure into `{error: {code, message}}` with a fitting status; hides internals on 5xx. */
 export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next) => {
   let httpError: HttpError;
   if (err instanceof HttpError) httpError = err;
-  else if (err instanceof Error && fromBodyParser(err as BodyParserError)) httpError = fromBodyParser(err as BodyParserError)!;
+  else if (err instanceof Error && fromBodyParser(err as BodyParserError))
+    httpError = fromBodyParser(err as BodyParserError)!;
   else if (err instanceof Error && (err as BodyParserError).status && (err as BodyParserError).expose) {
     const status = (err as BodyParserError).status!;
     httpError = new HttpError(status, 'bad_request', err.message);
   } else {
     console.error(`Unexpected error on ${req.method} ${req.originalUrl}:`, err);
-    httpError = new HttpError(500, 'internal', 'Something went wrong on the server. Try again; if it keeps happening, tell the organizer.');
+    httpError = new HttpError(
+      500,
+      'internal',
+      'Something went wrong on the server. Try again; if it keeps happening, tell the organizer.',
+    );
   }
   const body: ApiErrorBody = {
     error: {

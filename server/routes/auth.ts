@@ -1,6 +1,11 @@
 import { Router, type Request, type Response } from 'express';
 import type { AuthSession } from '../../src/contract/auth';
-import { acceptInvitationSchema, signInSchema, signUpSchema, verifyEmailSchema } from '../../src/contract/auth';
+import {
+  acceptInvitationSchema,
+  signInSchema,
+  signUpSchema,
+  verifyEmailSchema,
+} from '../../src/contract/auth';
 import type { AppContext } from '../context';
 import { validateBody } from '../http/validate';
 import { unauthorized } from '../http/httpError';
@@ -44,7 +49,10 @@ export function authRoutes(ctx: AppContext): Router {
   }
 
   router.post('/auth/sign-up', signUpLimit(), validateBody(signUpSchema), async (req, res) => {
-    const user = await signUp(db, ctx.mailer, req.body, { bcryptCost: ctx.bcryptCost, baseUrl: baseUrl(req, ctx.publicUrl) });
+    const user = await signUp(db, ctx.mailer, req.body, {
+      bcryptCost: ctx.bcryptCost,
+      baseUrl: baseUrl(req, ctx.publicUrl),
+    });
     await startSession(req, res, user.id, 201);
   });
 
@@ -90,9 +98,14 @@ export function authRoutes(ctx: AppContext): Router {
     res.status(202).json({ sent: true });
   });
 
-  router.post('/invitations/accept', ctx.requireUser, validateBody(acceptInvitationSchema), async (req, res) => {
-    res.json(await acceptInvitation(db, req.body.token, req.user!.id));
-  });
+  router.post(
+    '/invitations/accept',
+    ctx.requireUser,
+    validateBody(acceptInvitationSchema),
+    async (req, res) => {
+      res.json(await acceptInvitation(db, req.body.token, req.user!.id));
+    },
+  );
 
   return router;
 }

@@ -21,14 +21,28 @@ export function caughtMailRoutes(ctx: AppContext): Router {
   }
 
   router.get('/caught-mail', ctx.requireUser, async (req, res) => {
-    const rows = await (await visibleTo(req.user!.id, req.user!.email))().limit(200).select('id', 'mail_from', 'mail_to', 'subject', 'received_at');
+    const rows = await (
+      await visibleTo(req.user!.id, req.user!.email)
+    )()
+      .limit(200)
+      .select('id', 'mail_from', 'mail_to', 'subject', 'received_at');
     res.json({
-      messages: rows.map((r) => ({ id: r.id, from: r.mail_from, to: r.mail_to, subject: r.subject, receivedAt: r.received_at })),
+      messages: rows.map((r) => ({
+        id: r.id,
+        from: r.mail_from,
+        to: r.mail_to,
+        subject: r.subject,
+        receivedAt: r.received_at,
+      })),
     });
   });
 
   router.get('/caught-mail/:id', ctx.requireUser, async (req, res) => {
-    const row = await (await visibleTo(req.user!.id, req.user!.email))().where({ id: Number(req.params.id) }).first();
+    const row = await (
+      await visibleTo(req.user!.id, req.user!.email)
+    )()
+      .where({ id: Number(req.params.id) })
+      .first();
     if (!row) throw notFound('That mail is not in the catcher, or it is not addressed to you.');
     const parsed = await simpleParser(row.raw);
     res.json({
@@ -38,18 +52,30 @@ export function caughtMailRoutes(ctx: AppContext): Router {
       subject: row.subject,
       receivedAt: row.received_at,
       text: row.text_body,
-      attachments: parsed.attachments.map((a, index) => ({ index, filename: a.filename ?? `attachment-${index}`, contentType: a.contentType, size: a.size })),
+      attachments: parsed.attachments.map((a, index) => ({
+        index,
+        filename: a.filename ?? `attachment-${index}`,
+        contentType: a.contentType,
+        size: a.size,
+      })),
     });
   });
 
   router.get('/caught-mail/:id/attachments/:index', ctx.requireUser, async (req, res) => {
-    const row = await (await visibleTo(req.user!.id, req.user!.email))().where({ id: Number(req.params.id) }).first();
+    const row = await (
+      await visibleTo(req.user!.id, req.user!.email)
+    )()
+      .where({ id: Number(req.params.id) })
+      .first();
     if (!row) throw forbidden('That mail is not addressed to you.');
     const parsed = await simpleParser(row.raw);
     const attachment = parsed.attachments[Number(req.params.index)];
     if (!attachment) throw notFound('That mail has no such attachment.');
     res.setHeader('Content-Type', attachment.contentType);
-    res.setHeader('Content-Disposition', `attachment; filename="${(attachment.filename ?? 'attachment').replace(/"/g, '')}"`);
+    res.setHeader(
+      'Content-Disposition',
+      `attachment; filename="${(attachment.filename ?? 'attachment').replace(/"/g, '')}"`,
+    );
     res.send(attachment.content);
   });
 

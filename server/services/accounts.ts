@@ -7,7 +7,13 @@ import { nowIso } from '../time';
 import { audit } from './audit';
 import { createEmailToken, findEmailToken, markEmailTokenUsed } from './emailTokens';
 
-type UserRow = { id: number; email: string; display_name: string; password_hash: string | null; email_verified_at: string | null };
+type UserRow = {
+  id: number;
+  email: string;
+  display_name: string;
+  password_hash: string | null;
+  email_verified_at: string | null;
+};
 
 export const toSessionUser = (u: UserRow): SessionUser => ({
   id: u.id,
@@ -19,7 +25,8 @@ export const toSessionUser = (u: UserRow): SessionUser => ({
 /** Gives the person a role in an event once (repeated grants are no-ops). */
 export async function grantRole(db: Db, eventId: number, userId: number, role: EventRole): Promise<void> {
   const existing = await db('event_roles').where({ event_id: eventId, user_id: userId, role }).first('id');
-  if (!existing) await db('event_roles').insert({ event_id: eventId, user_id: userId, role, created_at: nowIso() });
+  if (!existing)
+    await db('event_roles').insert({ event_id: eventId, user_id: userId, role, created_at: nowIso() });
 }
 
 /**
@@ -27,7 +34,10 @@ export async function grantRole(db: Db, eventId: number, userId: number, role: E
  * address become this person's, and they become an archer in those events.
  */
 async function claimEntries(db: Db, user: UserRow): Promise<void> {
-  const entries = await db('entries').whereNull('user_id').where({ email: user.email }).select('id', 'event_id');
+  const entries = await db('entries')
+    .whereNull('user_id')
+    .where({ email: user.email })
+    .select('id', 'event_id');
   for (const entry of entries) {
     await db('entries').where({ id: entry.id }).update({ user_id: user.id });
     await grantRole(db, entry.event_id, user.id, 'archer');
@@ -35,29 +45,52 @@ async function claimEntries(db: Db, user: UserRow): Promise<void> {
 }
 
 async function markVerified(db: Db, user: UserRow): Promise<UserRow> {
-  if (!user.email_verified_at) await db('users').where({ id: user.id }).update({ email_verified_at: nowIso() });
+  if (!user.email_verified_at)
+    await db('users').where({ id: user.id }).update({ email_verified_at: nowIso() });
   await claimEntries(db, user);
   return (await db('users').where({ id: user.id }).first()) as UserRow;
 }
 
 /** Accepts an invitation for the signed-in person: grants the role, and proves the address. */
-export async function acceptInvitation(db: Db, token: string, userId: number): Promise<{ eventId: number; role: EventRole }> {
+export async function acceptInvitation(
+  db: Db,
+  token: string,
+  userId: number,
+): Promise<{ eventId: number; role: EventRole }> {
   const invite = await findEmailToken(db, token, 'invite');
   if (!invite || !invite.event_id || !invite.role) {
-    throw new HttpError(410, 'invite_invalid', 'This invitation link is not valid any more. Ask the organizer for a new one.');
+    throw new HttpError(
+      410,
+      'invite_invalid',
+      'This invitation link is not valid any more. Ask the organizer for a new one.',
+    );
   }
   const user = (await db('users').where({ id: userId }).first()) as UserRow;
   if (user.email !== invite.email) {
-    throw new HttpError(403, 'invite_other_person', `This invitation was sent to ${invite.email}. Sign in with that address to accept it.`);
+    throw new HttpError(
+      403,
+      'invite_other_person',
+      `This invitation was sent to ${invite.email}. Sign in with that address to accept it.`,
+    );
   }
   await grantRole(db, invite.event_id, user.id, invite.role);
   await markEmailTokenUsed(db, invite.id);
   await markVerified(db, user);
-  await audit(db, { userId, eventId: invite.event_id, action: 'invitation.accepted', details: { role: invite.role } });
+  await audit(db, {
+    userId,
+    eventId: invite.event_id,
+    action: 'invitation.accepted',
+    details: { role: invite.role },
+  });
   return { eventId: invite.event_id, role: invite.role };
 }
 
-export async function sendVerificationMail(db: Db, mailer: Mailer, user: UserRow, base: string): Promise<void> {
+export async function sendVerificationMail(
+  db: Db,
+  mailer: Mailer,
+  user: UserRow,
+  base: string,
+): Promise<void> {
   const token = await createEmailToken(db, { purpose: 'verify', email: user.email });
   await mailer.send({
     to: user.email,
@@ -81,9 +114,16 @@ export async function signUp(
 
   const passwordHash = await hashPassword(input.password, options.bcryptCost);
   const [created] = await db('users')
-    .insert({ email: input.email, display_name: input.displayName, password_hash: passwordHash, created_at: nowIso() })
+    .insert({
+      email: input.email,
+      display_name: input.displayName,
+      password_hash: passwordHash,
+      created_at: nowIso(),
+    })
     .returning('id');
-  let user = (await db('users').where({ id: (created as { id: number }).id }).first()) as UserRow;
+  let user = (await db('users')
+    .where({ id: (created as { id: number }).id })
+    .first()) as UserRow;
   await audit(db, { userId: user.id, eventId: null, action: 'account.created' });
 
   if (input.inviteToken) {
@@ -97,7 +137,12 @@ export async function signUp(
 
 export async function verifyEmail(db: Db, token: string): Promise<SessionUser> {
   const row = await findEmailToken(db, token, 'verify');
-  if (!row) throw new HttpError(410, 'link_invalid', 'This confirmation link is not valid any more. Sign in and ask for a new one.');
+  if (!row)
+    throw new HttpError(
+      410,
+      'link_invalid',
+      'This confirmation link is not valid any more. Sign in and ask for a new one.',
+    );
   const user = (await db('users').where({ email: row.email }).first()) as UserRow | undefined;
   if (!user) throw new HttpError(410, 'link_invalid', 'This confirmation link belongs to no account.');
   await markEmailTokenUsed(db, row.id);
@@ -105,7 +150,12 @@ export async function verifyEmail(db: Db, token: string): Promise<SessionUser> {
 }
 
 /** Checks e-mail and password; the same message and similar timing whether or not the account exists. */
-export async function checkCredentials(db: Db, email: string, password: string, bcryptCost: number): Promise<SessionUser | undefined> {
+export async function checkCredentials(
+  db: Db,
+  email: string,
+  password: string,
+  bcryptCost: number,
+): Promise<SessionUser | undefined> {
   const user = (await db('users').where({ email }).first()) as UserRow | undefined;
   if (!user || !user.password_hash) {
     await verifyPassword(password, await dummyHashFor(bcryptCost));

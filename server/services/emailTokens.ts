@@ -18,7 +18,13 @@ export type EmailTokenRow = {
 /** Creates a single-use link token; only its hash is stored. */
 export async function createEmailToken(
   db: Db,
-  input: { purpose: EmailTokenPurpose; email: string; eventId?: number; role?: EventRole; createdBy?: number },
+  input: {
+    purpose: EmailTokenPurpose;
+    email: string;
+    eventId?: number;
+    role?: EventRole;
+    createdBy?: number;
+  },
 ): Promise<string> {
   const token = randomToken();
   await db('email_tokens').insert({
@@ -35,7 +41,11 @@ export async function createEmailToken(
 }
 
 /** Finds an unused, unexpired token of the given purpose. */
-export async function findEmailToken(db: Db, token: string, purpose: EmailTokenPurpose): Promise<EmailTokenRow | undefined> {
+export async function findEmailToken(
+  db: Db,
+  token: string,
+  purpose: EmailTokenPurpose,
+): Promise<EmailTokenRow | undefined> {
   const row = await db('email_tokens')
     .where({ token_hash: sha256Hex(token), purpose })
     .whereNull('used_at')

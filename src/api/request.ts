@@ -1,4 +1,4 @@
-import { apiErrorSchema } from '../contract/apiError';
+import type { ApiErrorBody } from '../contract/apiError';
 import { accessToken, forgetAccessToken, refreshSession } from '../features/auth/session';
 
 /** A failed API call, carrying the server's readable message. */
@@ -18,7 +18,8 @@ export const isSignedOutError = (error: unknown) => error instanceof ApiError &&
 async function send(path: string, init: RequestInit, token: string | undefined): Promise<Response> {
   const headers = new Headers(init.headers);
   headers.set('Accept', 'application/json');
-  if (init.body && !(init.body instanceof FormData) && !headers.has('Content-Type')) headers.set('Content-Type', 'application/json');
+  if (init.body && !(init.body instanceof FormData) && !headers.has('Content-Type'))
+    headers.set('Content-Type', 'application/json');
   if (token) headers.set('Authorization', `Bearer ${token}`);
   try {
     return await fetch(path, { ...init, headers, credentials: 'same-origin' });
@@ -41,9 +42,13 @@ async function authorizedFetch(path: string, init: RequestInit): Promise<Respons
 
 async function errorFrom(response: Response): Promise<ApiError> {
   const text = await response.text();
-  const parsed = apiErrorSchema.safeParse(safeJson(text));
-  if (parsed.success) return new ApiError(response.status, parsed.data.error.code, parsed.data.error.message);
-  return new ApiError(response.status, 'http', `The server answered ${response.status} without an explanation.`);
+  const body = safeJson(text);
+  if (isApiErrorBody(body)) return new ApiError(response.status, body.error.code, body.error.message);
+  return new ApiError(
+    response.status,
+    'http',
+    `The server answered ${response.status} without an explanation.`,
+  );
 }
 
 /** JSON request to Ringcall's own API; every failure becomes an ApiError with a message to show. */
@@ -57,6 +62,12 @@ export async function apiRequest<T>(path: string, init: RequestInit = {}): Promi
 export async function apiDownload(path: string): Promise<Blob> {
   const response = await authorizedFetch(path, { method: 'GET' });
   return response.blob();
+}
+
+/** A plain check rather than the zod schema, so the app shell does not carry zod. */
+function isApiErrorBody(body: unknown): body is ApiErrorBody {
+  const error = (body as { error?: { code?: unknown; message?: unknown } } | undefined)?.error;
+  return typeof error?.code === 'string' && typeof error.message === 'string';
 }
 
 function safeJson(text: string): unknown {

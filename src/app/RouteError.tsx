@@ -20,7 +20,11 @@ export function RouteError() {
       </p>
       <p className="text-base text-ink-soft">Details: {detail}</p>
       <div className="flex gap-3">
-        <button type="button" className="min-h-14 rounded-lg bg-moss px-5 font-bold text-white" onClick={() => window.location.reload()}>
+        <button
+          type="button"
+          className="min-h-14 rounded-lg bg-moss px-5 font-bold text-white"
+          onClick={() => window.location.reload()}
+        >
           Reload
         </button>
         <Link to="/" className="flex min-h-14 items-center rounded-lg border-2 border-ink px-5 font-bold">

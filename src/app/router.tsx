@@ -3,6 +3,7 @@ import { AppLayout } from './AppLayout';
 import { RouteError } from './RouteError';
 import { authRoutes } from '../features/auth/routes';
 import { padRoutes } from '../features/pad/routes';
+import { eventRoutes } from '../features/events/routes';
 
 /** Each screen is its own lazily loaded chunk, so a phone downloads the pad without the organizer's screens. */
 export const router = createBrowserRouter([
@@ -14,10 +15,19 @@ export const router = createBrowserRouter([
       {
         errorElement: <RouteError />,
         children: [
-          { index: true, lazy: async () => ({ Component: (await import('../features/home/HomeScreen')).HomeScreen }) },
+          {
+            index: true,
+            lazy: async () => ({ Component: (await import('../features/home/HomeScreen')).HomeScreen }),
+          },
           ...authRoutes,
           ...padRoutes,
-          { path: 'mail', lazy: async () => ({ Component: (await import('../features/mail/CaughtMailScreen')).CaughtMailScreen }) },
+          ...eventRoutes,
+          {
+            path: 'mail',
+            lazy: async () => ({
+              Component: (await import('../features/mail/CaughtMailScreen')).CaughtMailScreen,
+            }),
+          },
           { path: '*', lazy: async () => ({ Component: (await import('./NotFound')).NotFound }) },
         ],
       },

@@ -32,7 +32,10 @@ export const signInSchema = z.object({
 });
 export type SignInInput = z.infer<typeof signInSchema>;
 
-const linkToken = z.string({ error: 'The link is missing its code.' }).min(10, 'The link is incomplete.').max(200);
+const linkToken = z
+  .string({ error: 'The link is missing its code.' })
+  .min(10, 'The link is incomplete.')
+  .max(200);
 export const verifyEmailSchema = z.object({ token: linkToken });
 export const acceptInvitationSchema = z.object({ token: linkToken });
 

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { ARROW_VALUES, type ArrowValue, type RoundDefinition } from '../core';
+import { ARROW_FLAGS, TASKS, type ArrowFlag, type Task, type WriterSlot } from './fieldTerms';
+import { ARROW_VALUES, type ArrowValue, type EndView, type RoundDefinition } from '../core';
 
 /**
  * The field path between phone and server. Every change a phone makes is a mutation with a
@@ -10,15 +11,11 @@ export const arrowValueSchema = z.enum(ARROW_VALUES as unknown as [ArrowValue, .
   error: (issue) => `"${String(issue.input)}" is not an arrow value. Use X, 10 to 1, or M.`,
 });
 
-export const ARROW_FLAGS = ['bounce-out', 'pass-through', 'missing', 'hanging', 'judge-needed'] as const;
-export type ArrowFlag = (typeof ARROW_FLAGS)[number];
+export { ARROW_FLAGS, TASKS } from './fieldTerms';
+export type { ArrowFlag, Task, WriterSlot } from './fieldTerms';
 export const arrowFlagSchema = z.enum(ARROW_FLAGS);
 
 export const writerSlotSchema = z.union([z.literal(1), z.literal(2)]);
-export type WriterSlot = z.infer<typeof writerSlotSchema>;
-
-export const TASKS = ['writer1', 'writer2', 'caller', 'follower'] as const;
-export type Task = (typeof TASKS)[number];
 
 const id = z.number().int().positive();
 const endIndex = z.number().int().min(0).max(499);
@@ -110,6 +107,28 @@ export type ChangeDto =
 
 export type PullResponse = { changes: ChangeDto[]; cursor: number; hasMore: boolean };
 
+export const PULL_LIMIT_DEFAULT = 500;
+export const PULL_LIMIT_MAX = 2000;
+
+const cursorMessage = 'cursor must be a whole number: the version of the last change this phone holds, or 0.';
+const limitMessage = `limit must be a whole number from 1 to ${PULL_LIMIT_MAX}.`;
+
+/** `GET /api/sync/pull?cursor=N&limit=M`: changes after version N, at most M of them. */
+export const pullQuerySchema = z.object({
+  cursor: z
+    .string({ error: cursorMessage })
+    .regex(/^\d{1,15}$/, cursorMessage)
+    .transform(Number)
+    .default(0),
+  limit: z
+    .string({ error: limitMessage })
+    .regex(/^\d{1,6}$/, limitMessage)
+    .transform(Number)
+    .pipe(z.number().min(1, limitMessage).max(PULL_LIMIT_MAX, limitMessage))
+    .default(PULL_LIMIT_DEFAULT),
+});
+export type PullQuery = z.infer<typeof pullQuerySchema>;
+
 /** Joining a target group with its code. */
 export const joinRequestSchema = z.object({
   code: z
@@ -138,5 +157,20 @@ export type TargetPackage = {
     bowStyle: 'recurve' | 'compound' | 'barebow';
     /** The round this archer shoots in the session (snapshot). */
     round: RoundDefinition;
+  }[];
+};
+
+/**
+ * `GET /api/targets/:sessionId/:targetNumber/ends`: the server's own cross-check of a target,
+ * derived with the same core `endView` the phones use.
+ */
+export type TargetEndsView = {
+  sessionId: number;
+  targetNumber: number;
+  archers: {
+    entryId: number;
+    position: 'A' | 'B' | 'C' | 'D';
+    name: string;
+    ends: { endIndex: number; view: EndView }[];
   }[];
 };

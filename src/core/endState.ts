@@ -38,7 +38,9 @@ export interface EndView {
 /** Whether a caller's settlement still speaks for both writers' current records. */
 export function settlementApplies(facts: EndFacts): boolean {
   const s = facts.settlement;
-  return !!s && s.basis.first === (facts.first?.revision ?? 0) && s.basis.second === (facts.second?.revision ?? 0);
+  return (
+    !!s && s.basis.first === (facts.first?.revision ?? 0) && s.basis.second === (facts.second?.revision ?? 0)
+  );
 }
 
 /**
@@ -48,7 +50,8 @@ export function settlementApplies(facts: EndFacts): boolean {
 export function endView(facts: EndFacts): EndView {
   const check = crossCheck(facts.first?.arrows, facts.second?.arrows);
   const settlementStale = !!facts.settlement && !settlementApplies(facts);
-  if (facts.signedArrows) return { state: 'signed', check, arrows: sortEnd(facts.signedArrows), settlementStale };
+  if (facts.signedArrows)
+    return { state: 'signed', check, arrows: sortEnd(facts.signedArrows), settlementStale };
   if (facts.settlement && !settlementStale) {
     const disputed = facts.settlement.disputed.length > 0;
     return disputed
@@ -57,6 +60,7 @@ export function endView(facts: EndFacts): EndView {
   }
   if (!facts.first && !facts.second) return { state: 'open', check, settlementStale };
   if (check.status === 'waiting') return { state: 'entered', check, settlementStale };
-  if (check.status === 'agreed') return { state: 'agreed', check, arrows: sortEnd(facts.first!.arrows), settlementStale };
+  if (check.status === 'agreed')
+    return { state: 'agreed', check, arrows: sortEnd(facts.first!.arrows), settlementStale };
   return { state: 'mismatch', check, settlementStale };
 }

@@ -19,6 +19,27 @@ export function sortEnd(values: readonly ArrowValue[]): ArrowValue[] {
   return [...values].sort(compareArrowValues);
 }
 
+/**
+ * Sorts an end highest to lowest while each mark (a flag on an arrow, by position) stays on the
+ * arrow it was put on.
+ */
+export function sortEndWithMarks<M extends { index: number }>(
+  values: readonly ArrowValue[],
+  marks: readonly M[],
+): { values: ArrowValue[]; marks: M[] } {
+  const order = values
+    .map((value, index) => ({ value, index }))
+    .sort((a, b) => compareArrowValues(a.value, b.value));
+  const newIndex = new Map(order.map((o, i) => [o.index, i]));
+  return {
+    values: order.map((o) => o.value),
+    marks: marks
+      .filter((m) => newIndex.has(m.index))
+      .map((m) => ({ ...m, index: newIndex.get(m.index)! }))
+      .sort((a, b) => a.index - b.index),
+  };
+}
+
 export function endTotal(values: readonly ArrowValue[]): number {
   let total = 0;
   for (const v of values) total += arrowPoints(v);

@@ -39,7 +39,7 @@ export {
 } from './rounds';
 export type { RoundDefinition, RoundDistance, RoundEnd } from './rounds';
 
-export { countingArrows, endTotal, sortEnd, validateEnd } from './ends';
+export { countingArrows, endTotal, sortEnd, sortEndWithMarks, validateEnd } from './ends';
 export type { EndCheck, EndRules } from './ends';
 export { endRules } from './endRules';
 

@@ -1,44 +1,22 @@
 import { Dexie, type EntityTable } from 'dexie';
 import type {
-  ArrowFlag,
+  EndRecordDto,
   EndSettleArgs,
   EndWriteArgs,
   MutationKind,
+  SettlementDto,
   TargetPackage,
   WriterSlot,
 } from '../contract/sync';
-import type { ArrowValue } from '../core';
 
 /** A target group this phone joined, with everything needed to score it offline. */
 export type JoinedTarget = TargetPackage & { key: string; userId: number; joinedAt: string };
 
-/** The server's copy of a writer's record, as last pulled. */
-export type EndRecordRow = {
-  key: string; // session:entry:end:slot
-  endKey: string; // session:entry:end
-  sessionId: number;
-  entryId: number;
-  endIndex: number;
-  slot: WriterSlot;
-  arrows: ArrowValue[];
-  flags: { index: number; flag: ArrowFlag }[];
-  revision: number;
-  writtenBy: number;
-  writtenAt: string;
-};
+/** The server's copy of a writer's record, as last pulled, with its keys on the phone. */
+export type EndRecordRow = EndRecordDto & { key: string; endKey: string };
 
 /** The server's copy of a caller's settlement, as last pulled. */
-export type SettlementRow = {
-  endKey: string;
-  sessionId: number;
-  entryId: number;
-  endIndex: number;
-  arrows: ArrowValue[];
-  disputed: number[];
-  basis: { first: number; second: number };
-  settledBy: number;
-  settledAt: string;
-};
+export type SettlementRow = SettlementDto & { endKey: string };
 
 export type OutboxStatus = 'pending' | 'applied' | 'rejected';
 

@@ -9,7 +9,11 @@ const STYLES: Record<Variant, string> = {
 };
 
 /** Ringcall's button: at least 56 px tall, pressed state visible at once. */
-export function Button({ variant = 'primary', className = '', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
+export function Button({
+  variant = 'primary',
+  className = '',
+  ...props
+}: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
   return (
     <button
       type="button"

@@ -9,7 +9,10 @@ export function Notice({ tone, children }: { tone: 'error' | 'info' | 'success';
   }[tone];
   const mark = { error: '▲', info: 'ℹ', success: '✓' }[tone];
   return (
-    <div role={tone === 'error' ? 'alert' : 'status'} className={`surface rounded-lg border-2 p-3 font-bold ${style}`}>
+    <div
+      role={tone === 'error' ? 'alert' : 'status'}
+      className={`surface rounded-lg border-2 p-3 font-bold ${style}`}
+    >
       <span aria-hidden="true">{mark} </span>
       {children}
     </div>

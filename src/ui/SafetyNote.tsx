@@ -12,7 +12,9 @@ export function SafetyNote({ compact = false }: { compact?: boolean }) {
         <span aria-hidden="true">⚠ </span>Range safety first
       </p>
       {compact ? (
-        <p>Go forward only on the signal. No phone on the shooting line. Score before anyone touches an arrow.</p>
+        <p>
+          Go forward only on the signal. No phone on the shooting line. Score before anyone touches an arrow.
+        </p>
       ) : (
         <ul className="mt-1 list-disc space-y-1 pl-5">
           <li>Go forward to the target only when the signal says shooting has stopped.</li>

@@ -16,7 +16,7 @@ export function ThemeToggle() {
       onClick={() => setSun((s) => !s)}
       className="min-h-12 whitespace-nowrap rounded-lg border-2 border-white/70 px-3 text-base font-bold text-white"
     >
-      {sun ? "☀ Sun: on" : "☀ Sun"}
+      {sun ? '☀ Sun: on' : '☀ Sun'}
     </button>
   );
 }

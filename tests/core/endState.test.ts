@@ -33,7 +33,11 @@ describe('end states', () => {
       second: rec(['X', '8', '7'], 1),
       settlement: { arrows: ['9', 'X', '7'] as ArrowValue[], disputed: [], basis: { first: 2, second: 1 } },
     };
-    expect(endView(facts)).toMatchObject({ state: 'settled', arrows: ['X', '9', '7'], settlementStale: false });
+    expect(endView(facts)).toMatchObject({
+      state: 'settled',
+      arrows: ['X', '9', '7'],
+      settlementStale: false,
+    });
     const edited = { ...facts, second: rec(['X', '6', '7'], 2) };
     expect(endView(edited)).toMatchObject({ state: 'mismatch', settlementStale: true });
   });
@@ -41,8 +45,15 @@ describe('end states', () => {
   it('is disputed while a judge decides, and signed whatever the records say', () => {
     const first = rec(['X', '9', '7']);
     const second = rec(['X', '8', '7']);
-    const settlement = { arrows: ['X', '9', '7'] as ArrowValue[], disputed: [1], basis: { first: 1, second: 1 } };
+    const settlement = {
+      arrows: ['X', '9', '7'] as ArrowValue[],
+      disputed: [1],
+      basis: { first: 1, second: 1 },
+    };
     expect(endView({ first, second, settlement }).state).toBe('disputed');
-    expect(endView({ first, second, settlement, signedArrows: ['X', '8', '7'] })).toMatchObject({ state: 'signed', arrows: ['X', '8', '7'] });
+    expect(endView({ first, second, settlement, signedArrows: ['X', '8', '7'] })).toMatchObject({
+      state: 'signed',
+      arrows: ['X', '8', '7'],
+    });
   });
 });

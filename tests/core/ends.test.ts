@@ -4,6 +4,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
+  sortEndWithMarks,
   countingArrows,
   endRules,
   endTotal,
@@ -210,5 +211,15 @@ describe('endRules', () => {
 
   it('refuses a distance the round does not have', () => {
     expect(() => endRules(getRound('70m'), 2, 'recurve')).toThrowError('The 70 m round has no distance 3.');
+  });
+});
+
+describe('sorting an end with marks on arrows', () => {
+  it('keeps each mark on its arrow (values highest to lowest, WA Book 3)', () => {
+    expect(sortEndWithMarks(['7', 'X', '9'], [{ index: 0, flag: 'bounce-out' }])).toEqual({
+      values: ['X', '9', '7'],
+      marks: [{ index: 2, flag: 'bounce-out' }],
+    });
+    expect(sortEndWithMarks(['M'], [{ index: 3, flag: 'hanging' }])).toEqual({ values: ['M'], marks: [] });
   });
 });

@@ -34,9 +34,14 @@ test('a person creates an account, sees it on the home screen, signs out and bac
   await expect(page.getByTestId('signed-in-name')).toHaveText('Noor Pennock');
 });
 
-test('the confirmation mail reaches the catcher and its link confirms the address', async ({ page, request }) => {
+test('the confirmation mail reaches the catcher and its link confirms the address', async ({
+  page,
+  request,
+}) => {
   const email = `to.confirm.${Date.now()}@example.org`;
-  const signUp = await request.post('/api/auth/sign-up', { data: { email, password: 'loose and relaxed', displayName: 'Yuki Quarrie' } });
+  const signUp = await request.post('/api/auth/sign-up', {
+    data: { email, password: 'loose and relaxed', displayName: 'Yuki Quarrie' },
+  });
   expect(signUp.status()).toBe(201);
   await page.goto('/sign-in');
   await page.getByLabel('E-mail').fill('organizer@ringcall.example');
@@ -44,7 +49,9 @@ test('the confirmation mail reaches the catcher and its link confirms the addres
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page.getByTestId('signed-in-name')).toHaveText('Priya Castellan');
   await page.getByRole('link', { name: 'Caught mail' }).click();
-  await page.getByRole('button', { name: new RegExp(`Confirm your e-mail address for Ringcall\\s+To ${email}`) }).click();
+  await page
+    .getByRole('button', { name: new RegExp(`Confirm your e-mail address for Ringcall\\s+To ${email}`) })
+    .click();
   const link = page.getByRole('link', { name: /verify-email\?token=/ });
   await expect(link).toBeVisible();
   await page.screenshot({ path: '.tmp/screens/caught-mail.png', fullPage: true });

@@ -1,6 +1,9 @@
 import { expect, test } from '@playwright/test';
 
-test('home screen renders on a phone, and again after going offline and reloading', async ({ page, context }) => {
+test('home screen renders on a phone, and again after going offline and reloading', async ({
+  page,
+  context,
+}) => {
   await page.goto('/');
   await expect(page.getByRole('heading', { level: 1 })).toContainText('scorecard');
   await expect(page.getByTestId('connection-badge')).toHaveText(/Online/);

@@ -22,9 +22,17 @@ describe('sign-up', () => {
   it('creates the account, starts a session with an httpOnly refresh cookie, and mails a confirmation link', async () => {
     const res = await request(server.app)
       .post('/api/auth/sign-up')
-      .send({ email: ' Ines.Ashdown@Example.org ', password: 'arrows in the gold', displayName: 'Ines Ashdown' });
+      .send({
+        email: ' Ines.Ashdown@Example.org ',
+        password: 'arrows in the gold',
+        displayName: 'Ines Ashdown',
+      });
     expect(res.status).toBe(201);
-    expect(res.body.user).toMatchObject({ email: 'ines.ashdown@example.org', displayName: 'Ines Ashdown', emailVerified: false });
+    expect(res.body.user).toMatchObject({
+      email: 'ines.ashdown@example.org',
+      displayName: 'Ines Ashdown',
+      emailVerified: false,
+    });
     expect(res.body.accessToken).toMatch(/^ey/);
     const cookie = refreshCookie(res);
     expect(cookie).toMatch(/HttpOnly/i);
@@ -64,21 +72,31 @@ describe('sign-in, refresh, sign-out', () => {
   const email = 'lars.fenwick@example.org';
   const password = 'nock on the string';
   beforeAll(async () => {
-    await request(server.app).post('/api/auth/sign-up').send({ email, password, displayName: 'Lars Fenwick' });
+    await request(server.app)
+      .post('/api/auth/sign-up')
+      .send({ email, password, displayName: 'Lars Fenwick' });
   });
 
   it('signs in with the right password and answers /api/me', async () => {
-    const res = await request(server.app).post('/api/auth/sign-in').send({ email: 'LARS.FENWICK@example.org', password });
+    const res = await request(server.app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'LARS.FENWICK@example.org', password });
     expect(res.status).toBe(200);
-    const me = await request(server.app).get('/api/me').set('Authorization', `Bearer ${res.body.accessToken}`);
+    const me = await request(server.app)
+      .get('/api/me')
+      .set('Authorization', `Bearer ${res.body.accessToken}`);
     expect(me.status).toBe(200);
     expect(me.body.user.email).toBe(email);
     expect(me.body.roles).toEqual([]);
   });
 
   it('gives the same message for a wrong password and an unknown account', async () => {
-    const wrong = await request(server.app).post('/api/auth/sign-in').send({ email, password: 'not the password' });
-    const unknown = await request(server.app).post('/api/auth/sign-in').send({ email: 'nobody@example.org', password: 'whatever it is' });
+    const wrong = await request(server.app)
+      .post('/api/auth/sign-in')
+      .send({ email, password: 'not the password' });
+    const unknown = await request(server.app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'nobody@example.org', password: 'whatever it is' });
     expect(wrong.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(wrong.body.error.message).toBe(unknown.body.error.message);
@@ -141,7 +159,9 @@ describe('access tokens', () => {
       .setExpirationTime(now - 60)
       .sign(TEST_SECRET);
     const header = Buffer.from(JSON.stringify({ alg: 'none', typ: 'JWT' })).toString('base64url');
-    const payload = Buffer.from(JSON.stringify({ sub: String(person.id), iss: 'ringcall', aud: 'ringcall-api', exp: now + 600 })).toString('base64url');
+    const payload = Buffer.from(
+      JSON.stringify({ sub: String(person.id), iss: 'ringcall', aud: 'ringcall-api', exp: now + 600 }),
+    ).toString('base64url');
     const unsigned = `${header}.${payload}.`;
 
     expect((await request(server.app).get('/api/me')).status).toBe(401);
@@ -157,14 +177,26 @@ describe('access tokens', () => {
 describe('rate limits', () => {
   it('slows down guessing on one account without locking out another', async () => {
     const email = 'guessed@example.org';
-    await request(server.app).post('/api/auth/sign-up').send({ email, password: 'the real one here', displayName: 'Guessed' });
+    await request(server.app)
+      .post('/api/auth/sign-up')
+      .send({ email, password: 'the real one here', displayName: 'Guessed' });
     for (let i = 0; i < 10; i += 1) {
-      expect((await request(server.app).post('/api/auth/sign-in').send({ email, password: `wrong ${i} guess` })).status).toBe(401);
+      expect(
+        (
+          await request(server.app)
+            .post('/api/auth/sign-in')
+            .send({ email, password: `wrong ${i} guess` })
+        ).status,
+      ).toBe(401);
     }
-    const limited = await request(server.app).post('/api/auth/sign-in').send({ email, password: 'the real one here' });
+    const limited = await request(server.app)
+      .post('/api/auth/sign-in')
+      .send({ email, password: 'the real one here' });
     expect(limited.status).toBe(429);
     expect(limited.body.error.message).toMatch(/Wait 15 minutes/);
-    const other = await request(server.app).post('/api/auth/sign-in').send({ email: 'lars.fenwick@example.org', password: 'nock on the string' });
+    const other = await request(server.app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'lars.fenwick@example.org', password: 'nock on the string' });
     expect(other.status).toBe(200);
   });
 });
@@ -173,7 +205,10 @@ describe('proving an address', () => {
   it('links entry-list entries to the person once the address is confirmed', async () => {
     const organizer = await makePerson(server.db, 'Org');
     const eventId = await makeEvent(server.db, organizer);
-    const [division] = await server.db('divisions').insert({ event_id: eventId, bow_style: 'recurve', class_name: 'Women', name: 'Recurve Women' }).returning('id');
+    const [division] = await server
+      .db('divisions')
+      .insert({ event_id: eventId, bow_style: 'recurve', class_name: 'Women', name: 'Recurve Women' })
+      .returning('id');
     await server.db('entries').insert({
       event_id: eventId,
       division_id: (division as { id: number }).id,
@@ -182,15 +217,23 @@ describe('proving an address', () => {
       email: 'marta.garrow@example.org',
       created_at: new Date().toISOString(),
     });
-    const signUp = await request(server.app).post('/api/auth/sign-up').send({ email: 'marta.garrow@example.org', password: 'a clean release', displayName: 'Marta Garrow' });
-    const token = /verify-email\?token=([\w-]+)/.exec((await waitForMail(server.db, 'marta.garrow@example.org')).text_body)![1]!;
+    const signUp = await request(server.app)
+      .post('/api/auth/sign-up')
+      .send({ email: 'marta.garrow@example.org', password: 'a clean release', displayName: 'Marta Garrow' });
+    const token = /verify-email\?token=([\w-]+)/.exec(
+      (await waitForMail(server.db, 'marta.garrow@example.org')).text_body,
+    )![1]!;
 
-    const before = await request(server.app).get('/api/me').set('Authorization', `Bearer ${signUp.body.accessToken}`);
+    const before = await request(server.app)
+      .get('/api/me')
+      .set('Authorization', `Bearer ${signUp.body.accessToken}`);
     expect(before.body.roles).toEqual([]);
     const verified = await request(server.app).post('/api/auth/verify-email').send({ token });
     expect(verified.status).toBe(200);
     expect(verified.body.user.emailVerified).toBe(true);
-    const after = await request(server.app).get('/api/me').set('Authorization', `Bearer ${signUp.body.accessToken}`);
+    const after = await request(server.app)
+      .get('/api/me')
+      .set('Authorization', `Bearer ${signUp.body.accessToken}`);
     expect(after.body.roles).toEqual([{ eventId, eventName: 'Test Shoot', role: 'archer' }]);
 
     const again = await request(server.app).post('/api/auth/verify-email').send({ token });
@@ -202,9 +245,18 @@ describe('proving an address', () => {
     const eventId = await makeEvent(server.db, organizer, 'Invite Shoot');
     const judge = await makePerson(server.db, 'Judge');
     const stranger = await makePerson(server.db, 'Stranger');
-    const token = await createEmailToken(server.db, { purpose: 'invite', email: judge.email, eventId, role: 'judge', createdBy: organizer.id });
+    const token = await createEmailToken(server.db, {
+      purpose: 'invite',
+      email: judge.email,
+      eventId,
+      role: 'judge',
+      createdBy: organizer.id,
+    });
 
-    const wrong = await request(server.app).post('/api/invitations/accept').set(stranger.auth).send({ token });
+    const wrong = await request(server.app)
+      .post('/api/invitations/accept')
+      .set(stranger.auth)
+      .send({ token });
     expect(wrong.status).toBe(403);
     expect(wrong.body.error.message).toContain(judge.email);
 

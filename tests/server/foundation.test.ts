@@ -31,14 +31,20 @@ describe('health and errors', () => {
   });
 
   it('answers broken JSON with a readable 400', async () => {
-    const res = await request(server.app).post('/api/health').set('Content-Type', 'application/json').send('{"a":');
+    const res = await request(server.app)
+      .post('/api/health')
+      .set('Content-Type', 'application/json')
+      .send('{"a":');
     expect(res.status).toBe(400);
     expect(res.body.error).toEqual({ code: 'bad_json', message: 'The request body is not valid JSON.' });
   });
 
   it('answers a huge body with 413 and a message', async () => {
     const big = JSON.stringify({ blob: 'x'.repeat(400 * 1024) });
-    const res = await request(server.app).post('/api/health').set('Content-Type', 'application/json').send(big);
+    const res = await request(server.app)
+      .post('/api/health')
+      .set('Content-Type', 'application/json')
+      .send(big);
     expect(res.status).toBe(413);
     expect(res.body.error.code).toBe('too_large');
   });

@@ -19,7 +19,10 @@ export function UpdatePrompt() {
 
   if (needRefresh) {
     return (
-      <div role="alert" className="surface mx-auto mt-3 w-[calc(100%-1.5rem)] max-w-3xl rounded-xl border-2 border-ink bg-card p-4 shadow">
+      <div
+        role="alert"
+        className="surface mx-auto mt-3 w-[calc(100%-1.5rem)] max-w-3xl rounded-xl border-2 border-ink bg-card p-4 shadow"
+      >
         <p className="font-bold">A new version of Ringcall is ready.</p>
         <p className="text-base">Update between ends; your entries stay on this phone.</p>
         <div className="mt-3 flex gap-3">
@@ -44,11 +47,18 @@ export function UpdatePrompt() {
   // Shown in the page flow under the header, never over the buttons a person is about to tap.
   if (offlineReady) {
     return (
-      <div role="status" className="surface mx-auto mt-3 flex w-[calc(100%-1.5rem)] max-w-3xl items-center gap-3 rounded-xl border-2 border-moss bg-card p-4">
+      <div
+        role="status"
+        className="surface mx-auto mt-3 flex w-[calc(100%-1.5rem)] max-w-3xl items-center gap-3 rounded-xl border-2 border-moss bg-card p-4"
+      >
         <p className="flex-1">
           <span aria-hidden="true">✓ </span>Ringcall now works on this phone without signal.
         </p>
-        <button type="button" className="min-h-12 rounded-lg border-2 border-ink px-4 font-bold" onClick={() => setOfflineReady(false)}>
+        <button
+          type="button"
+          className="min-h-12 rounded-lg border-2 border-ink px-4 font-bold"
+          onClick={() => setOfflineReady(false)}
+        >
           OK
         </button>
       </div>

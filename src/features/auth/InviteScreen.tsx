@@ -14,26 +14,34 @@ export function InviteScreen() {
   const client = useQueryClient();
   const accept = useMutation({
     mutationFn: () =>
-      apiRequest<{ eventId: number; role: EventRole }>('/api/invitations/accept', { method: 'POST', body: JSON.stringify({ token }) }),
+      apiRequest<{ eventId: number; role: EventRole }>('/api/invitations/accept', {
+        method: 'POST',
+        body: JSON.stringify({ token }),
+      }),
     onSuccess: () => client.invalidateQueries({ queryKey: meQuery.queryKey }),
   });
   const back = encodeURIComponent(`/invite?token=${token}`);
 
-  if (!token) return <Notice tone="error">This invitation link is incomplete. Open it again from the mail.</Notice>;
+  if (!token)
+    return <Notice tone="error">This invitation link is incomplete. Open it again from the mail.</Notice>;
   return (
     <div className="mx-auto max-w-md space-y-5">
       <h1 className="text-3xl font-bold">Your invitation</h1>
       {accept.data ? (
         <>
           <Notice tone="success">You are now a {accept.data.role} of this event.</Notice>
-          <Link to={`/events/${accept.data.eventId}`} className="inline-flex min-h-14 items-center rounded-lg bg-moss px-5 font-bold text-white">
+          <Link
+            to={`/events/${accept.data.eventId}`}
+            className="inline-flex min-h-14 items-center rounded-lg bg-moss px-5 font-bold text-white"
+          >
             Open the event
           </Link>
         </>
       ) : me.data ? (
         <>
           <p>
-            Signed in as <strong>{me.data.user.email}</strong>. Accept to take up the role you were invited to.
+            Signed in as <strong>{me.data.user.email}</strong>. Accept to take up the role you were invited
+            to.
           </p>
           {accept.error && <Notice tone="error">{accept.error.message}</Notice>}
           <Button className="w-full" onClick={() => accept.mutate()} disabled={accept.isPending}>
@@ -44,10 +52,16 @@ export function InviteScreen() {
         <>
           <p>Sign in, or create an account with the address the invitation was sent to.</p>
           <div className="flex flex-col gap-3">
-            <Link to={`/sign-up?invite=${encodeURIComponent(token)}&next=${back}`} className="flex min-h-14 items-center justify-center rounded-lg bg-moss px-5 font-bold text-white">
+            <Link
+              to={`/sign-up?invite=${encodeURIComponent(token)}&next=${back}`}
+              className="flex min-h-14 items-center justify-center rounded-lg bg-moss px-5 font-bold text-white"
+            >
               Create an account
             </Link>
-            <Link to={`/sign-in?next=${back}`} className="flex min-h-14 items-center justify-center rounded-lg border-2 border-ink px-5 font-bold">
+            <Link
+              to={`/sign-in?next=${back}`}
+              className="flex min-h-14 items-center justify-center rounded-lg border-2 border-ink px-5 font-bold"
+            >
               I have an account
             </Link>
           </div>

@@ -9,9 +9,17 @@ export function RequireSignIn({ children }: { children: (me: Me) => ReactNode })
   const me = useMe();
   const location = useLocation();
   if (me.data) return <>{children(me.data)}</>;
+  // A stored "signed out" may be older than a sign-in a moment ago: ask the server before sending anyone away.
+  if (me.data === null && me.isFetching) return <p>Checking your sign-in…</p>;
   if (me.data === null) {
-    return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname + location.search)}`} replace />;
+    return (
+      <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname + location.search)}`} replace />
+    );
   }
   if (me.isPending) return <p>Checking your sign-in…</p>;
-  return <Notice tone="error">{me.error?.message ?? 'Your sign-in could not be checked.'} Try again when you have signal.</Notice>;
+  return (
+    <Notice tone="error">
+      {me.error?.message ?? 'Your sign-in could not be checked.'} Try again when you have signal.
+    </Notice>
+  );
 }

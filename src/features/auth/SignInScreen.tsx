@@ -22,7 +22,14 @@ export function SignInScreen() {
   return (
     <form onSubmit={submit} className="mx-auto max-w-md space-y-5" noValidate>
       <h1 className="text-3xl font-bold">Sign in</h1>
-      <Field label="E-mail" type="email" autoComplete="username" value={email} onChange={(e) => setEmail(e.target.value)} required />
+      <Field
+        label="E-mail"
+        type="email"
+        autoComplete="username"
+        value={email}
+        onChange={(e) => setEmail(e.target.value)}
+        required
+      />
       <Field
         label="Password"
         type="password"

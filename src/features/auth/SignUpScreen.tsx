@@ -25,14 +25,33 @@ export function SignUpScreen() {
     setProblems({});
     signUp.mutate(parsed.data, { onSuccess: () => navigate(next, { replace: true }) });
   };
-  const set = (key: keyof typeof form) => (e: { target: { value: string } }) => setForm((f) => ({ ...f, [key]: e.target.value }));
+  const set = (key: keyof typeof form) => (e: { target: { value: string } }) =>
+    setForm((f) => ({ ...f, [key]: e.target.value }));
 
   return (
     <form onSubmit={submit} className="mx-auto max-w-md space-y-5" noValidate>
       <h1 className="text-3xl font-bold">Create your account</h1>
-      {inviteToken && <Notice tone="info">You were invited to an event. Use the e-mail address the invitation was sent to.</Notice>}
-      <Field label="Your name" hint="As it should appear on scorecards." autoComplete="name" value={form.displayName} onChange={set('displayName')} error={problems.displayName} />
-      <Field label="E-mail" type="email" autoComplete="email" value={form.email} onChange={set('email')} error={problems.email} />
+      {inviteToken && (
+        <Notice tone="info">
+          You were invited to an event. Use the e-mail address the invitation was sent to.
+        </Notice>
+      )}
+      <Field
+        label="Your name"
+        hint="As it should appear on scorecards."
+        autoComplete="name"
+        value={form.displayName}
+        onChange={set('displayName')}
+        error={problems.displayName}
+      />
+      <Field
+        label="E-mail"
+        type="email"
+        autoComplete="email"
+        value={form.email}
+        onChange={set('email')}
+        error={problems.email}
+      />
       <Field
         label="Password"
         type="password"

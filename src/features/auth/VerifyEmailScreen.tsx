@@ -10,7 +10,8 @@ export function VerifyEmailScreen() {
   const token = params.get('token') ?? '';
   const client = useQueryClient();
   const verify = useMutation({
-    mutationFn: () => apiRequest<unknown>('/api/auth/verify-email', { method: 'POST', body: JSON.stringify({ token }) }),
+    mutationFn: () =>
+      apiRequest<unknown>('/api/auth/verify-email', { method: 'POST', body: JSON.stringify({ token }) }),
     onSuccess: () => client.invalidateQueries({ queryKey: meQuery.queryKey }),
   });
   const started = useRef(false);
@@ -28,9 +29,16 @@ export function VerifyEmailScreen() {
       <h1 className="text-3xl font-bold">Confirming your e-mail</h1>
       {!token && <Notice tone="error">This link is incomplete. Open it again from the mail.</Notice>}
       {verify.isPending && <p>Confirming…</p>}
-      {verify.isSuccess && <Notice tone="success">Thank you. Your address is confirmed, and your entries are linked to you.</Notice>}
+      {verify.isSuccess && (
+        <Notice tone="success">
+          Thank you. Your address is confirmed, and your entries are linked to you.
+        </Notice>
+      )}
       {verify.error && <Notice tone="error">{verify.error.message}</Notice>}
-      <Link to="/" className="inline-flex min-h-14 items-center rounded-lg border-2 border-ink px-5 font-bold">
+      <Link
+        to="/"
+        className="inline-flex min-h-14 items-center rounded-lg border-2 border-ink px-5 font-bold"
+      >
         Go to start
       </Link>
     </div>

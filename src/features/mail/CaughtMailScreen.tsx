@@ -29,9 +29,15 @@ function Message({ id, onBack }: { id: number; onBack: () => void }) {
       <p className="text-base">
         To {m.to} · {new Date(m.receivedAt).toLocaleString()}
       </p>
-      <pre className="surface whitespace-pre-wrap break-words rounded-lg border border-line bg-card p-4 font-sans">{linkify(m.text)}</pre>
+      <pre className="surface whitespace-pre-wrap break-words rounded-lg border border-line bg-card p-4 font-sans">
+        {linkify(m.text)}
+      </pre>
       {m.attachments.map((a) => (
-        <Button key={a.index} variant="secondary" onClick={() => void saveAttachment(m.id, a.index, a.filename)}>
+        <Button
+          key={a.index}
+          variant="secondary"
+          onClick={() => void saveAttachment(m.id, a.index, a.filename)}
+        >
           Download {a.filename}
         </Button>
       ))}
@@ -59,7 +65,12 @@ function Inbox() {
   if (list.isPending) return <p>Loading caught mail…</p>;
   if (list.error) return <Notice tone="error">{list.error.message}</Notice>;
   if (list.data.messages.length === 0) {
-    return <p>No mail yet. Invitations, confirmations and signed cards will appear here while Ringcall catches mail locally.</p>;
+    return (
+      <p>
+        No mail yet. Invitations, confirmations and signed cards will appear here while Ringcall catches mail
+        locally.
+      </p>
+    );
   }
   return (
     <ul className="space-y-2">
@@ -86,7 +97,10 @@ export function CaughtMailScreen() {
   return (
     <div className="space-y-4">
       <h1 className="text-3xl font-bold">Caught mail</h1>
-      <p className="text-base">This server keeps outgoing mail here instead of sending it. Organizers see all of it; others see their own.</p>
+      <p className="text-base">
+        This server keeps outgoing mail here instead of sending it. Organizers see all of it; others see their
+        own.
+      </p>
       <RequireSignIn>{() => <Inbox />}</RequireSignIn>
     </div>
   );

@@ -14,7 +14,7 @@ import { usePadData } from './usePadData';
 import { roundEnds } from './useEndNavigation';
 import { WriterPad } from './WriterPad';
 
-/** The first end where this phone still has work: an unfinished card (writer) or a mismatch (caller). */
+/** The first end that still needs someone on this target: a card not finished, or cards not agreed yet. */
 function firstOpenEnd(target: JoinedTarget, ends: Map<string, LocalEnd>): number {
   const count = Math.max(...target.archers.map((a) => roundEnds(a).length));
   const slot = target.task === 'writer1' ? 1 : target.task === 'writer2' ? 2 : undefined;
@@ -22,7 +22,7 @@ function firstOpenEnd(target: JoinedTarget, ends: Map<string, LocalEnd>): number
     const unfinished = target.archers.some((a) => {
       const local = ends.get(endKeyOf(target.session.id, a.entryId, endIndex));
       const perEnd = roundEnds(a)[endIndex]?.arrowsPerEnd ?? 0;
-      if (slot) return (local?.slots[slot]?.arrows.length ?? 0) < perEnd;
+      if (slot && (local?.slots[slot]?.arrows.length ?? 0) < perEnd) return true;
       const state = local ? endView(local.facts).state : 'open';
       return state !== 'agreed' && state !== 'settled' && state !== 'signed';
     });
@@ -40,12 +40,21 @@ function Pad({
   ends: Map<string, LocalEnd>;
   rejected: Parameters<typeof Rejections>[0]['rows'];
 }) {
-  const [endIndex, setEndIndex] = useState(() => firstOpenEnd(target, ends));
-  const [archerIndex, setArcherIndex] = useState(0);
   const endCount = Math.max(...target.archers.map((a) => roundEnds(a).length));
+  // A reload (or a phone woken from sleep) comes back to the end the person was on.
+  const memoryKey = `ringcall.pad-end.${target.key}`;
+  const [endIndex, setEndIndex] = useState(() => {
+    const remembered = Number(localStorage.getItem(memoryKey));
+    return localStorage.getItem(memoryKey) !== null && remembered < endCount
+      ? remembered
+      : firstOpenEnd(target, ends);
+  });
+  const [archerIndex, setArcherIndex] = useState(0);
   const slot = target.task === 'writer1' ? 1 : target.task === 'writer2' ? 2 : undefined;
   const goToEnd = (i: number) => {
-    setEndIndex(Math.min(endCount - 1, Math.max(0, i)));
+    const next = Math.min(endCount - 1, Math.max(0, i));
+    localStorage.setItem(memoryKey, String(next));
+    setEndIndex(next);
     setArcherIndex(0);
   };
 
@@ -94,6 +103,7 @@ function Pad({
               const local = ends.get(endKeyOf(target.session.id, a.entryId, endIndex));
               const state = local ? endView(local.facts).state : 'open';
               const count = local?.slots[slot]?.arrows.length ?? 0;
+              const perEnd = roundEnds(a)[endIndex]?.arrowsPerEnd ?? 0;
               return (
                 <button
                   key={a.entryId}
@@ -106,7 +116,7 @@ function Pad({
                   <span className="block text-xl font-bold">{a.position}</span>
                   <span className="block truncate text-base">{a.name.split(' ')[0]}</span>
                   <span className="block text-base" aria-label={END_STATE_LABELS[state].word}>
-                    {END_STATE_LABELS[state].mark} {count}
+                    {END_STATE_LABELS[state].mark} {count}/{perEnd}
                   </span>
                 </button>
               );

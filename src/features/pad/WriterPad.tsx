@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { cardTotals, endRules, type ArrowValue } from '../../core';
-import { ARROW_FLAGS, type WriterSlot } from '../../contract/sync';
+import { ARROW_FLAGS, type WriterSlot } from '../../contract/fieldTerms';
 import { endKeyOf, localDb, type JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
 import { endView } from '../../core';

@@ -1,4 +1,4 @@
-import { compareArrowValues, type ArrowValue } from '../../core';
+import { sortEndWithMarks, type ArrowValue } from '../../core';
 import type { ArrowFlag } from '../../contract/sync';
 
 export type EditableEnd = { arrows: ArrowValue[]; flags: { index: number; flag: ArrowFlag }[] };
@@ -11,11 +11,11 @@ function explode(end: EditableEnd): Arrow[] {
 
 /** Keeps values highest to lowest, and each flag on the arrow it was put on. */
 function implode(arrows: Arrow[]): EditableEnd {
-  const sorted = [...arrows].sort((a, b) => compareArrowValues(a.value, b.value));
-  return {
-    arrows: sorted.map((a) => a.value),
-    flags: sorted.flatMap((a, index) => (a.flag ? [{ index, flag: a.flag }] : [])),
-  };
+  const sorted = sortEndWithMarks(
+    arrows.map((a) => a.value),
+    arrows.flatMap((a, index) => (a.flag ? [{ index, flag: a.flag }] : [])),
+  );
+  return { arrows: sorted.values, flags: sorted.marks };
 }
 
 export const addArrow = (end: EditableEnd, value: ArrowValue): EditableEnd =>

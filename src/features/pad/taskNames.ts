@@ -1,11 +1,6 @@
-import type { Task } from '../../contract/sync';
+import type { Task } from '../../contract/fieldTerms';
 
-export const TASK_LABELS: Record<Task, string> = {
-  writer1: 'Writer 1',
-  writer2: 'Writer 2',
-  caller: 'Caller',
-  follower: 'Following',
-};
+export { TASK_LABELS } from '../../contract/fieldTerms';
 
 export const TASK_HINTS: Record<Task, string> = {
   writer1: 'You keep the first card: enter each value as it is called.',

@@ -6,7 +6,8 @@ type CaughtRow = { id: number; mail_to: string; subject: string; text_body: stri
 export async function waitForMail(db: Db, to: string, timeoutMs = 5_000): Promise<CaughtRow> {
   const until = Date.now() + timeoutMs;
   for (;;) {
-    const row = (await db('caught_mail').where({ mail_to: to }).orderBy('id', 'desc').first()) as CaughtRow | undefined;
+    const row = (await db('caught_mail').where({ mail_to: to }).orderBy('id', 'desc').first()) as
+      CaughtRow | undefined;
     if (row) return row;
     if (Date.now() > until) throw new Error(`No mail to ${to} arrived within ${timeoutMs} ms.`);
     await new Promise((r) => setTimeout(r, 50));

@@ -17,7 +17,13 @@ export async function makePerson(db: Db, name = 'Test Person'): Promise<TestPers
   counter += 1;
   const email = `person${counter}.${Date.now()}@ringcall.example`;
   const [row] = await db('users')
-    .insert({ email, display_name: name, password_hash: null, email_verified_at: nowIso(), created_at: nowIso() })
+    .insert({
+      email,
+      display_name: name,
+      password_hash: null,
+      email_verified_at: nowIso(),
+      created_at: nowIso(),
+    })
     .returning('id');
   const id = (row as { id: number }).id;
   const { token } = await signAccessToken(TEST_SECRET, id);
@@ -28,7 +34,16 @@ export async function makePerson(db: Db, name = 'Test Person'): Promise<TestPers
 export async function makeEvent(db: Db, organizer: TestPerson, name = 'Test Shoot'): Promise<number> {
   const at = nowIso();
   const [row] = await db('events')
-    .insert({ name, venue: 'Test field', starts_on: '2026-12-12', ends_on: '2026-12-12', time_zone: 'UTC', created_by: organizer.id, created_at: at, updated_at: at })
+    .insert({
+      name,
+      venue: 'Test field',
+      starts_on: '2026-12-12',
+      ends_on: '2026-12-12',
+      time_zone: 'UTC',
+      created_by: organizer.id,
+      created_at: at,
+      updated_at: at,
+    })
     .returning('id');
   const eventId = (row as { id: number }).id;
   await grantRole(db, eventId, organizer.id, 'organizer');
@@ -40,7 +55,12 @@ export async function giveRole(db: Db, eventId: number, person: TestPerson, role
 }
 
 /** Signs up through the API (real password hashing at the test cost) and returns the session body. */
-export async function signUpViaApi(app: Express, email: string, password = 'correct horse battery', displayName = 'Api Person') {
+export async function signUpViaApi(
+  app: Express,
+  email: string,
+  password = 'correct horse battery',
+  displayName = 'Api Person',
+) {
   const res = await request(app).post('/api/auth/sign-up').send({ email, password, displayName });
   return res;
 }

@@ -14,7 +14,9 @@ export type TestServer = { app: Express; db: Db; dir: string; file: string; clos
 export const TEST_BCRYPT_COST = 4;
 
 /** A fresh, migrated SQLite file in its own temp folder, a mail catcher, and the app built on them. */
-export async function startTestServer(options: { clientDir?: string; bcryptCost?: number } = {}): Promise<TestServer> {
+export async function startTestServer(
+  options: { clientDir?: string; bcryptCost?: number } = {},
+): Promise<TestServer> {
   const dir = mkdtempSync(join(tmpdir(), 'ringcall-test-'));
   const file = join(dir, 'test.sqlite');
   const db = openDb(file);

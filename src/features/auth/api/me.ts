@@ -16,6 +16,11 @@ export async function fetchMe(): Promise<Me | null> {
 }
 
 // Always re-checked when a screen mounts: a restored copy may predate a sign-out in another tab.
-export const meQuery = queryOptions({ queryKey: ['me'], queryFn: fetchMe, staleTime: 60_000, refetchOnMount: 'always' });
+export const meQuery = queryOptions({
+  queryKey: ['me'],
+  queryFn: fetchMe,
+  staleTime: 60_000,
+  refetchOnMount: 'always',
+});
 
 export const useMe = () => useQuery(meQuery);

@@ -11,9 +11,12 @@ async function startSession(path: string, body: unknown): Promise<AuthSession> {
     body: JSON.stringify(body),
     credentials: 'same-origin',
   }).catch(() => undefined);
-  if (!response) throw new Error('No connection to the Ringcall server. Signing in needs signal once; scoring does not.');
-  const json = (await response.json().catch(() => undefined)) as AuthSession | { error?: { message?: string } } | undefined;
-  if (!response.ok) throw new Error((json as { error?: { message?: string } })?.error?.message ?? 'Signing in failed.');
+  if (!response)
+    throw new Error('No connection to the Ringcall server. Signing in needs signal once; scoring does not.');
+  const json = (await response.json().catch(() => undefined)) as
+    AuthSession | { error?: { message?: string } } | undefined;
+  if (!response.ok)
+    throw new Error((json as { error?: { message?: string } })?.error?.message ?? 'Signing in failed.');
   return json as AuthSession;
 }
 

@@ -13,7 +13,11 @@ export async function joinTarget(input: JoinRequest, userId: number): Promise<Jo
     userId,
     joinedAt: new Date().toISOString(),
   };
-  await localDb().targets.put(row);
+  await localDb().transaction('rw', localDb().targets, localDb().meta, async () => {
+    await localDb().targets.put(row);
+    // The server's cursor only covers what this person could see before; a new target needs a fresh pull.
+    await localDb().meta.put({ key: `pullCursor:${userId}`, value: 0 });
+  });
   await askPersistentStorage();
   return row;
 }

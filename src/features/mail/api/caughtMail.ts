@@ -9,7 +9,11 @@ export const caughtMailListQuery = queryOptions({
 });
 
 export const caughtMailQuery = (id: number) =>
-  queryOptions({ queryKey: ['caught-mail', id], queryFn: () => apiRequest<CaughtMailMessage>(`/api/caught-mail/${id}`) });
+  queryOptions({
+    queryKey: ['caught-mail', id],
+    queryFn: () => apiRequest<CaughtMailMessage>(`/api/caught-mail/${id}`),
+  });
 
 export const useCaughtMailList = () => useQuery(caughtMailListQuery);
-export const useCaughtMail = (id: number | undefined) => useQuery({ ...caughtMailQuery(id ?? 0), enabled: id !== undefined });
+export const useCaughtMail = (id: number | undefined) =>
+  useQuery({ ...caughtMailQuery(id ?? 0), enabled: id !== undefined });

@@ -1,0 +1,33 @@
+/**
+ * The server of bench/sync-server.bench.ts, in a process of its own so the simulated phones and
+ * the server never share an event loop. Opens the given database file, starts the real app on a
+ * loopback port and prints `{"port": N}` on its first line of output.
+ * Usage: node --import tsx bench/support/syncServerChild.ts <database file>
+ */
+import { dirname } from 'node:path';
+import type { AddressInfo } from 'node:net';
+import { createApp } from '../../server/app';
+import { migrate, openDb } from '../../server/db';
+import { BENCH_SECRET } from './syncField';
+
+const file = process.argv[2];
+if (!file) throw new Error('Give the database file as the first argument.');
+const db = openDb(file);
+await migrate(db);
+const app = createApp({
+  db,
+  version: 'bench',
+  secret: BENCH_SECRET,
+  mailer: { send: async () => undefined },
+  mailCaught: false,
+  dataDir: dirname(file),
+  logRequests: false,
+});
+const server = app.listen(0, '127.0.0.1', () => {
+  process.stdout.write(`${JSON.stringify({ port: (server.address() as AddressInfo).port })}\n`);
+});
+process.on('SIGTERM', () => {
+  server.close();
+  server.closeAllConnections();
+  void db.destroy().then(() => process.exit(0));
+});

@@ -1,0 +1,31 @@
+import { Router } from 'express';
+import { pullQuerySchema, pushRequestSchema } from '../../src/contract/sync';
+import type { AppContext } from '../context';
+import { badRequest } from '../http/httpError';
+import { describeIssues, validateBody } from '../http/validate';
+import { pullChanges } from '../services/sync/pullChanges';
+import { pushBatch } from '../services/sync/pushBatch';
+
+/** The field path: phones push their mutations and pull what changed (see DEVELOPERS.md, "The field loop"). */
+export function syncRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+
+  router.post('/sync/push', ctx.requireUser, validateBody(pushRequestSchema), async (req, res) => {
+    res.json(await pushBatch(db, req.user!.id, req.body));
+  });
+
+  router.get('/sync/pull', ctx.requireUser, async (req, res) => {
+    const query = pullQuerySchema.safeParse(req.query);
+    if (!query.success) {
+      const fields = describeIssues(query.error.issues);
+      throw badRequest(
+        `The request was not accepted. ${fields.map((f) => `${f.path}: ${f.message}`).join('; ')}`,
+        fields,
+      );
+    }
+    res.json(await pullChanges(db, req.user!.id, query.data));
+  });
+
+  return router;
+}

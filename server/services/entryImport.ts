@@ -1,0 +1,179 @@
+import Papa from 'papaparse';
+import { emailSchema } from '../../src/contract/auth';
+import {
+  ENTRY_CSV_COLUMNS,
+  ENTRY_CSV_MAX_ROWS,
+  type ImportPreview,
+  type ImportResult,
+  type ImportRow,
+} from '../../src/contract/events';
+import type { Db } from '../db';
+import { HttpError, badRequest } from '../http/httpError';
+import { nowIso } from '../time';
+import { audit } from './audit';
+import { archerKey, linkEntryToAccount } from './entries';
+
+type Column = (typeof ENTRY_CSV_COLUMNS)[number];
+
+/** Header spellings people use for each column (compared lower-case, without spaces). */
+const HEADER_NAMES: Record<Column, string[]> = {
+  name: ['name', 'archer', 'archername', 'fullname'],
+  club: ['club'],
+  email: ['email', 'e-mail', 'emailaddress', 'e-mailaddress', 'mail'],
+  division: ['division', 'category'],
+};
+
+/** UTF-8 when it is UTF-8; otherwise the Windows encoding spreadsheets often save CSV in. */
+function decode(buffer: Buffer): string {
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(buffer);
+  } catch {
+    text = new TextDecoder('windows-1252').decode(buffer);
+  }
+  return text.replace(/^\uFEFF/, '');
+}
+
+type RawRow = { row: number; values: Record<Column, string> };
+
+/** Reads the file into rows keyed by column; a missing required column is refused at once. */
+export function readEntryCsv(buffer: Buffer): RawRow[] {
+  const parsed = Papa.parse<string[]>(decode(buffer), {
+    header: false,
+    skipEmptyLines: false,
+    delimitersToGuess: [',', ';', '\t'],
+  });
+  const records = parsed.data;
+  const headerIndex = records.findIndex((r) => r.some((cell) => cell.trim() !== ''));
+  if (headerIndex < 0)
+    throw badRequest(
+      'The file is empty. Download the template, fill in one archer per row, and upload it again.',
+    );
+  const header = records[headerIndex]!.map((h) => h.trim().toLowerCase().replace(/\s+/g, ''));
+  const columnIndex = {} as Record<Column, number>;
+  for (const column of ENTRY_CSV_COLUMNS)
+    columnIndex[column] = header.findIndex((h) => HEADER_NAMES[column].includes(h));
+  const missing = (['name', 'division'] as const).filter((c) => columnIndex[c] < 0);
+  if (missing.length) {
+    throw badRequest(
+      `The file has no ${missing.map((m) => `"${m}"`).join(' or ')} column. The first row must name the columns: ${ENTRY_CSV_COLUMNS.join(', ')}. Download the template to see how.`,
+    );
+  }
+  const rows: RawRow[] = [];
+  records.forEach((record, index) => {
+    if (index <= headerIndex || record.every((cell) => cell.trim() === '')) return;
+    const cell = (c: Column) => (columnIndex[c] >= 0 ? (record[columnIndex[c]] ?? '').trim() : '');
+    rows.push({
+      row: index + 1,
+      values: {
+        name: cell('name').replace(/\s+/g, ' '),
+        club: cell('club'),
+        email: cell('email').toLowerCase(),
+        division: cell('division'),
+      },
+    });
+  });
+  if (rows.length === 0)
+    throw badRequest('The file has column names but no archers. Add one archer per row below them.');
+  if (rows.length > ENTRY_CSV_MAX_ROWS)
+    throw badRequest(`The file has ${rows.length} archers; upload at most ${ENTRY_CSV_MAX_ROWS} at a time.`);
+  return rows;
+}
+
+const normalize = (s: string) => s.trim().replace(/\s+/g, ' ').toLowerCase();
+
+/** Every row with every problem found in it; nothing is stored. */
+export async function checkEntryRows(
+  db: Db,
+  eventId: number,
+  rows: RawRow[],
+): Promise<{ rows: ImportRow[]; divisionIds: (number | undefined)[] }> {
+  const divisions = await db('divisions').where({ event_id: eventId }).orderBy('id').select('id', 'name');
+  const existing = await db('entries')
+    .join('divisions', 'divisions.id', 'entries.division_id')
+    .where('entries.event_id', eventId)
+    .select('entries.name', 'entries.division_id', 'divisions.name as division_name');
+  const entered = new Map(existing.map((e) => [archerKey(e.name, e.division_id), e.division_name as string]));
+  const seen = new Map<string, number>();
+  const divisionNames = divisions.map((d) => d.name).join(', ');
+
+  const divisionIds: (number | undefined)[] = [];
+  const checked = rows.map(({ row, values }): ImportRow => {
+    const problems: string[] = [];
+    if (!values.name) problems.push('The name is missing.');
+    else if (values.name.length > 120) problems.push('The name is longer than 120 characters.');
+    if (values.club.length > 120) problems.push('The club is longer than 120 characters.');
+    if (values.email && !emailSchema.safeParse(values.email).success)
+      problems.push(`"${values.email}" is not an e-mail address.`);
+    const division = divisions.find((d) => normalize(d.name) === normalize(values.division));
+    if (!values.division)
+      problems.push(
+        `The division is missing. Use one of: ${divisionNames || 'none yet — add divisions first'}.`,
+      );
+    else if (!division)
+      problems.push(
+        `There is no division "${values.division}" in this event. Use one of: ${divisionNames || 'none yet — add divisions first'}.`,
+      );
+    if (division && values.name) {
+      const key = archerKey(values.name, division.id);
+      const earlier = seen.get(key);
+      if (earlier !== undefined) problems.push(`The same archer is on row ${earlier} already.`);
+      else seen.set(key, row);
+      if (entered.has(key)) problems.push(`${values.name} is already entered in ${entered.get(key)}.`);
+    }
+    divisionIds.push(division?.id);
+    return { row, ...values, problems };
+  });
+  return { rows: checked, divisionIds };
+}
+
+export async function previewEntryImport(db: Db, eventId: number, buffer: Buffer): Promise<ImportPreview> {
+  const { rows } = await checkEntryRows(db, eventId, readEntryCsv(buffer));
+  const problemCount = rows.filter((r) => r.problems.length > 0).length;
+  return { rows, readyCount: rows.length - problemCount, problemCount };
+}
+
+/** All or nothing: one transaction, and any row with a problem refuses the whole file. */
+export async function importEntries(
+  db: Db,
+  userId: number,
+  eventId: number,
+  buffer: Buffer,
+): Promise<ImportResult> {
+  const raw = readEntryCsv(buffer);
+  return db.transaction(async (trx) => {
+    const { rows, divisionIds } = await checkEntryRows(trx, eventId, raw);
+    const bad = rows.filter((r) => r.problems.length > 0);
+    if (bad.length) {
+      throw new HttpError(
+        422,
+        'import_has_problems',
+        `Nothing was imported: ${bad.length} ${bad.length === 1 ? 'row has a problem' : 'rows have problems'}. Fix ${bad.length === 1 ? 'it' : 'them'} in the file and upload it again.`,
+        bad.flatMap((r) => r.problems.map((p) => ({ path: `row ${r.row}`, message: p }))),
+      );
+    }
+    const at = nowIso();
+    for (const [i, r] of rows.entries()) {
+      const [row] = await trx('entries')
+        .insert({
+          event_id: eventId,
+          division_id: divisionIds[i]!,
+          name: r.name,
+          club: r.club,
+          email: r.email || null,
+          created_at: at,
+        })
+        .returning('id');
+      await linkEntryToAccount(trx, {
+        id: (row as { id: number }).id,
+        event_id: eventId,
+        email: r.email || null,
+      });
+    }
+    await audit(trx, { userId, eventId, action: 'entries.imported', details: { count: rows.length } });
+    return { imported: rows.length };
+  });
+}
+
+/** The template: the column names, then one archer per row. */
+export const entryTemplateCsv = (): string => `${ENTRY_CSV_COLUMNS.join(',')}\r\n`;

@@ -1,0 +1,10 @@
+import type { AssignResult } from '../../../contract/events';
+import { jsonBody, send } from './eventKeys';
+import { sessionPath, useTargetMutation } from './sessionTargets';
+
+/** Replaces the session's layout with the automatic one. */
+export const assignTargets = (eventId: number, sessionId: number) =>
+  send<AssignResult>(sessionPath(eventId, sessionId, '/assign'), jsonBody('POST'));
+
+export const useAssignTargets = (eventId: number, sessionId: number) =>
+  useTargetMutation(eventId, sessionId, () => assignTargets(eventId, sessionId));

@@ -1,0 +1,10 @@
+import type { TargetList } from '../../../contract/events';
+import { jsonBody, send } from './eventKeys';
+import { sessionPath, useTargetMutation } from './sessionTargets';
+
+/** A code for every target that has archers but no code. */
+export const createJoinCodes = (eventId: number, sessionId: number) =>
+  send<TargetList>(sessionPath(eventId, sessionId, '/join-codes'), jsonBody('POST'));
+
+export const useCreateJoinCodes = (eventId: number, sessionId: number) =>
+  useTargetMutation(eventId, sessionId, () => createJoinCodes(eventId, sessionId));

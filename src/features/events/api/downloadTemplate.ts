@@ -1,0 +1,9 @@
+import { useMutation } from '@tanstack/react-query';
+import { eventPath } from './eventKeys';
+import { downloadFile } from './downloadFile';
+
+export const downloadTemplate = (eventId: number) =>
+  downloadFile(eventPath(eventId, '/entries/template.csv'), 'ringcall-entries.csv');
+
+export const useDownloadTemplate = (eventId: number) =>
+  useMutation({ mutationFn: () => downloadTemplate(eventId), networkMode: 'always' });

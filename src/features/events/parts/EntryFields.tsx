@@ -1,0 +1,60 @@
+import type { Division } from '../../../contract/events';
+import { Field } from '../../../ui/Field';
+import { SelectField } from '../components/SelectField';
+
+export type EntryDraft = { name: string; club: string; email: string; divisionId: string };
+
+/** Name, club, e-mail and division of one archer's entry. */
+export function EntryFields({
+  draft,
+  onChange,
+  divisions,
+  problems,
+}: {
+  draft: EntryDraft;
+  onChange: (d: EntryDraft) => void;
+  divisions: Division[];
+  problems: Record<string, string>;
+}) {
+  const set = (key: keyof EntryDraft) => (e: { target: { value: string } }) =>
+    onChange({ ...draft, [key]: e.target.value });
+  return (
+    <div className="grid gap-4 sm:grid-cols-2">
+      <Field
+        label="Archer's name"
+        hint="As it should appear on the scorecard."
+        value={draft.name}
+        onChange={set('name')}
+        error={problems.name}
+      />
+      <SelectField
+        label="Division"
+        value={draft.divisionId}
+        onChange={set('divisionId')}
+        error={problems.divisionId}
+      >
+        <option value="">Choose a division</option>
+        {divisions.map((d) => (
+          <option key={d.id} value={d.id}>
+            {d.name}
+          </option>
+        ))}
+      </SelectField>
+      <Field label="Club" hint="Optional." value={draft.club} onChange={set('club')} error={problems.club} />
+      <Field
+        label="E-mail"
+        hint="Optional: links the entry to the archer's account."
+        type="email"
+        value={draft.email}
+        onChange={set('email')}
+        error={problems.email}
+      />
+    </div>
+  );
+}
+
+/** The draft as the API wants it (the division as a number). */
+export const entryPayload = (d: EntryDraft) => ({
+  ...d,
+  divisionId: d.divisionId ? Number(d.divisionId) : undefined,
+});

@@ -1,0 +1,118 @@
+import { expect, test, type Browser, type Page } from '@playwright/test';
+import { devices } from '@playwright/test';
+import { demoArchers, DEMO_PASSWORD } from '../../server/demo/demoPeople';
+import { readDemoDb } from './support/demoDb';
+
+const phone = devices['Pixel 7'];
+
+async function signedInPhone(browser: Browser, email: string): Promise<Page> {
+  const context = await browser.newContext({ ...phone });
+  const page = await context.newPage();
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByTestId('signed-in-name')).toBeVisible();
+  // The shell must be cached before the phone can reload offline.
+  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
+  return page;
+}
+
+async function join(page: Page, code: string, task: RegExp) {
+  await page.goto(`/join?code=${code}`);
+  await page.getByRole('radio', { name: task }).check();
+  await page.getByRole('button', { name: 'Join target' }).click();
+  await expect(page.getByRole('heading', { name: /Target 1/ })).toBeVisible();
+}
+
+/** Taps one archer's end on the pad; values are called highest first. */
+async function enterEnd(page: Page, position: string, values: string[]) {
+  await page.getByRole('tab', { name: new RegExp(`^${position}`) }).click();
+  for (const v of values)
+    await page.getByRole('button', { name: v === 'M' ? 'Miss (M)' : `Arrow ${v}`, exact: true }).click();
+}
+
+const CALLED: Record<string, string[]> = {
+  A: ['X', '10', '9', '9', '8', '7'],
+  B: ['10', '9', '9', '8', '7', '6'],
+  C: ['9', '8', '8', '7', '5', 'M'],
+  D: ['X', 'X', '10', '9', '9', '9'],
+};
+
+test('two writers score an end offline, the cross-check finds the one difference, the caller settles it', async ({
+  browser,
+}) => {
+  test.setTimeout(180_000);
+  const { code, session_id: sessionId } = readDemoDb<{ code: string; session_id: number }>(
+    'select code, session_id from join_codes where target_number = 1 and revoked_at is null',
+  );
+  const archers = demoArchers();
+  const writer1 = await signedInPhone(browser, archers[0]!.email);
+  const writer2 = await signedInPhone(browser, archers[1]!.email);
+  const caller = await signedInPhone(browser, archers[2]!.email);
+  await join(writer1, code, /Writer 1/);
+  await join(writer2, code, /Writer 2/);
+  await join(caller, code, /Caller/);
+  await writer1.screenshot({ path: '.tmp/screens/pad-empty.png', fullPage: true });
+
+  for (const page of [writer1, writer2]) await page.context().setOffline(true);
+  for (const position of ['A', 'B', 'C', 'D']) {
+    await enterEnd(writer1, position, CALLED[position]!);
+    // Writer 2 mishears B's third arrow: 8 instead of 9.
+    await enterEnd(writer2, position, position === 'B' ? ['10', '9', '8', '8', '7', '6'] : CALLED[position]!);
+  }
+  await expect(writer1.getByTestId('waiting-count')).toHaveText('· 24 waiting');
+  await writer1.screenshot({ path: '.tmp/screens/pad-offline.png', fullPage: true });
+
+  // Reload with no signal: the entries are still there, on the end the writer was on.
+  for (const page of [writer1, writer2]) {
+    await page.reload();
+    await expect(page.getByTestId('end-number')).toContainText('End 1');
+    await page.getByRole('tab', { name: /^A/ }).click();
+    await expect(page.getByTestId('end-total')).toHaveText('53');
+  }
+  await writer1.getByRole('tab', { name: /^B/ }).click();
+  await expect(writer1.getByTestId('end-total')).toHaveText('49');
+  await writer2.getByRole('tab', { name: /^B/ }).click();
+  await expect(writer2.getByTestId('end-total')).toHaveText('48');
+
+  // Signal returns: the phones send on the browser's "online" event, without a tap.
+  for (const page of [writer1, writer2]) await page.context().setOffline(false);
+  for (const page of [writer1, writer2]) {
+    await expect(page.getByTestId('sync-line')).toContainText('reached the event server', {
+      timeout: 20_000,
+    });
+  }
+  // Pull the other writer's card: the mismatch shows on both phones at arrow 3 of B.
+  for (const page of [writer1, writer2]) {
+    await page.reload();
+    await page.getByRole('tab', { name: /^B/ }).click();
+    await expect(page.getByTestId('cross-check')).toContainText('differ at arrow 3', { timeout: 20_000 });
+  }
+  await writer2.screenshot({ path: '.tmp/screens/pad-mismatch.png', fullPage: true });
+
+  await caller.reload();
+  const mismatch = caller.getByTestId('mismatch-B');
+  await expect(mismatch).toBeVisible({ timeout: 20_000 });
+  await caller.screenshot({ path: '.tmp/screens/caller-mismatch.png', fullPage: true });
+  await mismatch.getByRole('button', { name: '9', exact: true }).click();
+  await mismatch.getByRole('button', { name: 'Settle this end' }).click();
+  await expect(caller.getByTestId('state-B')).toContainText('Settled', { timeout: 20_000 });
+
+  for (const page of [writer1, writer2]) {
+    await page.reload();
+    await page.getByRole('tab', { name: /^B/ }).click();
+    await expect(page.getByTestId('cross-check')).toContainText('Settled by the caller: 10 9 9 8 7 6', {
+      timeout: 20_000,
+    });
+  }
+  await writer2.screenshot({ path: '.tmp/screens/pad-settled.png', fullPage: true });
+
+  // The server's card says the same.
+  const settled = readDemoDb<{ arrows_json: string }>(
+    `select s.arrows_json from end_settlements s join target_assignments t on t.entry_id = s.entry_id and t.session_id = s.session_id
+     where s.session_id = ? and t.target_number = 1 and t.position = 'B' and s.end_index = 0`,
+    sessionId,
+  );
+  expect(JSON.parse(settled.arrows_json)).toEqual(['10', '9', '9', '8', '7', '6']);
+});

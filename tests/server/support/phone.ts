@@ -1,0 +1,90 @@
+import { randomUUID } from 'node:crypto';
+import request from 'supertest';
+import type { Express } from 'express';
+import type {
+  EndSettleArgs,
+  EndWriteArgs,
+  Mutation,
+  PullResponse,
+  PushResponse,
+  Task,
+  TargetPackage,
+} from '../../../src/contract/sync';
+import type { Db } from '../../../server/db';
+import type { TestPerson } from './people';
+
+type WriteInput = Omit<EndWriteArgs, 'flags'> & { flags?: EndWriteArgs['flags'] };
+type SettleInput = Omit<EndSettleArgs, 'disputed'> & { disputed?: number[] };
+
+/**
+ * A simulated phone: one person, one client id, its own sequence of mutations. Making a
+ * mutation only numbers it (like writing it to the outbox); push sends whatever it is given.
+ */
+export class Phone {
+  readonly clientId: string;
+  private seq = 0;
+
+  constructor(
+    readonly app: Express,
+    readonly person: TestPerson,
+    clientId?: string,
+  ) {
+    this.clientId = clientId ?? `phone-${randomUUID()}`;
+  }
+
+  write(args: WriteInput): Mutation {
+    this.seq += 1;
+    return {
+      id: randomUUID(),
+      seq: this.seq,
+      at: new Date().toISOString(),
+      kind: 'end.write',
+      args: { ...args, flags: args.flags ?? [] },
+    };
+  }
+
+  settle(args: SettleInput): Mutation {
+    this.seq += 1;
+    return {
+      id: randomUUID(),
+      seq: this.seq,
+      at: new Date().toISOString(),
+      kind: 'end.settle',
+      args: { ...args, disputed: args.disputed ?? [] },
+    };
+  }
+
+  async push(mutations: Mutation[]): Promise<PushResponse> {
+    const res = await request(this.app)
+      .post('/api/sync/push')
+      .set(this.person.auth)
+      .send({ clientId: this.clientId, mutations });
+    if (res.status !== 200) throw new Error(`push: ${res.status} ${JSON.stringify(res.body)}`);
+    return res.body as PushResponse;
+  }
+
+  async pull(cursor = 0, limit?: number): Promise<PullResponse> {
+    const res = await request(this.app)
+      .get('/api/sync/pull')
+      .query(limit === undefined ? { cursor } : { cursor, limit })
+      .set(this.person.auth);
+    if (res.status !== 200) throw new Error(`pull: ${res.status} ${JSON.stringify(res.body)}`);
+    return res.body as PullResponse;
+  }
+
+  async join(code: string, task: Task): Promise<TargetPackage> {
+    const res = await request(this.app).post('/api/join').set(this.person.auth).send({ code, task });
+    if (res.status !== 200) throw new Error(`join: ${res.status} ${JSON.stringify(res.body)}`);
+    return res.body as TargetPackage;
+  }
+}
+
+/** Row counts of every table a push could touch, to show a refused request stored nothing. */
+export async function fieldTableCounts(db: Db): Promise<Record<string, number>> {
+  const counts: Record<string, number> = {};
+  for (const table of ['mutations', 'sync_clients', 'end_entries', 'end_settlements', 'changes']) {
+    const row = await db(table).count({ n: '*' }).first();
+    counts[table] = Number(row?.n ?? 0);
+  }
+  return counts;
+}
