@@ -9,6 +9,7 @@ import type { AddressInfo } from 'node:net';
 import { createApp } from '../server/app';
 import { migrate, openDb } from '../server/db';
 import { seedDemoIfEmpty } from '../server/demo/seedDemo';
+import { loadSigningKeys } from '../server/signing/serverKeys';
 import { percentile } from './support/stats';
 
 const dir = mkdtempSync(join(tmpdir(), 'ringcall-bench-'));
@@ -17,8 +18,9 @@ const db = openDb(join(dir, 'bench.sqlite'));
 let t = performance.now();
 await migrate(db);
 console.log(`migrate fresh database: ${(performance.now() - t).toFixed(1)} ms`);
+const signingKeys = await loadSigningKeys(dir);
 t = performance.now();
-await seedDemoIfEmpty(db);
+await seedDemoIfEmpty(db, signingKeys);
 console.log(`seed demo event:        ${(performance.now() - t).toFixed(1)} ms`);
 
 const app = createApp({
@@ -28,6 +30,7 @@ const app = createApp({
   mailer: { send: async () => undefined },
   mailCaught: false,
   dataDir: dir,
+  signingKeys,
   logRequests: false,
 });
 const server = app.listen(0, '127.0.0.1');

@@ -4,6 +4,7 @@ import morgan from 'morgan';
 import type { Db } from './db';
 import type { Mailer } from './mail/mailer';
 import type { AppContext } from './context';
+import type { SigningKeys } from './signing/serverKeys';
 import { securityHeaders } from './http/security';
 import { clientFiles } from './http/clientFiles';
 import { routeNotFound, errorHandler } from './http/errorHandler';
@@ -21,6 +22,9 @@ import { targetRoutes } from './routes/targets';
 import { printoutRoutes } from './routes/printouts';
 import { syncRoutes } from './routes/sync';
 import { joinRoutes } from './routes/join';
+import { wellKnownRoutes } from './routes/wellKnown';
+import { judgingRoutes } from './routes/judging';
+import { myCardsRoutes } from './routes/myCards';
 
 export type AppDeps = {
   db: Db;
@@ -29,6 +33,7 @@ export type AppDeps = {
   mailer: Mailer;
   mailCaught: boolean;
   dataDir: string;
+  signingKeys: SigningKeys;
   publicUrl?: string;
   /** Defaults to the production cost; tests lower it to stay fast. */
   bcryptCost?: number;
@@ -45,6 +50,7 @@ export function createApp(deps: AppDeps): Express {
     mailer: deps.mailer,
     mailCaught: deps.mailCaught,
     dataDir: deps.dataDir,
+    signingKeys: deps.signingKeys,
     publicUrl: deps.publicUrl,
     bcryptCost: deps.bcryptCost ?? BCRYPT_COST,
     requireUser: requireUser(deps.db, deps.secret),
@@ -61,6 +67,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(cookieParser());
   api.use(healthRoutes(deps.version));
   api.use(authRoutes(ctx));
+  api.use(myCardsRoutes(ctx));
   api.use(caughtMailRoutes(ctx));
   api.use(eventRoutes(ctx));
   api.use(divisionRoutes(ctx));
@@ -71,8 +78,11 @@ export function createApp(deps: AppDeps): Express {
   api.use(printoutRoutes(ctx));
   api.use(syncRoutes(ctx));
   api.use(joinRoutes(ctx));
+  api.use(judgingRoutes(ctx));
   api.use(routeNotFound);
   app.use('/api', api);
+  // Public and outside /api: the key that checks printed and mailed signatures.
+  app.use(wellKnownRoutes(ctx));
 
   const client = deps.clientDir ? clientFiles(deps.clientDir) : undefined;
   if (client) app.use(client);

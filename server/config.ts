@@ -12,6 +12,8 @@ const envSchema = z.object({
   DEMO_SEED: z.enum(['on', 'off']).default('on'),
   LOG_REQUESTS: z.enum(['on', 'off']).default('on'),
   AUTH_SECRET: z.string().min(32, 'use at least 32 characters').optional(),
+  /** The private EC P-256 key that signs ends and cards, as a JWK; made in DATA_DIR when unset. */
+  SIGNING_KEY_JWK: z.string().min(1).optional(),
   SMTP_URL: z.string().url().optional(),
   MAIL_FROM: z.string().default('Ringcall <no-reply@ringcall.local>'),
   MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
@@ -27,6 +29,7 @@ export type ServerConfig = {
   demoSeed: boolean;
   logRequests: boolean;
   authSecret: string | undefined;
+  signingKeyJwk: string | undefined;
   smtpUrl: string | undefined;
   mailFrom: string;
   mailCatcherPort: number;
@@ -49,6 +52,7 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     demoSeed: e.DEMO_SEED === 'on',
     logRequests: e.LOG_REQUESTS === 'on',
     authSecret: e.AUTH_SECRET,
+    signingKeyJwk: e.SIGNING_KEY_JWK,
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,
     mailCatcherPort: e.MAIL_CATCHER_PORT,

@@ -8,6 +8,7 @@ import { APP_VERSION } from './version';
 import { loadAuthSecret } from './auth/secret';
 import { startMailCatcher } from './mail/mailCatcher';
 import { createMailer } from './mail/mailer';
+import { loadSigningKeys } from './signing/serverKeys';
 
 /** Addresses phones on the same field network can use. */
 function lanAddresses(): string[] {
@@ -21,7 +22,8 @@ async function main(): Promise<void> {
   const config = readConfig();
   const db = openDb(config.databaseFile);
   await migrate(db);
-  const seeded = config.demoSeed ? await seedDemoIfEmpty(db) : false;
+  const signingKeys = await loadSigningKeys(config.dataDir, config.signingKeyJwk);
+  const seeded = config.demoSeed ? await seedDemoIfEmpty(db, signingKeys) : false;
 
   const secret = loadAuthSecret(config.dataDir, config.authSecret);
   // Without a real SMTP server, mail goes to the app's own catcher and can be read in the app.
@@ -35,6 +37,7 @@ async function main(): Promise<void> {
     mailer,
     mailCaught: !config.smtpUrl,
     dataDir: config.dataDir,
+    signingKeys,
     ...(config.publicUrl ? { publicUrl: config.publicUrl } : {}),
     clientDir: config.clientDir,
     logRequests: config.logRequests,
@@ -47,6 +50,7 @@ async function main(): Promise<void> {
       `  Open:      http://localhost:${port}/`,
       ...lanAddresses().map((ip) => `  On the field network: http://${ip}:${port}/`),
       `  Database:  ${config.databaseFile}`,
+      `  Signing:   ${config.signingKeyJwk ? 'key from SIGNING_KEY_JWK' : `key in ${config.dataDir}`} (public half at /.well-known/jwks.json; back it up with the database)`,
       catcher
         ? `  Mail:      caught locally (SMTP on 127.0.0.1:${catcher.port}); read it in the app under "Caught mail"`
         : '  Mail:      sent through SMTP_URL',

@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import * as m0001 from '../migrations/0001_people_and_events';
 import * as m0002 from '../migrations/0002_accounts_and_setup';
 import * as m0004 from '../migrations/0004_field_loop';
+import * as m0005 from '../migrations/0005_judging_and_signatures';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
 
@@ -13,6 +14,7 @@ const migrations: [string, Migration][] = [
   ['0001_people_and_events', m0001],
   ['0002_accounts_and_setup', m0002],
   ['0004_field_loop', m0004],
+  ['0005_judging_and_signatures', m0005],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {

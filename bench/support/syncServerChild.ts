@@ -8,6 +8,7 @@ import { dirname } from 'node:path';
 import type { AddressInfo } from 'node:net';
 import { createApp } from '../../server/app';
 import { migrate, openDb } from '../../server/db';
+import { loadSigningKeys } from '../../server/signing/serverKeys';
 import { BENCH_SECRET } from './syncField';
 
 const file = process.argv[2];
@@ -21,6 +22,7 @@ const app = createApp({
   mailer: { send: async () => undefined },
   mailCaught: false,
   dataDir: dirname(file),
+  signingKeys: await loadSigningKeys(dirname(file)),
   logRequests: false,
 });
 const server = app.listen(0, '127.0.0.1', () => {

@@ -52,3 +52,18 @@ export function signUpLimit() {
     handler: tooMany('Too many new accounts from this network. Wait 15 minutes and try again.'),
   });
 }
+
+/**
+ * Checking a signature is public (a QR code on a printed card) and reads the card from the
+ * database; a generous per-address limit keeps anyone from hammering it.
+ */
+export function verifyLimit() {
+  return rateLimit({
+    windowMs: WINDOW_MS,
+    limit: 600,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => `verify:${ipKeyGenerator(req.ip ?? '')}`,
+    handler: tooMany('Too many signature checks from this network. Wait 15 minutes and try again.'),
+  });
+}

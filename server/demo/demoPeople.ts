@@ -91,11 +91,12 @@ export type DemoArcher = { name: string; email: string; club: string; division: 
 export function demoArchers(): DemoArcher[] {
   const archers: DemoArcher[] = [];
   let n = 0;
-  for (const division of DEMO_DIVISIONS) {
+  for (const [d, division] of DEMO_DIVISIONS.entries()) {
     const firstNames = division.className === 'Women' ? WOMEN : MEN;
     for (let i = 0; i < 6; i += 1) {
-      const first = firstNames[(n * 5 + i) % firstNames.length]!;
-      const last = SURNAMES[(n * 7 + i * 3) % SURNAMES.length]!;
+      // Steps of 5 through 12 first names and 18 surnames never repeat within a division.
+      const first = firstNames[(d * 3 + i * 5) % firstNames.length]!;
+      const last = SURNAMES[(d * 7 + i * 5) % SURNAMES.length]!;
       archers.push({
         name: `${first} ${last}`,
         email: `${first}.${last}.${n}@ringcall.example`.toLowerCase(),

@@ -6,7 +6,10 @@ import { ensureJoinCodes } from '../services/joinCodes';
 import { planTargets } from '../services/targetAssignment';
 import { loadLayout } from '../services/targetLayout';
 import type { SessionRow } from '../services/sessions';
+import type { SigningKeys } from '../signing/serverKeys';
+import { playDemoField } from './demoField';
 import {
+  DEMO_ARCHER_EMAIL,
   DEMO_DIVISIONS,
   DEMO_EVENT,
   DEMO_JUDGES,
@@ -20,10 +23,11 @@ import {
 const BCRYPT_COST = 12;
 
 /**
- * Fills an empty database with the invented demo event. It refuses to touch a database
- * that already holds any account, so real data is never overwritten.
+ * Fills an empty database with the invented demo event, partway through its session (see
+ * demoField.ts). It refuses to touch a database that already holds any account, so real data is
+ * never overwritten; it is made in one transaction, so it is there whole or not at all.
  */
-export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
+export async function seedDemoIfEmpty(db: Db, signingKeys: SigningKeys): Promise<boolean> {
   const row = await db('users').count<{ n: number | string }[]>({ n: '*' }).first();
   if (Number(row?.n ?? 0) > 0) return false;
 
@@ -63,6 +67,7 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
       created_at: at,
     });
 
+    const judgeIds: number[] = [];
     for (const judge of DEMO_JUDGES) {
       const [user] = await trx('users')
         .insert({
@@ -73,6 +78,7 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
           created_at: at,
         })
         .returning('id');
+      judgeIds.push((user as { id: number }).id);
       await trx('event_roles').insert({
         event_id: eventId,
         user_id: (user as { id: number }).id,
@@ -152,6 +158,9 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
       sessionId,
       placements.map((p) => p.targetNumber),
     );
+
+    // The session partway through on targets 1–3, pushed as real mutations (in this transaction).
+    await playDemoField(trx, signingKeys, sessionId, judgeIds, DEMO_ARCHER_EMAIL());
   });
   return true;
 }

@@ -1,10 +1,12 @@
 import { Router } from 'express';
 import { pullQuerySchema, pushRequestSchema } from '../../src/contract/sync';
 import type { AppContext } from '../context';
+import { baseUrl } from '../http/baseUrl';
 import { badRequest } from '../http/httpError';
 import { describeIssues, validateBody } from '../http/validate';
 import { pullChanges } from '../services/sync/pullChanges';
 import { pushBatch } from '../services/sync/pushBatch';
+import { mailFinalCards } from '../services/judging/finalCard';
 
 /** The field path: phones push their mutations and pull what changed (see DEVELOPERS.md, "The field loop"). */
 export function syncRoutes(ctx: AppContext): Router {
@@ -12,7 +14,14 @@ export function syncRoutes(ctx: AppContext): Router {
   const { db } = ctx;
 
   router.post('/sync/push', ctx.requireUser, validateBody(pushRequestSchema), async (req, res) => {
-    res.json(await pushBatch(db, req.user!.id, req.body));
+    const base = baseUrl(req, ctx.publicUrl);
+    res.json(
+      await pushBatch(db, req.user!.id, req.body, {
+        signingKeys: ctx.signingKeys,
+        // Mailed after the push is committed, without holding up its answer.
+        onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, base),
+      }),
+    );
   });
 
   router.get('/sync/pull', ctx.requireUser, async (req, res) => {

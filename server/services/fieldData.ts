@@ -1,7 +1,14 @@
 import type { Db } from '../db';
 
 /** The field loop's tables that refer to sessions and entries (without cascading deletes). */
-const SCORE_TABLES = ['end_entries', 'end_settlements'] as const;
+const SCORE_TABLES = [
+  'end_entries',
+  'end_settlements',
+  'end_rulings',
+  'end_signatures',
+  'card_signatures',
+  'card_mailings',
+] as const;
 
 /**
  * Whether any end has been written in a session, or for given entries. Setup changes that would

@@ -3,6 +3,9 @@ import { AppLayout } from './AppLayout';
 import { RouteError } from './RouteError';
 import { authRoutes } from '../features/auth/routes';
 import { padRoutes } from '../features/pad/routes';
+import { deskRoutes } from '../features/desk/routes';
+import { verifyRoutes } from '../features/verify/routes';
+import { cardRoutes } from '../features/cards/routes';
 import { eventRoutes } from '../features/events/routes';
 
 /** Each screen is its own lazily loaded chunk, so a phone downloads the pad without the organizer's screens. */
@@ -21,6 +24,9 @@ export const router = createBrowserRouter([
           },
           ...authRoutes,
           ...padRoutes,
+          ...deskRoutes,
+          ...verifyRoutes,
+          ...cardRoutes,
           ...eventRoutes,
           {
             path: 'mail',

@@ -1,15 +1,22 @@
 import { z } from 'zod';
 import { ARROW_FLAGS, TASKS, type ArrowFlag, type Task, type WriterSlot } from './fieldTerms';
-import { ARROW_VALUES, type ArrowValue, type EndView, type RoundDefinition } from '../core';
+import type { ArrowValue, EndView, RoundDefinition } from '../core';
+import { arrowValueSchema } from './arrowValueSchema';
+import {
+  cardSignArgsSchema,
+  endRuleArgsSchema,
+  endSignArgsSchema,
+  type CardSignatureDto,
+  type EndSignatureDto,
+  type RulingDto,
+} from './judging';
 
 /**
  * The field path between phone and server. Every change a phone makes is a mutation with a
  * per-client sequence number; the server applies each exactly once (see DEVELOPERS.md, "Sync").
  */
 
-export const arrowValueSchema = z.enum(ARROW_VALUES as unknown as [ArrowValue, ...ArrowValue[]], {
-  error: (issue) => `"${String(issue.input)}" is not an arrow value. Use X, 10 to 1, or M.`,
-});
+export { arrowValueSchema } from './arrowValueSchema';
 
 export { ARROW_FLAGS, TASKS } from './fieldTerms';
 export type { ArrowFlag, Task, WriterSlot } from './fieldTerms';
@@ -53,6 +60,10 @@ export const mutationSchema = z.discriminatedUnion(
   [
     z.object({ ...base, kind: z.literal('end.write'), args: endWriteArgsSchema }),
     z.object({ ...base, kind: z.literal('end.settle'), args: endSettleArgsSchema }),
+    // A judge's ruling and signature on an end, and the archer's or scorer's signature on the card.
+    z.object({ ...base, kind: z.literal('end.rule'), args: endRuleArgsSchema }),
+    z.object({ ...base, kind: z.literal('end.sign'), args: endSignArgsSchema }),
+    z.object({ ...base, kind: z.literal('card.sign'), args: cardSignArgsSchema }),
   ],
   { error: 'Unknown kind of change. This phone may need the newest version of Ringcall.' },
 );
@@ -101,9 +112,16 @@ export type SettlementDto = {
   settledAt: string;
 };
 
+/**
+ * Rulings and signatures are history: each change carries the whole record, keyed by its `id`; a
+ * signature that a later ruling superseded comes again with `supersededAt` set.
+ */
 export type ChangeDto =
   | { version: number; type: 'end'; record: EndRecordDto }
-  | { version: number; type: 'settlement'; record: SettlementDto };
+  | { version: number; type: 'settlement'; record: SettlementDto }
+  | { version: number; type: 'ruling'; record: RulingDto }
+  | { version: number; type: 'signature'; record: EndSignatureDto }
+  | { version: number; type: 'card-signature'; record: CardSignatureDto };
 
 export type PullResponse = { changes: ChangeDto[]; cursor: number; hasMore: boolean };
 
@@ -171,6 +189,14 @@ export type TargetEndsView = {
     entryId: number;
     position: 'A' | 'B' | 'C' | 'D';
     name: string;
-    ends: { endIndex: number; view: EndView }[];
+    ends: {
+      endIndex: number;
+      view: EndView;
+      /** Incidents marked by the writers (bounce-out…), once each, by position in the sorted end. */
+      incidents: { index: number; flag: ArrowFlag }[];
+      /** The judge's latest ruling and the end's current signature, when there are. */
+      ruling: RulingDto | null;
+      signature: EndSignatureDto | null;
+    }[];
   }[];
 };

@@ -9,6 +9,8 @@ export interface WriterRecord {
   arrows: readonly ArrowValue[];
   /** Server revision of this writer's record; a settlement names the revisions it looked at. */
   revision: number;
+  /** Incidents marked on arrows (bounce-out, pass-through…): a judge must rule before signing. */
+  flags?: readonly { index: number; flag: string }[];
 }
 
 export interface Settlement {
@@ -22,6 +24,8 @@ export interface EndFacts {
   first?: WriterRecord | undefined;
   second?: WriterRecord | undefined;
   settlement?: Settlement | undefined;
+  /** A judge's latest ruling decides the end's values, over the writers and the caller. */
+  ruling?: { arrows: readonly ArrowValue[] } | undefined;
   /** A judge's signature fixes the end whatever the records say later. */
   signedArrows?: readonly ArrowValue[] | undefined;
 }
@@ -33,6 +37,12 @@ export interface EndView {
   arrows?: ArrowValue[];
   /** True when a settlement exists but a writer changed their record after it. */
   settlementStale: boolean;
+  /** Who decided the values that count. */
+  decidedBy?: 'writers' | 'caller' | 'judge';
+  /** Incidents marked on the writers' records that no ruling has answered yet. */
+  openIncidents: number;
+  /** A judge may sign: the values are decided and no incident waits. */
+  canSign: boolean;
 }
 
 /** Whether a caller's settlement still speaks for both writers' current records. */
@@ -50,17 +60,28 @@ export function settlementApplies(facts: EndFacts): boolean {
 export function endView(facts: EndFacts): EndView {
   const check = crossCheck(facts.first?.arrows, facts.second?.arrows);
   const settlementStale = !!facts.settlement && !settlementApplies(facts);
-  if (facts.signedArrows)
-    return { state: 'signed', check, arrows: sortEnd(facts.signedArrows), settlementStale };
-  if (facts.settlement && !settlementStale) {
-    const disputed = facts.settlement.disputed.length > 0;
-    return disputed
-      ? { state: 'disputed', check, settlementStale }
-      : { state: 'settled', check, arrows: sortEnd(facts.settlement.arrows), settlementStale };
-  }
-  if (!facts.first && !facts.second) return { state: 'open', check, settlementStale };
-  if (check.status === 'waiting') return { state: 'entered', check, settlementStale };
-  if (check.status === 'agreed')
-    return { state: 'agreed', check, arrows: sortEnd(facts.first!.arrows), settlementStale };
-  return { state: 'mismatch', check, settlementStale };
+  const openIncidents = facts.ruling
+    ? 0
+    : (facts.first?.flags?.length ?? 0) + (facts.second?.flags?.length ?? 0);
+  const base = { check, settlementStale, openIncidents };
+  const view = ((): Omit<EndView, 'openIncidents' | 'canSign'> => {
+    if (facts.signedArrows) return { ...base, state: 'signed', arrows: sortEnd(facts.signedArrows) };
+    if (facts.ruling)
+      return { ...base, state: 'settled', arrows: sortEnd(facts.ruling.arrows), decidedBy: 'judge' };
+    if (facts.settlement && !settlementStale) {
+      return facts.settlement.disputed.length > 0
+        ? { ...base, state: 'disputed' }
+        : { ...base, state: 'settled', arrows: sortEnd(facts.settlement.arrows), decidedBy: 'caller' };
+    }
+    if (!facts.first && !facts.second) return { ...base, state: 'open' };
+    if (check.status === 'waiting') return { ...base, state: 'entered' };
+    if (check.status === 'agreed')
+      return { ...base, state: 'agreed', arrows: sortEnd(facts.first!.arrows), decidedBy: 'writers' };
+    return { ...base, state: 'mismatch' };
+  })();
+  return {
+    ...view,
+    openIncidents,
+    canSign: (view.state === 'agreed' || view.state === 'settled') && openIncidents === 0,
+  };
 }

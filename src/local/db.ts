@@ -1,5 +1,13 @@
 import { Dexie, type EntityTable } from 'dexie';
 import type {
+  CardSignatureDto,
+  EndRuleArgs,
+  EndSignArgs,
+  CardSignArgs,
+  EndSignatureDto,
+  RulingDto,
+} from '../contract/judging';
+import type {
   EndRecordDto,
   EndSettleArgs,
   EndWriteArgs,
@@ -18,6 +26,11 @@ export type EndRecordRow = EndRecordDto & { key: string; endKey: string };
 /** The server's copy of a caller's settlement, as last pulled. */
 export type SettlementRow = SettlementDto & { endKey: string };
 
+/** Judges' rulings and signatures, and card signatures, as last pulled (kept whole: they are history). */
+export type RulingRow = RulingDto & { endKey: string };
+export type EndSignatureRow = EndSignatureDto & { endKey: string };
+export type CardSignatureRow = CardSignatureDto & { cardKey: string };
+
 export type OutboxStatus = 'pending' | 'applied' | 'rejected';
 
 /** A change made on this phone. Pending rows are the phone's own view on top of the server's. */
@@ -27,7 +40,7 @@ export type OutboxRow = {
   id: string;
   userId: number;
   kind: MutationKind;
-  args: EndWriteArgs | EndSettleArgs;
+  args: EndWriteArgs | EndSettleArgs | EndRuleArgs | EndSignArgs | CardSignArgs;
   at: string;
   /** The end this change is about (session:entry:end), for the pad's overlay. */
   endKey: string;
@@ -45,6 +58,9 @@ export class LocalDb extends Dexie {
   endRecords!: EntityTable<EndRecordRow, 'key'>;
   settlements!: EntityTable<SettlementRow, 'endKey'>;
   outbox!: Dexie.Table<OutboxRow, [string, number]>;
+  rulings!: EntityTable<RulingRow, 'id'>;
+  endSignatures!: EntityTable<EndSignatureRow, 'id'>;
+  cardSignatures!: EntityTable<CardSignatureRow, 'id'>;
 
   constructor(name = 'ringcall') {
     super(name);
@@ -55,6 +71,12 @@ export class LocalDb extends Dexie {
       settlements: 'endKey, sessionId',
       outbox: '[clientId+seq], id, status, endKey, userId, [clientId+status]',
     });
+    // Version 2 adds the judges' records; earlier data is kept as it is.
+    this.version(2).stores({
+      rulings: 'id, endKey, sessionId',
+      endSignatures: 'id, endKey, sessionId',
+      cardSignatures: 'id, cardKey, sessionId',
+    });
   }
 }
 
@@ -62,6 +84,7 @@ export const endKeyOf = (sessionId: number, entryId: number, endIndex: number) =
   `${sessionId}:${entryId}:${endIndex}`;
 export const recordKeyOf = (sessionId: number, entryId: number, endIndex: number, slot: WriterSlot) =>
   `${endKeyOf(sessionId, entryId, endIndex)}:${slot}`;
+export const cardKeyOf = (sessionId: number, entryId: number) => `${sessionId}:${entryId}`;
 export const targetKeyOf = (userId: number, sessionId: number, targetNumber: number) =>
   `${userId}:${sessionId}:${targetNumber}`;
 

@@ -1,6 +1,7 @@
 import type { ArrowFlag, EndSettleArgs, EndWriteArgs, WriterSlot } from '../contract/sync';
+import type { EndRuleArgs, EndSignArgs } from '../contract/judging';
 import type { EndFacts } from '../core';
-import type { EndRecordRow, OutboxRow, SettlementRow } from './db';
+import type { EndRecordRow, EndSignatureRow, OutboxRow, RulingRow, SettlementRow } from './db';
 
 export type SlotView = {
   arrows: EndRecordRow['arrows'];
@@ -14,7 +15,12 @@ export type LocalEnd = {
   facts: EndFacts;
   slots: Partial<Record<WriterSlot, SlotView>>;
   settlementPending: boolean;
+  /** The judge's latest ruling and the end's current signature, as this phone knows them. */
+  ruling?: { arrows: RulingRow['arrows']; reason: string; pending: boolean } | undefined;
+  signature?: { signedByName: string; signedAt: string; pending: boolean } | undefined;
 };
+
+export type JudgeRecords = { rulings?: RulingRow[]; signatures?: EndSignatureRow[] };
 
 /**
  * What the phone shows for one end: the server's records, with this person's changes that are
@@ -24,6 +30,7 @@ export function localEnd(
   records: EndRecordRow[],
   settlement: SettlementRow | undefined,
   waiting: OutboxRow[],
+  judged: JudgeRecords = {},
 ): LocalEnd {
   const slots: Partial<Record<WriterSlot, SlotView>> = {};
   for (const r of records)
@@ -32,6 +39,20 @@ export function localEnd(
     ? { arrows: settlement.arrows, disputed: settlement.disputed, basis: settlement.basis }
     : undefined;
   let settlementPending = false;
+  const latestRuling = [...(judged.rulings ?? [])].sort((a, b) => b.id - a.id)[0];
+  let ruling: LocalEnd['ruling'] = latestRuling && {
+    arrows: latestRuling.arrows,
+    reason: latestRuling.reason,
+    pending: false,
+  };
+  const current = (judged.signatures ?? []).find((s) => !s.supersededAt);
+  let signature: LocalEnd['signature'] = current && {
+    signedByName: current.signedByName,
+    signedAt: current.signedAt,
+    pending: false,
+  };
+  let signedArrows = current?.arrows;
+
   for (const row of [...waiting].sort((a, b) => a.seq - b.seq)) {
     if (row.status !== 'pending') continue;
     if (row.kind === 'end.write') {
@@ -43,16 +64,35 @@ export function localEnd(
         revision: (server?.revision ?? 0) + 1,
         pending: true,
       };
-    } else {
+    } else if (row.kind === 'end.settle') {
       const args = row.args as EndSettleArgs;
       settled = { arrows: args.arrows, disputed: args.disputed, basis: args.basis };
       settlementPending = true;
+    } else if (row.kind === 'end.rule') {
+      const args = row.args as EndRuleArgs;
+      ruling = { arrows: args.arrows, reason: args.reason, pending: true };
+      // A ruling is the correction of a signed end: the old signature no longer speaks for it.
+      signature = undefined;
+      signedArrows = undefined;
+    } else if (row.kind === 'end.sign') {
+      const args = row.args as EndSignArgs;
+      signature = { signedByName: 'you', signedAt: row.at, pending: true };
+      signedArrows = args.arrows;
     }
   }
-  const asRecord = (s: SlotView | undefined) => (s ? { arrows: s.arrows, revision: s.revision } : undefined);
+  const asRecord = (s: SlotView | undefined) =>
+    s ? { arrows: s.arrows, revision: s.revision, flags: s.flags } : undefined;
   return {
-    facts: { first: asRecord(slots[1]), second: asRecord(slots[2]), settlement: settled },
+    facts: {
+      first: asRecord(slots[1]),
+      second: asRecord(slots[2]),
+      settlement: settled,
+      ruling: ruling && { arrows: ruling.arrows },
+      signedArrows,
+    },
     slots,
     settlementPending,
+    ruling,
+    signature,
   };
 }

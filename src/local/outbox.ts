@@ -1,5 +1,6 @@
 import type { EndSettleArgs, EndWriteArgs, Mutation } from '../contract/sync';
-import { endKeyOf, type LocalDb, type OutboxRow } from './db';
+import type { CardSignArgs, EndRuleArgs, EndSignArgs } from '../contract/judging';
+import { cardKeyOf, endKeyOf, type LocalDb, type OutboxRow } from './db';
 
 /** This phone's identity towards the server: one sequence per install and person. */
 const knownClientIds = new Map<string, Promise<string>>();
@@ -23,7 +24,18 @@ export function clientIdFor(db: LocalDb, userId: number): Promise<string> {
   return known;
 }
 
-type NewChange = { kind: 'end.write'; args: EndWriteArgs } | { kind: 'end.settle'; args: EndSettleArgs };
+type NewChange =
+  | { kind: 'end.write'; args: EndWriteArgs }
+  | { kind: 'end.settle'; args: EndSettleArgs }
+  | { kind: 'end.rule'; args: EndRuleArgs }
+  | { kind: 'end.sign'; args: EndSignArgs }
+  | { kind: 'card.sign'; args: CardSignArgs };
+
+/** The end a change is about, or the card for a card signature. */
+const subjectKey = (change: NewChange) =>
+  change.kind === 'card.sign'
+    ? `${cardKeyOf(change.args.sessionId, change.args.entryId)}:card`
+    : endKeyOf(change.args.sessionId, change.args.entryId, change.args.endIndex);
 
 /**
  * Records a change in the outbox. The outbox row is the phone's own state change (the pad shows
@@ -42,7 +54,7 @@ export async function recordChange(db: LocalDb, userId: number, change: NewChang
       kind: change.kind,
       args: change.args,
       at: new Date().toISOString(),
-      endKey: endKeyOf(change.args.sessionId, change.args.entryId, change.args.endIndex),
+      endKey: subjectKey(change),
       status: 'pending',
     };
     await db.outbox.add(row);

@@ -1,5 +1,5 @@
 import type { ChangeDto, MutationResult, PullResponse, PushRequest, PushResponse } from '../contract/sync';
-import { endKeyOf, recordKeyOf, type LocalDb, type OutboxRow } from './db';
+import { cardKeyOf, endKeyOf, recordKeyOf, type LocalDb, type OutboxRow } from './db';
 import { clientIdFor, toMutation } from './outbox';
 
 /** How the engine reaches the server; the app uses HTTP, tests can wire the app directly. */
@@ -50,21 +50,25 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
 
   let applied = 0;
   let rejected = 0;
-  await db.transaction('rw', db.outbox, db.endRecords, db.settlements, db.meta, async () => {
-    for (const [seq, result] of outcomes) {
-      const row = await db.outbox.get([clientId, seq]);
-      if (!row || row.status !== 'pending') continue;
-      if (result.status === 'rejected') {
-        rejected += 1;
-        await db.outbox.update([clientId, seq], { status: 'rejected', reason: result.reason });
-      } else {
-        applied += 1;
-        await db.outbox.update([clientId, seq], { status: 'applied' });
+  await db.transaction(
+    'rw',
+    [db.outbox, db.endRecords, db.settlements, db.rulings, db.endSignatures, db.cardSignatures, db.meta],
+    async () => {
+      for (const [seq, result] of outcomes) {
+        const row = await db.outbox.get([clientId, seq]);
+        if (!row || row.status !== 'pending') continue;
+        if (result.status === 'rejected') {
+          rejected += 1;
+          await db.outbox.update([clientId, seq], { status: 'rejected', reason: result.reason });
+        } else {
+          applied += 1;
+          await db.outbox.update([clientId, seq], { status: 'applied' });
+        }
       }
-    }
-    for (const change of changes) await applyChange(db, change);
-    await db.meta.put({ key: cursorKey(userId), value: cursor });
-  });
+      for (const change of changes) await applyChange(db, change);
+      await db.meta.put({ key: cursorKey(userId), value: cursor });
+    },
+  );
   return { pushed, applied, rejected, pulled: changes.length };
 }
 
@@ -91,9 +95,20 @@ async function resendFrom(
 }
 
 async function applyChange(db: LocalDb, change: ChangeDto): Promise<void> {
+  if (change.type === 'card-signature') {
+    await db.cardSignatures.put({
+      ...change.record,
+      cardKey: cardKeyOf(change.record.sessionId, change.record.entryId),
+    });
+    return;
+  }
   const r = change.record;
   const endKey = endKeyOf(r.sessionId, r.entryId, r.endIndex);
-  if (change.type === 'end') {
+  if (change.type === 'ruling') {
+    await db.rulings.put({ ...change.record, endKey });
+  } else if (change.type === 'signature') {
+    await db.endSignatures.put({ ...change.record, endKey });
+  } else if (change.type === 'end') {
     const existing = await db.endRecords.get(
       recordKeyOf(r.sessionId, r.entryId, r.endIndex, change.record.slot),
     );

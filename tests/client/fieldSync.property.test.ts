@@ -11,6 +11,7 @@ import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { endView, scoringValues, type ArrowValue } from '../../src/core';
 import {
+  type EndWriteArgs,
   pushRequestSchema,
   type PushRequest,
   type PushResponse,
@@ -246,6 +247,10 @@ async function runHistory(actions: Action[]): Promise<void> {
   }
 }
 
+type ServerRecord = { arrows_json: string; flags_json: string; revision: number };
+const asFacts = (row: ServerRecord | undefined) =>
+  row && { arrows: JSON.parse(row.arrows_json), revision: row.revision, flags: JSON.parse(row.flags_json) };
+
 async function checkOutcome(
   phones: Map<Who, PhoneState>,
   sessionId: number,
@@ -281,7 +286,10 @@ async function checkOutcome(
     );
     const writer = phones.get(slot === 1 ? 'w1' : 'w2')!;
     const writes = (await writer.db.outbox.toArray()).filter(
-      (r) => r.kind === 'end.write' && r.args.entryId === entryId && r.args.endIndex === endIndex,
+      (r) =>
+        r.kind === 'end.write' &&
+        r.args.entryId === entryId &&
+        (r.args as EndWriteArgs).endIndex === endIndex,
     ).length;
     expect(row.revision).toBe(writes);
   }
@@ -301,14 +309,8 @@ async function checkOutcome(
         const records = serverRecords.filter((r) => r.entry_id === entryId && r.end_index === endIndex);
         const settlement = serverSettlements.find((s) => s.entry_id === entryId && s.end_index === endIndex);
         const fromServer = {
-          first: records.find((r) => r.slot === 1) && {
-            arrows: JSON.parse(records.find((r) => r.slot === 1).arrows_json),
-            revision: records.find((r) => r.slot === 1).revision,
-          },
-          second: records.find((r) => r.slot === 2) && {
-            arrows: JSON.parse(records.find((r) => r.slot === 2).arrows_json),
-            revision: records.find((r) => r.slot === 2).revision,
-          },
+          first: asFacts(records.find((r) => r.slot === 1)),
+          second: asFacts(records.find((r) => r.slot === 2)),
           settlement: settlement && {
             arrows: JSON.parse(settlement.arrows_json),
             disputed: JSON.parse(settlement.disputed_json),

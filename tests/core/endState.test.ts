@@ -57,3 +57,46 @@ describe('end states', () => {
     });
   });
 });
+
+describe('judges and incidents (WA Book 3: only a judge may change a value once written)', () => {
+  it('lets a judge ruling decide over the writers and the caller', () => {
+    const view = endView({
+      first: rec(['X', '9', '7']),
+      second: rec(['X', '8', '7']),
+      settlement: { arrows: ['X', '9', '7'], disputed: [1], basis: { first: 1, second: 1 } },
+      ruling: { arrows: ['8', 'X', '7'] },
+    });
+    expect(view).toMatchObject({
+      state: 'settled',
+      arrows: ['X', '8', '7'],
+      decidedBy: 'judge',
+      canSign: true,
+    });
+  });
+
+  it('holds signing while an incident marked on an arrow has no ruling', () => {
+    const flagged = {
+      arrows: ['9', '7', 'M'] as ArrowValue[],
+      revision: 1,
+      flags: [{ index: 2, flag: 'bounce-out' }],
+    };
+    const agreedWithIncident = endView({ first: flagged, second: rec(['9', '7', 'M']) });
+    expect(agreedWithIncident).toMatchObject({ state: 'agreed', openIncidents: 1, canSign: false });
+    const ruled = endView({
+      first: flagged,
+      second: rec(['9', '7', 'M']),
+      ruling: { arrows: ['9', '7', '6'] },
+    });
+    expect(ruled).toMatchObject({ state: 'settled', openIncidents: 0, canSign: true });
+  });
+
+  it('never lets a mismatch or a dispute be signed', () => {
+    expect(endView({ first: rec(['9']), second: rec(['8']) }).canSign).toBe(false);
+    const disputed = endView({
+      first: rec(['9']),
+      second: rec(['8']),
+      settlement: { arrows: ['9'], disputed: [0], basis: { first: 1, second: 1 } },
+    });
+    expect(disputed.canSign).toBe(false);
+  });
+});

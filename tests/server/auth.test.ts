@@ -20,13 +20,11 @@ const refreshCookie = (res: request.Response) =>
 
 describe('sign-up', () => {
   it('creates the account, starts a session with an httpOnly refresh cookie, and mails a confirmation link', async () => {
-    const res = await request(server.app)
-      .post('/api/auth/sign-up')
-      .send({
-        email: ' Ines.Ashdown@Example.org ',
-        password: 'arrows in the gold',
-        displayName: 'Ines Ashdown',
-      });
+    const res = await request(server.app).post('/api/auth/sign-up').send({
+      email: ' Ines.Ashdown@Example.org ',
+      password: 'arrows in the gold',
+      displayName: 'Ines Ashdown',
+    });
     expect(res.status).toBe(201);
     expect(res.body.user).toMatchObject({
       email: 'ines.ashdown@example.org',

@@ -33,9 +33,11 @@ type Fixture = {
   invitationId: number;
   /** The join code of target 1. */
   joinCode: string;
+  /** A photo of a target, uploaded by the organizer. */
+  photoId: number;
 };
 
-type Upload = { upload: { field: string; content: string; filename: string } };
+type Upload = { upload: { field: string; content: string | Buffer; filename: string; contentType?: string } };
 type RouteRule = {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete';
   path: (f: Fixture) => string;
@@ -46,6 +48,20 @@ type RouteRule = {
 };
 
 const csv = 'name,club,email,division\nUpload Archer,Test Club,,Recurve Women\n';
+/** A 1 × 1 PNG; each upload gets its own trailing bytes, so each is a new photo. */
+const PNG = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==',
+  'base64',
+);
+let photoCount = 0;
+const photo = (): Upload => ({
+  upload: {
+    field: 'photo',
+    content: Buffer.concat([PNG, Buffer.from(`#${(photoCount += 1)}`)]),
+    filename: 'target.png',
+    contentType: 'image/png',
+  },
+});
 const ev = (f: Fixture) => `/api/events/${f.eventId}`;
 const se = (f: Fixture) => `${ev(f)}/sessions/${f.sessionId}`;
 
@@ -203,6 +219,24 @@ export const ROUTES: RouteRule[] = [
     ok: 200,
   },
   { method: 'get', path: () => '/api/sync/pull?cursor=0', allowed: SIGNED_IN, ok: 200 },
+  // Judging: rulings and signatures are pushed mutations (tests/server/judging.rules.test.ts);
+  // the public key and the verification of a signature are open to anyone.
+  { method: 'get', path: () => '/.well-known/jwks.json', allowed: CALLERS, ok: 200 },
+  { method: 'get', path: () => '/api/verify?sig=not.a.signature', allowed: CALLERS, ok: 200 },
+  { method: 'get', path: (f) => `${se(f)}/judge-desk`, allowed: STAFF, ok: 200 },
+  { method: 'get', path: (f) => `${se(f)}/judge-desk?target=1`, allowed: STAFF, ok: 200 },
+  { method: 'get', path: (f) => `${se(f)}/cards`, allowed: STAFF, ok: 200 },
+  // The archer sees their own card (the fixture's archer keeps the first entry).
+  { method: 'get', path: (f) => `/api/cards/${f.sessionId}/${f.entryIds[0]}`, allowed: EVENT_ROLES, ok: 200 },
+  // Past the role check, the fixture's card is not final yet: 409 with the reason.
+  {
+    method: 'post',
+    path: (f) => `/api/cards/${f.sessionId}/${f.entryIds[0]}/send`,
+    allowed: ORGANIZER,
+    ok: 409,
+  },
+  { method: 'post', path: (f) => `${ev(f)}/photos`, body: photo, allowed: STAFF, ok: 201 },
+  { method: 'get', path: (f) => `/api/photos/${f.photoId}`, allowed: STAFF, ok: 200 },
 ];
 
 let server: TestServer;
@@ -255,9 +289,17 @@ async function makeFixture(): Promise<Fixture> {
       .whereNull('revoked_at')
       .first('code')
   ).code;
+  const upload = photo().upload;
+  const photoId = (
+    await request(app)
+      .post(`/api/events/${eventId}/photos`)
+      .set(people.organizer.auth)
+      .attach(upload.field, upload.content as Buffer, { filename: upload.filename, contentType: 'image/png' })
+  ).body.photoId;
   return {
     people,
     eventId,
+    photoId,
     divisionId,
     emptyDivisionId,
     sessionId,
@@ -272,8 +314,10 @@ function call(rule: RouteRule, f: Fixture, caller: Caller) {
   let req = request(server.app)[rule.method](rule.path(f));
   if (caller !== 'anonymous') req = req.set(f.people[caller].auth);
   const body = rule.body?.(f);
-  if (body && 'upload' in body)
-    return req.attach(body.upload.field, Buffer.from(body.upload.content), body.upload.filename);
+  if (body && 'upload' in body) {
+    const { field, content, filename, contentType } = body.upload;
+    return req.attach(field, Buffer.from(content), contentType ? { filename, contentType } : filename);
+  }
   return body ? req.send(body) : req;
 }
 
@@ -288,7 +332,7 @@ describe('authorization table: every route × every kind of caller', () => {
   });
 
   for (const rule of ROUTES) {
-    const label = `${rule.method.toUpperCase()} ${rule.path({ eventId: ':eventId', sessionId: ':sessionId', divisionId: ':divisionId', emptyDivisionId: ':divisionId', entryIds: [':entryId' as unknown as number], invitationId: ':invitationId', people: { judge: { id: ':userId' } } } as unknown as Fixture)}`;
+    const label = `${rule.method.toUpperCase()} ${rule.path({ eventId: ':eventId', sessionId: ':sessionId', divisionId: ':divisionId', emptyDivisionId: ':divisionId', entryIds: [':entryId' as unknown as number], invitationId: ':invitationId', photoId: ':photoId', people: { judge: { id: ':userId' } } } as unknown as Fixture)}`;
     it(`${label} → allowed: ${rule.allowed.join(', ')}`, async () => {
       const f = await makeFixture();
       const refused = CALLERS.filter((c) => !rule.allowed.includes(c));
@@ -393,6 +437,48 @@ describe('bad input is refused with a readable message', () => {
         .attach('file', Buffer.alloc(600 * 1024, 'a'), { filename: 'big.csv', contentType: 'text/csv' });
       expect(huge.status).toBe(413);
       expect(huge.body.error.message).toMatch(/larger than/);
+    }
+  });
+
+  it('photo uploads: a missing file, a file that is not an image and an oversized one', async () => {
+    const url = `${ev(f)}/photos`;
+    const none = await request(server.app).post(url).set(f.people.judge.auth).field('other', 'x');
+    expect(none.status).toBe(400);
+    expect(none.body.error.message).toBe('Choose a photo to upload.');
+    const notImage = await request(server.app)
+      .post(url)
+      .set(f.people.judge.auth)
+      .attach('photo', Buffer.from('name,club\nA,B\n'), { filename: 'photo.jpg', contentType: 'image/jpeg' });
+    expect(notImage.status).toBe(415);
+    expect(notImage.body.error.message).toMatch(/JPEG, PNG or WebP/);
+    const huge = await request(server.app)
+      .post(url)
+      .set(f.people.judge.auth)
+      .attach('photo', Buffer.concat([PNG, Buffer.alloc(5 * 1024 * 1024 + 1)]), {
+        filename: 'big.png',
+        contentType: 'image/png',
+      });
+    expect(huge.status).toBe(413);
+    expect(huge.body.error.message).toMatch(/larger than 5 MB/);
+  });
+
+  it('judging changes with missing or wrong arguments refuse the whole push, with words', async () => {
+    const base = { id: randomUUID(), seq: 1, at: '2026-12-12T10:00:00.000Z' };
+    const where = { sessionId: f.sessionId, entryId: f.entryIds[0] };
+    for (const mutation of [
+      { ...base, kind: 'end.rule', args: { ...where, endIndex: 0, arrows: ['10'] } },
+      { ...base, kind: 'end.rule', args: { ...where, endIndex: 0, arrows: [], reason: 'Looked' } },
+      { ...base, kind: 'end.sign', args: { ...where, endIndex: 'first', arrows: ['Z'] } },
+      { ...base, kind: 'card.sign', args: { ...where, role: 'coach', total: -1 } },
+      { ...base, kind: 'card.sign', args: { ...where, role: 'archer' } },
+      { ...base, kind: 'end.erase', args: where },
+    ]) {
+      const res = await request(server.app)
+        .post('/api/sync/push')
+        .set(f.people.judge.auth)
+        .send({ clientId: `bad-${randomUUID()}`, mutations: [mutation] });
+      expect(res.status, JSON.stringify(mutation)).toBe(400);
+      expect(res.body.error.message).toMatch(/^The request was not accepted\. .+: .+/);
     }
   });
 

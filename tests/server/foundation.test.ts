@@ -95,12 +95,12 @@ describe('database', () => {
     const db = openDb(file);
     try {
       await migrate(db);
-      expect(await seedDemoIfEmpty(db)).toBe(true);
+      expect(await seedDemoIfEmpty(db, server.signingKeys)).toBe(true);
       const users = Number((await db('users').count({ n: '*' }).first())!.n);
       expect(users).toBeGreaterThanOrEqual(36 + 3);
       const divisions = await db('divisions').select('bow_style');
       expect(new Set(divisions.map((d) => d.bow_style))).toEqual(new Set(['recurve', 'compound', 'barebow']));
-      expect(await seedDemoIfEmpty(db)).toBe(false);
+      expect(await seedDemoIfEmpty(db, server.signingKeys)).toBe(false);
       expect(Number((await db('users').count({ n: '*' }).first())!.n)).toBe(users);
     } finally {
       await db.destroy();

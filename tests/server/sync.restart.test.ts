@@ -5,6 +5,7 @@ import { startTestServer, TEST_BCRYPT_COST, type TestServer } from './support/te
 import { TEST_SECRET, makePerson } from './support/people';
 import { setUpMixedField } from './support/fieldSetup';
 import { Phone } from './support/phone';
+import { loadSigningKeys } from '../../server/signing/serverKeys';
 
 /*
  * A server restart (a new app and a new connection on the same database file) keeps every
@@ -43,6 +44,9 @@ describe('server restart', () => {
     await server.db.destroy();
     reopened = openDb(server.file);
     await migrate(reopened);
+    // The signing key made on the first start is read back from the data folder, not made anew.
+    const signingKeys = await loadSigningKeys(server.dir);
+    expect(signingKeys.kid).toBe(server.signingKeys.kid);
     const app = createApp({
       db: reopened,
       version: 'test',
@@ -50,6 +54,7 @@ describe('server restart', () => {
       mailer: { send: async () => undefined },
       mailCaught: true,
       dataDir: server.dir,
+      signingKeys,
       bcryptCost: TEST_BCRYPT_COST,
     });
     const after = new Phone(app, person, before.clientId);

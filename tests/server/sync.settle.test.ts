@@ -240,13 +240,18 @@ describe('the server’s cross-check is the phones’ cross-check', () => {
       return facts.get(key)!;
     };
     for (const c of pulled) {
-      const f = at(c.record.entryId, c.record.endIndex);
       if (c.type === 'end')
-        f[c.record.slot === 1 ? 'first' : 'second'] = {
+        at(c.record.entryId, c.record.endIndex)[c.record.slot === 1 ? 'first' : 'second'] = {
           arrows: c.record.arrows,
           revision: c.record.revision,
+          flags: c.record.flags,
         };
-      else f.settlement = { arrows: c.record.arrows, disputed: c.record.disputed, basis: c.record.basis };
+      else if (c.type === 'settlement')
+        at(c.record.entryId, c.record.endIndex).settlement = {
+          arrows: c.record.arrows,
+          disputed: c.record.disputed,
+          basis: c.record.basis,
+        };
     }
     const server = await views(field.judge);
     let compared = 0;

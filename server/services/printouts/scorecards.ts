@@ -8,6 +8,23 @@ const LINE = '#555555';
 
 type Column = { label: string; width: number };
 
+type Counts = { total: number; tens: number; xs: number };
+
+/** What a final (signed) card prints in the boxes a blank scorecard leaves empty. */
+export type FilledCard = {
+  /** By end index: the counting arrows highest first, the end's counts and the running total. */
+  ends: Map<number, Counts & { arrows: string[]; runningTotal: number; signedBy: string | null }>;
+  distances: Counts[];
+  totals: Counts & { hits: number };
+  /** Archer's and scorer's signatures as printed: who and when. */
+  signatures: { label: string; name: string; at: string }[];
+  /** A line about the judges' signatures on the ends, e.g. "All 12 ends signed by a judge (Tobias Wren)." */
+  judgesLine: string;
+  verify: { url: string; qrPng: Buffer };
+  /** The card's sheet title in the heading band. */
+  title: string;
+};
+
 function cell(pdf: PrintDocument, x: number, y: number, w: number, h: number, fill?: string) {
   const { doc } = pdf;
   if (fill) doc.rect(x, y, w, h).fillAndStroke(fill, LINE);
@@ -23,6 +40,7 @@ function distanceTable(
   y: number,
   width: number,
   rowHeight: number,
+  filled?: FilledCard,
 ): void {
   const { doc } = pdf;
   const distance = round.distances[distanceIndex]!;
@@ -93,11 +111,15 @@ function distanceTable(
     columns.forEach((column, i) => {
       const unused = i >= 1 && i <= arrowsPerEnd && i > end.arrows;
       cell(pdf, cx, y, column.width, rowHeight, unused ? '#bdbdbd' : undefined);
-      if (i === 0)
-        pdf.text(String(end.indexInDistance + 1), cx + 1, y + (rowHeight - size) / 2, {
+      const value =
+        i === 0 ? String(end.indexInDistance + 1) : filledValue(filled, end.index, i, arrowsPerEnd);
+      if (value)
+        pdf.text(value, cx + 1, y + (rowHeight - size) / 2, {
           size,
+          bold: i > arrowsPerEnd && i <= arrowsPerEnd + 2,
           width: column.width - 2,
           align: 'center',
+          minSize: 5,
         });
       cx += column.width;
     });
@@ -114,20 +136,46 @@ function distanceTable(
     minSize: 5,
   });
   cx = x + labelWidth;
-  for (const column of columns.slice(arrowsPerEnd + 1)) {
+  const subtotal = filled?.distances[distanceIndex];
+  const subtotalValues = subtotal
+    ? [String(subtotal.total), '', String(subtotal.tens), String(subtotal.xs)]
+    : [];
+  columns.slice(arrowsPerEnd + 1).forEach((column, i) => {
     cell(pdf, cx, y, column.width, rowHeight);
+    if (subtotalValues[i])
+      pdf.text(subtotalValues[i]!, cx + 1, y + (rowHeight - size) / 2, {
+        size,
+        bold: true,
+        width: column.width - 2,
+        align: 'center',
+        minSize: 5,
+      });
     cx += column.width;
-  }
+  });
+}
+
+/** The text of column `i` of an end's row on a filled card: arrows, end total, running total, 10s, Xs. */
+function filledValue(
+  filled: FilledCard | undefined,
+  endIndex: number,
+  i: number,
+  arrowsPerEnd: number,
+): string | undefined {
+  const end = filled?.ends.get(endIndex);
+  if (!end) return undefined;
+  if (i <= arrowsPerEnd) return end.arrows[i - 1];
+  return [end.total, end.runningTotal, end.tens, end.xs].map(String)[i - arrowsPerEnd - 1];
 }
 
 /** Rows a distance table needs: title, header, one per end, subtotal. */
 const rowsFor = (round: RoundDefinition, distanceIndex: number) =>
   endsOfRound(round).filter((e) => e.distanceIndex === distanceIndex).length + 3;
 
-function scorecardPage(
+export function scorecardPage(
   pdf: PrintDocument,
-  print: PrintSession,
+  print: Pick<PrintSession, 'event' | 'session'>,
   archer: PrintSession['targets'][number]['archers'][number],
+  filled?: FilledCard,
 ): void {
   const { doc } = pdf;
   const left = PAGE.margin;
@@ -155,7 +203,7 @@ function scorecardPage(
       color: '#ffffff',
     },
   );
-  pdf.text('Scorecard', left + width - 110, 14, {
+  pdf.text(filled?.title ?? 'Scorecard', left + width - 110, 14, {
     size: 16,
     bold: true,
     width: 110,
@@ -196,7 +244,9 @@ function scorecardPage(
   });
   y += 42;
   pdf.text(
-    'Write each end highest value first. X is the inner 10, M is a miss. Only a judge may change a value once written.',
+    filled
+      ? 'Every end signed by a judge and the card countersigned. Check this card with the QR code below.'
+      : 'Write each end highest value first. X is the inner 10, M is a miss. Only a judge may change a value once written.',
     left,
     y,
     {
@@ -207,7 +257,7 @@ function scorecardPage(
   );
   y += 16;
 
-  const footerHeight = 150;
+  const footerHeight = filled ? 220 : 150;
   const bottom = PAGE.height - PAGE.margin - footerHeight;
   if (round) {
     // Distances side by side in pairs (the two halves of a 70 m round sit next to each other).
@@ -233,6 +283,7 @@ function scorecardPage(
           y,
           blockWidth,
           rowHeight,
+          filled,
         ),
       );
       y += Math.max(...row.map((i) => rowsFor(round, i))) * rowHeight + rowHeight * 0.6;
@@ -242,6 +293,9 @@ function scorecardPage(
   // Totals, then the two signatures.
   y = bottom + 10;
   const totals = ['Total', '10s', 'Xs', 'Hits'];
+  const totalValues = filled
+    ? [filled.totals.total, filled.totals.tens, filled.totals.xs, filled.totals.hits].map(String)
+    : [];
   const boxWidth = width / totals.length;
   totals.forEach((label, i) => {
     doc
@@ -249,6 +303,13 @@ function scorecardPage(
       .rect(left + i * boxWidth, y, boxWidth - 6, 42)
       .stroke(INK);
     pdf.text(label, left + i * boxWidth + 6, y + 4, { size: 10, bold: true });
+    if (totalValues[i])
+      pdf.text(totalValues[i]!, left + i * boxWidth + 6, y + 14, {
+        size: 22,
+        bold: true,
+        width: boxWidth - 18,
+        align: 'right',
+      });
   });
   if (round)
     pdf.text(`of ${round.distances.reduce((s, d) => s + d.arrows, 0) * 10}`, left + 6, y + 28, {
@@ -256,15 +317,18 @@ function scorecardPage(
       color: '#444444',
     });
   y += 62;
-  const half = (width - 24) / 2;
-  for (const [i, label] of ['Archer’s signature', 'Scorer’s signature'].entries()) {
-    const sx = left + i * (half + 24);
-    doc
-      .lineWidth(0.75)
-      .moveTo(sx, y + 34)
-      .lineTo(sx + half, y + 34)
-      .stroke('#000000');
-    pdf.text(label, sx, y + 38, { size: 9 });
+  if (filled) signedFooter(pdf, filled, left, y, width);
+  else {
+    const half = (width - 24) / 2;
+    for (const [i, label] of ['Archer’s signature', 'Scorer’s signature'].entries()) {
+      const sx = left + i * (half + 24);
+      doc
+        .lineWidth(0.75)
+        .moveTo(sx, y + 34)
+        .lineTo(sx + half, y + 34)
+        .stroke('#000000');
+      pdf.text(label, sx, y + 38, { size: 9 });
+    }
   }
   pdf.text(
     `Ringcall · ${print.session.name} · Target ${archer.targetNumber}${archer.position}`,
@@ -272,6 +336,30 @@ function scorecardPage(
     PAGE.height - PAGE.margin - 4,
     { size: 7, width, color: '#555555' },
   );
+}
+
+/** A final card's signatures (who and when, as the server signed them), the judges' line and the verification QR code. */
+function signedFooter(pdf: PrintDocument, filled: FilledCard, left: number, y: number, width: number): void {
+  const { doc } = pdf;
+  const qrSize = 140;
+  const textWidth = width - qrSize - 16;
+  const half = (textWidth - 16) / 2;
+  filled.signatures.forEach((signature, i) => {
+    const sx = left + i * (half + 16);
+    doc.lineWidth(0.75).rect(sx, y, half, 46).stroke(LINE);
+    pdf.text(signature.label, sx + 6, y + 4, { size: 8 });
+    pdf.text(signature.name, sx + 6, y + 15, { size: 12, bold: true, width: half - 12, minSize: 7 });
+    pdf.text(signature.at, sx + 6, y + 32, { size: 8, width: half - 12, minSize: 6, color: '#333333' });
+  });
+  pdf.text(filled.judgesLine, left, y + 54, { size: 9, width: textWidth, minSize: 6 });
+  pdf.text('Signed by the Ringcall server. Scan the code to check this card is unchanged:', left, y + 70, {
+    size: 8,
+    width: textWidth,
+    minSize: 6,
+    color: '#333333',
+  });
+  pdf.text(filled.verify.url, left, y + 82, { size: 6, width: textWidth, minSize: 4, color: '#333333' });
+  doc.image(filled.verify.qrPng, left + width - qrSize, y - 4, { width: qrSize, height: qrSize });
 }
 
 /** One page per archer on a target, in target and position order. */

@@ -2,17 +2,19 @@ import type { EndWriteArgs } from '../../../src/contract/sync';
 import { nextEndEntry, type Author } from './effects';
 import type { FieldBatch } from './fieldBatch';
 import { toEndRecord } from './fieldRows';
-import { Refusal, checkArrows, checkEnd } from './fieldRules';
+import { Refusal, checkArrows, checkEnd, refuseIfJudged } from './fieldRules';
 
 /**
  * A writer's record of one archer's end. Writer 1 keeps slot 1 and writer 2 slot 2, each its own
  * record; a new write replaces only that writer's record, one revision on. A partial end is fine
  * (the writer may still be tapping); values the archer's face cannot score and too many arrows
- * are refused. Throws Refusal, changing nothing, when a rule is broken.
+ * are refused, and so is any change to an end a judge has ruled on or signed. Throws Refusal,
+ * changing nothing, when a rule is broken.
  */
 export function applyEndWrite(batch: FieldBatch, args: EndWriteArgs, by: Author): void {
   const card = args.slot === 1 ? 'first' : 'second';
   const checked = checkEnd(batch, args, args.slot === 1 ? 'writer1' : 'writer2', `write the ${card} card`);
+  refuseIfJudged(batch, checked, args.endIndex);
   checkArrows(checked, args.arrows, true);
   for (const { index, flag } of args.flags) {
     if (index >= args.arrows.length) {

@@ -1,6 +1,7 @@
 import { sortEnd, sortEndWithMarks } from '../../../src/core';
 import type { EndSettleArgs, EndWriteArgs } from '../../../src/contract/sync';
-import type { EndEntryRow, SettlementRow } from './fieldRows';
+import type { EndRuleArgs } from '../../../src/contract/judging';
+import type { EndEntryRow, RulingRow, SettlementRow } from './fieldRows';
 
 /** Who made a change and when: the person, the phone's clock, the mutation's uuid. */
 export type Author = { userId: number; at: string; mutationId: string };
@@ -43,6 +44,21 @@ export function settlementRow(args: EndSettleArgs, by: Author): SettlementRow {
     basis_json: JSON.stringify({ first: args.basis.first, second: args.basis.second }),
     settled_by: by.userId,
     settled_at: by.at,
+    mutation_id: by.mutationId,
+  };
+}
+
+/** A judge's ruling: the end's values highest first, the reason as given (trimmed by the schema). */
+export function rulingRow(args: EndRuleArgs, by: Author): RulingRow {
+  return {
+    session_id: args.sessionId,
+    entry_id: args.entryId,
+    end_index: args.endIndex,
+    arrows_json: JSON.stringify(sortEnd(args.arrows)),
+    reason: args.reason,
+    photo_id: args.photoId ?? null,
+    judged_by: by.userId,
+    judged_at: by.at,
     mutation_id: by.mutationId,
   };
 }

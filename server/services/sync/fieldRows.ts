@@ -1,5 +1,6 @@
 import type { ArrowValue } from '../../../src/core';
 import type { ArrowFlag, EndRecordDto, SettlementDto, WriterSlot } from '../../../src/contract/sync';
+import type { CardSignatureDto, EndSignatureDto, RulingDto } from '../../../src/contract/judging';
 
 /** One writer's current record of one end (table end_entries). */
 export type EndEntryRow = {
@@ -75,4 +76,97 @@ export const toSettlement = (row: SettlementRow): SettlementDto => ({
   basis: JSON.parse(row.basis_json) as { first: number; second: number },
   settledBy: row.settled_by,
   settledAt: row.settled_at,
+});
+
+/** A judge's ruling on an end (table end_rulings, append-only; the id is the database's). */
+export type RulingRow = {
+  session_id: number;
+  entry_id: number;
+  end_index: number;
+  arrows_json: string;
+  reason: string;
+  photo_id: number | null;
+  judged_by: number;
+  judged_at: string;
+  mutation_id: string;
+};
+
+export const RULING_COLUMNS = [
+  'session_id',
+  'entry_id',
+  'end_index',
+  'arrows_json',
+  'reason',
+  'photo_id',
+  'judged_by',
+  'judged_at',
+  'mutation_id',
+] as const satisfies readonly (keyof RulingRow)[];
+
+/** A judge's signature on an end (table end_signatures). */
+export type EndSignatureRow = {
+  session_id: number;
+  entry_id: number;
+  end_index: number;
+  arrows_json: string;
+  content_hash: string;
+  jws: string;
+  signed_by: number;
+  signed_at: string;
+  mutation_id: string;
+  superseded_at: string | null;
+  superseded_by_ruling: number | null;
+};
+
+/** The archer's or the scorer's signature on a card (table card_signatures). */
+export type CardSignatureRow = {
+  session_id: number;
+  entry_id: number;
+  role: 'archer' | 'scorer';
+  user_id: number;
+  content_hash: string;
+  jws: string;
+  signed_at: string;
+  mutation_id: string;
+  superseded_at: string | null;
+  superseded_by_ruling: number | null;
+};
+
+export const toRuling = (id: number, row: RulingRow): RulingDto => ({
+  id,
+  sessionId: row.session_id,
+  entryId: row.entry_id,
+  endIndex: row.end_index,
+  arrows: JSON.parse(row.arrows_json) as ArrowValue[],
+  reason: row.reason,
+  photoId: row.photo_id,
+  judgedBy: row.judged_by,
+  judgedAt: row.judged_at,
+});
+
+export const toEndSignature = (id: number, row: EndSignatureRow, signedByName: string): EndSignatureDto => ({
+  id,
+  sessionId: row.session_id,
+  entryId: row.entry_id,
+  endIndex: row.end_index,
+  arrows: JSON.parse(row.arrows_json) as ArrowValue[],
+  contentHash: row.content_hash,
+  signedBy: row.signed_by,
+  signedByName,
+  signedAt: row.signed_at,
+  supersededAt: row.superseded_at,
+  supersededByRuling: row.superseded_by_ruling,
+  jws: row.jws,
+});
+
+export const toCardSignature = (id: number, row: CardSignatureRow, name: string): CardSignatureDto => ({
+  id,
+  sessionId: row.session_id,
+  entryId: row.entry_id,
+  role: row.role,
+  userId: row.user_id,
+  name,
+  signedAt: row.signed_at,
+  supersededAt: row.superseded_at,
+  jws: row.jws,
 });

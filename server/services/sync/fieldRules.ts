@@ -1,6 +1,12 @@
-import { endRules, validateEnd, type ArrowValue, type RoundEnd } from '../../../src/core';
+import {
+  endRules,
+  validateEnd,
+  type ArrowValue,
+  type RoundDefinition,
+  type RoundEnd,
+} from '../../../src/core';
 import type { Task } from '../../../src/contract/sync';
-import type { FieldBatch, Placement } from './fieldBatch';
+import type { FieldBatch, FieldSession, Placement } from './fieldBatch';
 import { taskInSentence } from './tasks';
 
 /**
@@ -14,7 +20,7 @@ export class Refusal extends Error {
   }
 }
 
-function refuse(reason: string): never {
+export function refuse(reason: string): never {
   throw new Refusal(reason);
 }
 
@@ -26,9 +32,48 @@ export type CheckedEnd = {
   endLabel: string;
 };
 
+/** The session and the archer's place in it: the first checks of every field mutation. */
+export function findPlacement(
+  batch: FieldBatch,
+  where: { sessionId: number; entryId: number },
+  check?: (session: FieldSession) => void,
+): Placement {
+  const session =
+    batch.session(where.sessionId) ??
+    refuse('This session no longer exists, so the change cannot be kept. Ask the organizer.');
+  check?.(session);
+  return (
+    batch.placement(session, where.entryId) ??
+    refuse(
+      `This archer has no target in the session "${session.name}" any more. Ask the organizer where they shoot now.`,
+    )
+  );
+}
+
+/** The archer's round in the session (refused when their division has none). */
+export function roundOf(placement: Placement): RoundDefinition {
+  return (
+    placement.round ??
+    refuse(
+      `${placement.archerName}'s division has no round in the session "${placement.session.name}". Ask the organizer.`,
+    )
+  );
+}
+
+function endOf(placement: Placement, endIndex: number): CheckedEnd {
+  const round = roundOf(placement);
+  const end =
+    placement.ends[endIndex] ??
+    refuse(
+      `${placement.archerName} shoots the ${round.name}, which has ${placement.ends.length} ends; there is no end ${endIndex + 1}.`,
+    );
+  return { placement, end, endLabel: `End ${endIndex + 1} of ${placement.archerName}` };
+}
+
 /**
- * The checks every field mutation shares: the session exists and is open, the archer is on a
- * target in it, the person keeps `task` on that target, and the end is one of the archer's round.
+ * The checks every writer's and caller's mutation shares: the session exists and is open, the
+ * archer is on a target in it, the person keeps `task` on that target, and the end is one of the
+ * archer's round.
  */
 export function checkEnd(
   batch: FieldBatch,
@@ -36,15 +81,8 @@ export function checkEnd(
   task: Task,
   doing: string,
 ): CheckedEnd {
-  const session =
-    batch.session(where.sessionId) ??
-    refuse('This session no longer exists, so the change cannot be kept. Ask the organizer.');
-  const placement =
-    batch.placement(session, where.entryId) ??
-    refuse(
-      `This archer has no target in the session "${session.name}" any more. Ask the organizer where they shoot now.`,
-    );
-  const target = placement.targetNumber;
+  const placement = findPlacement(batch, where);
+  const { session, targetNumber: target } = placement;
   if (session.closed)
     refuse(`The session "${session.name}" is closed, so its ends can no longer change. Ask a judge.`);
 
@@ -53,18 +91,35 @@ export function checkEnd(
     refuse(`You are not in the group of target ${target}. Join it with the code on the target sheet.`);
   if (held !== task)
     refuse(`Only ${taskInSentence(task)} of target ${target} can ${doing}; you are ${taskInSentence(held)}.`);
+  return endOf(placement, where.endIndex);
+}
 
-  const round =
-    placement.round ??
-    refuse(
-      `${placement.archerName}'s division has no round in the session "${session.name}". Ask the organizer.`,
-    );
-  const end =
-    placement.ends[where.endIndex] ??
-    refuse(
-      `${placement.archerName} shoots the ${round.name}, which has ${placement.ends.length} ends; there is no end ${where.endIndex + 1}.`,
-    );
-  return { placement, end, endLabel: `End ${where.endIndex + 1} of ${placement.archerName}` };
+/**
+ * The checks of a judge's mutation: the session exists, the person is a judge of its event, the
+ * archer is on a target, the end is one of their round. Judges may still act in a closed session:
+ * closing stops the writers, and judges finish the rulings and signatures after it.
+ */
+export function checkJudgeEnd(
+  batch: FieldBatch,
+  where: { sessionId: number; entryId: number; endIndex: number },
+  doing: string,
+): CheckedEnd {
+  const placement = findPlacement(batch, where, (session) => {
+    if (!batch.isJudge(session.eventId)) refuse(`Only a judge of this event can ${doing}.`);
+  });
+  return endOf(placement, where.endIndex);
+}
+
+/**
+ * A writer's or caller's change to an end a judge has already decided is refused: once signed
+ * the end is fixed, and once ruled only a judge changes its values (WA Book 3).
+ */
+export function refuseIfJudged(batch: FieldBatch, checked: CheckedEnd, endIndex: number): void {
+  const { placement, endLabel } = checked;
+  const judged = batch.judged(placement.session.id, placement.entryId, endIndex);
+  if (judged === 'signed') refuse(`${endLabel} is signed. Ask a judge to correct it.`);
+  if (judged === 'ruled')
+    refuse(`A judge has ruled on ${endLabel.replace(/^End/, 'end')}. Only a judge can change it now.`);
 }
 
 /** Checks arrow values against the archer's face, bow style and venue (core rules, as on the phone). */

@@ -2,11 +2,25 @@ import type { Mutation, MutationResult, PushRequest, PushResponse } from '../../
 import type { Db } from '../../db';
 import { forbidden } from '../../http/httpError';
 import { nowIso } from '../../time';
+import type { SigningKeys } from '../../signing/serverKeys';
+import { applyCardSign } from './applyCardSign';
+import { applyEndSign } from './applyEndSign';
 import { applyEndWrite } from './applyEndWrite';
+import { applyRuling } from './applyRuling';
 import { applySettlement } from './applySettlement';
 import type { Author } from './effects';
 import { FieldBatch } from './fieldBatch';
 import { Refusal } from './fieldRules';
+
+export type PushOptions = {
+  /** The server's key: judges' and archers' signatures are made with it. */
+  signingKeys?: SigningKeys;
+  /**
+   * Called once the push is committed with the cards it made final (both signatures), so the
+   * final card can be mailed outside the transaction: a mail failure never loses a signature.
+   */
+  onFinalCards?: (cards: { sessionId: number; entryId: number }[]) => void;
+};
 
 type StoredOutcome = { mutation_uuid: string; status: 'applied' | 'rejected'; reason: string | null };
 
@@ -26,11 +40,36 @@ const numberReused = (m: Mutation): MutationResult => ({
     'Export the unsynced changes from this phone and give them to a judge.',
 });
 
+function keysFor(options: PushOptions): SigningKeys {
+  if (!options.signingKeys) throw new Error('pushBatch needs the signing keys to apply signatures.');
+  return options.signingKeys;
+}
+
 /** Applies one mutation to the batch's state; a broken rule comes back as its reason, with nothing changed. */
-function applyOne(batch: FieldBatch, m: Mutation, by: Author): string | null {
+async function applyOne(
+  batch: FieldBatch,
+  m: Mutation,
+  by: Author,
+  options: PushOptions,
+): Promise<string | null> {
   try {
-    if (m.kind === 'end.write') applyEndWrite(batch, m.args, by);
-    else applySettlement(batch, m.args, by);
+    switch (m.kind) {
+      case 'end.write':
+        applyEndWrite(batch, m.args, by);
+        break;
+      case 'end.settle':
+        applySettlement(batch, m.args, by);
+        break;
+      case 'end.rule':
+        applyRuling(batch, m.args, by);
+        break;
+      case 'end.sign':
+        await applyEndSign(batch, m.args, by, keysFor(options));
+        break;
+      case 'card.sign':
+        await applyCardSign(batch, m.args, by, keysFor(options));
+        break;
+    }
     return null;
   } catch (error) {
     if (error instanceof Refusal) return error.message;
@@ -50,11 +89,17 @@ function applyOne(batch: FieldBatch, m: Mutation, by: Author): string | null {
  * The batch is sorted by seq first: the phone's order is its seq order, so a batch that arrived
  * reordered applies exactly as the ordered one would.
  */
-export async function pushBatch(db: Db, userId: number, request: PushRequest): Promise<PushResponse> {
+export async function pushBatch(
+  db: Db,
+  userId: number,
+  request: PushRequest,
+  options: PushOptions = {},
+): Promise<PushResponse> {
   const { clientId } = request;
   const mutations = [...request.mutations].sort((a, b) => a.seq - b.seq);
 
-  return db.transaction(async (trx) => {
+  let finalCards: { sessionId: number; entryId: number }[] = [];
+  const response = await db.transaction(async (trx) => {
     const client = (await trx('sync_clients').where({ client_id: clientId }).first('user_id', 'last_seq')) as
       { user_id: number; last_seq: number } | undefined;
     if (client && client.user_id !== userId) {
@@ -125,11 +170,13 @@ export async function pushBatch(db: Db, userId: number, request: PushRequest): P
     );
     const receivedAt = nowIso();
     const logRows: object[] = [];
-    const results = steps.map((step): MutationResult => {
+    const results: MutationResult[] = [];
+    for (const step of steps) results.push(await resultOf(step));
+    async function resultOf(step: Step): Promise<MutationResult> {
       const { m } = step;
       if ('answer' in step) return step.answer;
       if ('sameAs' in step) return answerFromStore(m, step.sameAs.outcome!);
-      const reason = applyOne(batch, m, { userId, at: m.at, mutationId: m.id });
+      const reason = await applyOne(batch, m, { userId, at: m.at, mutationId: m.id }, options);
       step.apply.outcome = { mutation_uuid: m.id, status: reason === null ? 'applied' : 'rejected', reason };
       logRows.push({
         ...step.apply.outcome,
@@ -144,7 +191,7 @@ export async function pushBatch(db: Db, userId: number, request: PushRequest): P
       return reason === null
         ? { seq: m.seq, id: m.id, status: 'applied' }
         : { seq: m.seq, id: m.id, status: 'rejected', reason };
-    });
+    }
 
     await batch.flush(trx);
     for (let i = 0; i < logRows.length; i += 200) await trx('mutations').insert(logRows.slice(i, i + 200));
@@ -159,6 +206,9 @@ export async function pushBatch(db: Db, userId: number, request: PushRequest): P
       await trx('sync_clients')
         .where({ client_id: clientId })
         .update({ last_seq: lastSeq, updated_at: receivedAt });
+    finalCards = batch.finalCards;
     return { results, lastSeq, ...(expectedSeq !== undefined ? { expectedSeq } : {}) };
   });
+  if (finalCards.length > 0) options.onFinalCards?.(finalCards);
+  return response;
 }

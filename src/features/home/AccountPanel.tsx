@@ -35,10 +35,21 @@ export function AccountPanel() {
         <ul className="space-y-1">
           {roles.map((r) => (
             <li key={`${r.eventId}-${r.role}`}>
-              <Link to={`/events/${r.eventId}`} className="font-bold underline">
+              <Link
+                to={
+                  r.role === 'judge'
+                    ? `/desk/${r.eventId}`
+                    : r.role === 'archer'
+                      ? '/cards'
+                      : `/events/${r.eventId}`
+                }
+                className="font-bold underline"
+              >
                 {r.eventName}
               </Link>{' '}
-              <span className="text-base">· {r.role}</span>
+              <span className="text-base">
+                · {r.role === 'judge' ? 'judge desk' : r.role === 'archer' ? 'your scorecard' : r.role}
+              </span>
             </li>
           ))}
         </ul>

@@ -1,13 +1,7 @@
 import { useLiveQuery } from 'dexie-react-hooks';
-import {
-  endKeyOf,
-  localDb,
-  type EndRecordRow,
-  type JoinedTarget,
-  type OutboxRow,
-  type SettlementRow,
-} from '../../local/db';
-import { localEnd, type LocalEnd } from '../../local/endFacts';
+import { localDb, type JoinedTarget, type OutboxRow } from '../../local/db';
+import type { LocalEnd } from '../../local/endFacts';
+import { loadSessionEnds } from '../../local/sessionEnds';
 
 export type PadData = {
   target: JoinedTarget;
@@ -32,41 +26,8 @@ export function usePadData(
       candidates.find((t) => t.userId === userId) ??
       candidates.sort((a, b) => b.joinedAt.localeCompare(a.joinedAt))[0];
     if (!target) return null;
-    const [records, settlements, mine] = await Promise.all([
-      db.endRecords.where('sessionId').equals(sessionId).toArray(),
-      db.settlements.where('sessionId').equals(sessionId).toArray(),
-      db.outbox.where('userId').equals(target.userId).toArray(),
-    ]);
+    const { ends, rejected } = await loadSessionEnds(db, sessionId, target.userId, [target]);
     const entryIds = new Set(target.archers.map((a) => a.entryId));
-    const recordsByEnd = groupBy(
-      records.filter((r) => entryIds.has(r.entryId)),
-      (r) => r.endKey,
-    );
-    const settlementByEnd = new Map<string, SettlementRow>(settlements.map((s) => [s.endKey, s]));
-    const waitingByEnd = groupBy(
-      mine.filter((m) => m.status === 'pending' && m.args.sessionId === sessionId),
-      (m) => m.endKey,
-    );
-    const ends = new Map<string, LocalEnd>();
-    for (const archer of target.archers) {
-      const endCount = archer.round.distances.reduce((n, d) => n + d.arrows / d.arrowsPerEnd, 0);
-      for (let endIndex = 0; endIndex < endCount; endIndex += 1) {
-        const key = endKeyOf(sessionId, archer.entryId, endIndex);
-        ends.set(
-          key,
-          localEnd(recordsByEnd.get(key) ?? [], settlementByEnd.get(key), waitingByEnd.get(key) ?? []),
-        );
-      }
-    }
-    const rejected = mine.filter((m) => m.status === 'rejected' && m.args.sessionId === sessionId);
-    return { target, ends, rejected };
+    return { target, ends, rejected: rejected.filter((r) => entryIds.has(r.args.entryId)) };
   }, [sessionId, targetNumber, userId]);
 }
-
-function groupBy<T>(rows: T[], key: (row: T) => string): Map<string, T[]> {
-  const map = new Map<string, T[]>();
-  for (const row of rows) map.set(key(row), [...(map.get(key(row)) ?? []), row]);
-  return map;
-}
-
-export type { EndRecordRow };

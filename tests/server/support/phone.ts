@@ -10,6 +10,7 @@ import type {
   Task,
   TargetPackage,
 } from '../../../src/contract/sync';
+import type { CardSignArgs, EndRuleArgs, EndSignArgs } from '../../../src/contract/judging';
 import type { Db } from '../../../server/db';
 import type { TestPerson } from './people';
 
@@ -54,6 +55,26 @@ export class Phone {
     };
   }
 
+  /** A judge's ruling on an end. */
+  rule(args: EndRuleArgs): Mutation {
+    return this.next({ kind: 'end.rule', args });
+  }
+
+  /** A judge's signature on an end, naming the values the judge saw. */
+  sign(args: EndSignArgs): Mutation {
+    return this.next({ kind: 'end.sign', args });
+  }
+
+  /** The archer's or the scorer's signature on a whole card. */
+  signCard(args: CardSignArgs): Mutation {
+    return this.next({ kind: 'card.sign', args });
+  }
+
+  private next(change: Pick<Mutation, 'kind' | 'args'>): Mutation {
+    this.seq += 1;
+    return { id: randomUUID(), seq: this.seq, at: new Date().toISOString(), ...change } as Mutation;
+  }
+
   async push(mutations: Mutation[]): Promise<PushResponse> {
     const res = await request(this.app)
       .post('/api/sync/push')
@@ -82,7 +103,16 @@ export class Phone {
 /** Row counts of every table a push could touch, to show a refused request stored nothing. */
 export async function fieldTableCounts(db: Db): Promise<Record<string, number>> {
   const counts: Record<string, number> = {};
-  for (const table of ['mutations', 'sync_clients', 'end_entries', 'end_settlements', 'changes']) {
+  for (const table of [
+    'mutations',
+    'sync_clients',
+    'end_entries',
+    'end_settlements',
+    'end_rulings',
+    'end_signatures',
+    'card_signatures',
+    'changes',
+  ]) {
     const row = await db(table).count({ n: '*' }).first();
     counts[table] = Number(row?.n ?? 0);
   }

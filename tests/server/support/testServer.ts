@@ -6,9 +6,18 @@ import { createApp } from '../../../server/app';
 import { migrate, openDb, type Db } from '../../../server/db';
 import { startMailCatcher } from '../../../server/mail/mailCatcher';
 import { createMailer } from '../../../server/mail/mailer';
+import { loadSigningKeys, type SigningKeys } from '../../../server/signing/serverKeys';
 import { TEST_SECRET } from './people';
 
-export type TestServer = { app: Express; db: Db; dir: string; file: string; close: () => Promise<void> };
+export type TestServer = {
+  app: Express;
+  db: Db;
+  dir: string;
+  file: string;
+  /** The key pair the app signs with (made in the temp folder, as on a first start). */
+  signingKeys: SigningKeys;
+  close: () => Promise<void>;
+};
 
 /** bcrypt cost for tests only: production uses 12 (asserted in tests/server/auth.test.ts). */
 export const TEST_BCRYPT_COST = 4;
@@ -22,6 +31,7 @@ export async function startTestServer(
   const db = openDb(file);
   await migrate(db);
   const catcher = await startMailCatcher(db, 0);
+  const signingKeys = await loadSigningKeys(dir);
   const app = createApp({
     db,
     version: 'test',
@@ -29,6 +39,7 @@ export async function startTestServer(
     mailer: createMailer(catcher.smtpUrl, 'Ringcall test <test@ringcall.example>'),
     mailCaught: true,
     dataDir: dir,
+    signingKeys,
     bcryptCost: options.bcryptCost ?? TEST_BCRYPT_COST,
     logRequests: false,
     ...(options.clientDir ? { clientDir: options.clientDir } : {}),
@@ -38,6 +49,7 @@ export async function startTestServer(
     db,
     dir,
     file,
+    signingKeys,
     close: async () => {
       await catcher.close();
       await db.destroy();

@@ -3,6 +3,7 @@ import { apiRequest } from '../../../api/request';
 import type { JoinRequest, TargetPackage } from '../../../contract/sync';
 import { localDb, targetKeyOf, type JoinedTarget } from '../../../local/db';
 import { askPersistentStorage } from '../../../local/useSync';
+import { syncLoop } from '../../../local/syncLoop';
 
 /** Joins a target group and keeps its package on the phone for offline scoring. */
 export async function joinTarget(input: JoinRequest, userId: number): Promise<JoinedTarget> {
@@ -19,6 +20,7 @@ export async function joinTarget(input: JoinRequest, userId: number): Promise<Jo
     await localDb().meta.put({ key: `pullCursor:${userId}`, value: 0 });
   });
   await askPersistentStorage();
+  syncLoop().kick();
   return row;
 }
 

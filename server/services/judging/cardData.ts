@@ -1,0 +1,160 @@
+import { endView, endsOfRound, type EndView, type RoundDefinition } from '../../../src/core';
+import type { Position } from '../../../src/contract/events';
+import type { Db } from '../../db';
+import { forbidden, notFound } from '../../http/httpError';
+import type { CardSignatureRow } from '../sync/fieldRows';
+import type { CardFacts } from '../signing/cardContent';
+import { loadEndRecords, type StoredEnd } from './endRecords';
+
+export type CardSignatureHeld = CardSignatureRow & { id: number; name: string };
+
+/** One archer's card in a session, as stored now: what the card views, the PDF and verification read. */
+export type CardData = {
+  event: { id: number; name: string; venue: string; timeZone: string };
+  session: { id: number; name: string; startsAt: string; closed: boolean };
+  archer: {
+    entryId: number;
+    name: string;
+    club: string;
+    email: string | null;
+    userId: number | null;
+    division: string;
+    targetNumber: number;
+    position: Position;
+  };
+  round: RoundDefinition;
+  ends: { endIndex: number; distanceIndex: number; view: EndView; stored: StoredEnd }[];
+  /** Current (not superseded) card signatures by role. */
+  signatures: Partial<Record<'archer' | 'scorer', CardSignatureHeld>>;
+  /** The card as its signatures cover it: every end's current judge signature. */
+  facts: CardFacts;
+};
+
+export const isFinal = (card: CardData): boolean => !!card.signatures.archer && !!card.signatures.scorer;
+
+type CardRow = {
+  event_id: number;
+  event_name: string;
+  venue: string;
+  time_zone: string;
+  session_name: string;
+  starts_at: string;
+  closed_at: string | null;
+  name: string;
+  club: string;
+  email: string | null;
+  user_id: number | null;
+  division: string;
+  target_number: number;
+  position: Position;
+  round_json: string | null;
+};
+
+/** Reads an archer's card; 404 when the archer has no place (or no round) in the session. */
+export async function loadCard(db: Db, sessionId: number, entryId: number): Promise<CardData> {
+  const row = (await db('target_assignments as ta')
+    .join('event_sessions as s', 's.id', 'ta.session_id')
+    .join('events as ev', 'ev.id', 's.event_id')
+    .join('entries as e', 'e.id', 'ta.entry_id')
+    .join('divisions as d', 'd.id', 'e.division_id')
+    .leftJoin('session_divisions as sd', (j) =>
+      j.on('sd.session_id', 'ta.session_id').andOn('sd.division_id', 'e.division_id'),
+    )
+    .where({ 'ta.session_id': sessionId, 'ta.entry_id': entryId })
+    .first(
+      'ev.id as event_id',
+      'ev.name as event_name',
+      'ev.venue',
+      'ev.time_zone',
+      's.name as session_name',
+      's.starts_at',
+      's.closed_at',
+      'e.name',
+      'e.club',
+      'e.email',
+      'e.user_id',
+      'd.name as division',
+      'ta.target_number',
+      'ta.position',
+      'sd.round_json',
+    )) as CardRow | undefined;
+  if (!row) throw notFound('That archer has no card in this session.');
+  if (!row.round_json)
+    throw notFound(
+      `${row.name}'s division has no round in the session "${row.session_name}", so there is no card.`,
+    );
+  const round = JSON.parse(row.round_json) as RoundDefinition;
+
+  const stored = await loadEndRecords(db, sessionId, [entryId]);
+  const ends = endsOfRound(round).map((end) => ({
+    endIndex: end.index,
+    distanceIndex: end.distanceIndex,
+    view: endView(stored.facts(entryId, end.index)),
+    stored: stored.end(entryId, end.index),
+  }));
+
+  const signatures: CardData['signatures'] = {};
+  const signed = (await db('card_signatures as c')
+    .join('users as u', 'u.id', 'c.user_id')
+    .where({ 'c.session_id': sessionId, 'c.entry_id': entryId })
+    .whereNull('c.superseded_at')
+    .orderBy('c.id')
+    .select('c.*', 'u.display_name as name')) as CardSignatureHeld[];
+  for (const s of signed) signatures[s.role] = s;
+
+  const card: CardData = {
+    event: { id: row.event_id, name: row.event_name, venue: row.venue, timeZone: row.time_zone },
+    session: { id: sessionId, name: row.session_name, startsAt: row.starts_at, closed: !!row.closed_at },
+    archer: {
+      entryId,
+      name: row.name,
+      club: row.club,
+      email: row.email,
+      userId: row.user_id,
+      division: row.division,
+      targetNumber: row.target_number,
+      position: row.position,
+    },
+    round,
+    ends,
+    signatures,
+    facts: {
+      eventId: row.event_id,
+      sessionId,
+      entryId,
+      archerName: row.name,
+      divisionName: row.division,
+      round,
+      ends: ends.map(
+        ({ stored: s }) => s.signature && { arrows: s.signature.arrows, hash: s.signature.contentHash },
+      ),
+    },
+  };
+  return card;
+}
+
+/** How the person stands to a card: the archer, a member of the target's group, staff — or no one. */
+export async function cardRelation(
+  db: Db,
+  userId: number,
+  card: CardData,
+): Promise<{ archer: boolean; task: string | undefined; staff: boolean }> {
+  const member = await db('target_members')
+    .where({ session_id: card.session.id, target_number: card.archer.targetNumber, user_id: userId })
+    .first('task');
+  const staff = await db('event_roles')
+    .where({ event_id: card.event.id, user_id: userId })
+    .whereIn('role', ['organizer', 'judge'])
+    .first('id');
+  return { archer: card.archer.userId === userId, task: member?.task, staff: !!staff };
+}
+
+/** The archer, the target's group, the judges and the organizers may see a card; nobody else. */
+export async function requireCardViewer(db: Db, userId: number, card: CardData) {
+  const relation = await cardRelation(db, userId, card);
+  if (!relation.archer && !relation.task && !relation.staff)
+    throw forbidden(
+      `Only ${card.archer.name}, the group of target ${card.archer.targetNumber}, the judges and the organizers can see this card.`,
+    );
+  return relation;
+}

@@ -1,0 +1,84 @@
+import { createHash } from 'node:crypto';
+import { existsSync, mkdirSync, renameSync, writeFileSync } from 'node:fs';
+import { readFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import type { PhotoUploadResult } from '../../../src/contract/judging';
+import type { Db } from '../../db';
+import { HttpError, forbidden, notFound } from '../../http/httpError';
+import { photoKind } from '../../http/photoUpload';
+import { nowIso } from '../../time';
+import { audit } from '../audit';
+
+/** Photos live in DATA_DIR/photos, outside the web root: only the API serves them, to those allowed. */
+export const photoDir = (dataDir: string): string => join(dataDir, 'photos');
+
+/**
+ * Keeps a judge's photo of a target: checked to be an image by its first bytes, stored once by
+ * its SHA-256 (the same picture twice is one file, and one photo per event).
+ */
+export async function storePhoto(
+  db: Db,
+  dataDir: string,
+  userId: number,
+  eventId: number,
+  bytes: Buffer,
+): Promise<{ created: boolean; result: PhotoUploadResult }> {
+  const kind = photoKind(bytes);
+  if (!kind)
+    throw new HttpError(
+      415,
+      'not_a_photo',
+      'That file is not a photo Ringcall can keep. Upload a JPEG, PNG or WebP picture of the target.',
+    );
+  const sha256 = createHash('sha256').update(bytes).digest('hex');
+  const stored = `${sha256}.${kind.ext}`;
+  const dir = photoDir(dataDir);
+  const file = join(dir, stored);
+  if (!existsSync(file)) {
+    mkdirSync(dir, { recursive: true });
+    // Written beside and renamed, so a half-written file is never served.
+    const partial = `${file}.${process.pid}.part`;
+    writeFileSync(partial, bytes, { mode: 0o600 });
+    renameSync(partial, file);
+  }
+  const existing = await db('photos').where({ event_id: eventId, sha256 }).first('id');
+  if (existing) return { created: false, result: { photoId: existing.id, sha256 } };
+  const [row] = (await db('photos')
+    .insert({
+      event_id: eventId,
+      sha256,
+      mime_type: kind.mime,
+      size_bytes: bytes.length,
+      stored_name: stored,
+      uploaded_by: userId,
+      uploaded_at: nowIso(),
+    })
+    .returning('id')) as { id: number }[];
+  await audit(db, { userId, eventId, action: 'photo.uploaded', details: { photoId: row!.id, sha256 } });
+  return { created: true, result: { photoId: row!.id, sha256 } };
+}
+
+/** A photo's bytes, for the judges and organizers of its event only. */
+export async function readPhoto(
+  db: Db,
+  dataDir: string,
+  userId: number,
+  photoId: number,
+): Promise<{ mime: string; bytes: Buffer; name: string }> {
+  const photo = await db('photos').where({ id: photoId }).first();
+  if (!photo) throw notFound('That photo does not exist.');
+  const staff = await db('event_roles')
+    .where({ event_id: photo.event_id, user_id: userId })
+    .whereIn('role', ['organizer', 'judge'])
+    .first('id');
+  if (!staff) throw forbidden("Only the event's judges and organizers can see its photos.");
+  try {
+    return {
+      mime: photo.mime_type,
+      bytes: await readFile(join(photoDir(dataDir), photo.stored_name)),
+      name: photo.stored_name,
+    };
+  } catch {
+    throw notFound('The file of that photo is missing on the server. Upload it again.');
+  }
+}

@@ -1,0 +1,147 @@
+import { Link, useParams } from 'react-router-dom';
+import { useLiveQuery } from 'dexie-react-hooks';
+import type { CardView } from '../../contract/judging';
+import { cardKeyOf, localDb } from '../../local/db';
+import { recordChange } from '../../local/outbox';
+import { syncLoop } from '../../local/syncLoop';
+import { RequireSignIn } from '../auth/RequireSignIn';
+import { Button } from '../../ui/Button';
+import { Notice } from '../../ui/Notice';
+import { END_STATE_LABELS } from '../pad/endStateLabel';
+import { SyncLine } from '../pad/SyncLine';
+import { useCard } from './api/card';
+
+const CARD_STATE_WORDS: Record<CardView['state'], string> = {
+  running: '○ Running',
+  countersigned: '✍ Countersigned',
+  final: '✓ Final',
+};
+
+function Countersign({ card, userId }: { card: CardView; userId: number }) {
+  const key = `${cardKeyOf(card.session.id, card.archer.entryId)}:card`;
+  const waiting = useLiveQuery(
+    () =>
+      localDb()
+        .outbox.where('endKey')
+        .equals(key)
+        .filter((r) => r.userId === userId && r.status === 'pending')
+        .count(),
+    [key, userId],
+    0,
+  );
+  if (waiting > 0)
+    return (
+      <Notice tone="info">
+        Your signature is saved on this phone and goes to the event server with the next sync.
+      </Notice>
+    );
+  if (!card.canCountersign)
+    return card.countersignNote ? <Notice tone="info">{card.countersignNote}</Notice> : null;
+  const role = card.canCountersign;
+  return (
+    <div className="surface space-y-2 rounded-xl border-2 border-ink bg-card p-3">
+      <p>
+        {role === 'archer'
+          ? `Check every end. By signing you agree that ${card.totals.total} is your score for this round.`
+          : `You kept this card. By signing as scorer you confirm ${card.totals.total} for ${card.archer.name}.`}
+      </p>
+      <Button
+        className="w-full"
+        onClick={() =>
+          void recordChange(localDb(), userId, {
+            kind: 'card.sign',
+            args: {
+              sessionId: card.session.id,
+              entryId: card.archer.entryId,
+              role,
+              total: card.totals.total,
+            },
+          }).then(() => syncLoop().kick())
+        }
+      >
+        ✍ Sign as {role}
+      </Button>
+    </div>
+  );
+}
+
+function Card({ sessionId, entryId, userId }: { sessionId: number; entryId: number; userId: number }) {
+  const card = useCard(sessionId, entryId);
+  if (card.isPending) return <p>Loading the card…</p>;
+  if (card.error) return <Notice tone="error">{card.error.message}</Notice>;
+  const c = card.data;
+  return (
+    <div className="space-y-4">
+      <header>
+        <p className="text-base">
+          {c.event.name} · {c.session.name} · {c.round.name}
+        </p>
+        <h1 className="text-3xl font-bold">{c.archer.name}</h1>
+        <p>
+          {c.archer.division} · target {c.archer.targetNumber}
+          {c.archer.position} · <strong data-testid="card-state">{CARD_STATE_WORDS[c.state]}</strong>
+        </p>
+      </header>
+      <p className="text-2xl" data-testid="card-totals">
+        Total <strong>{c.totals.total}</strong> · 10s {c.totals.tens} · Xs {c.totals.xs} · hits{' '}
+        {c.totals.hits}
+      </p>
+      <p>
+        {c.signedEnds} of {c.totalEnds} ends signed by a judge.
+      </p>
+      <table className="w-full border-collapse text-left">
+        <thead>
+          <tr className="border-b-2 border-ink">
+            <th className="py-2">End</th>
+            <th>Arrows</th>
+            <th className="text-right">End</th>
+            <th className="text-right">Total</th>
+          </tr>
+        </thead>
+        <tbody>
+          {c.ends.map((e) => (
+            <tr key={e.endIndex} className="border-b border-line">
+              <td className="py-2 font-bold">{e.endIndex + 1}</td>
+              <td>
+                {e.arrows ? e.arrows.join(' ') : '—'}{' '}
+                <span className="text-base">
+                  {END_STATE_LABELS[e.state].mark} {END_STATE_LABELS[e.state].word}
+                </span>
+              </td>
+              <td className="text-right">{e.total ?? ''}</td>
+              <td className="text-right font-bold">{e.runningTotal ?? ''}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      {c.signatures.length > 0 && (
+        <ul className="space-y-1">
+          {c.signatures.map((s) => (
+            <li key={s.role}>
+              ✍ {s.role === 'archer' ? 'Archer' : 'Scorer'}: {s.name}, {new Date(s.at).toLocaleString()}
+            </li>
+          ))}
+        </ul>
+      )}
+      {c.final && c.signatures[0] && (
+        <Link to={`/verify?sig=${encodeURIComponent(c.signatures[0].jws)}`} className="font-bold underline">
+          Check this card's signature
+        </Link>
+      )}
+      <Countersign card={c} userId={userId} />
+      <SyncLine />
+    </div>
+  );
+}
+
+/** An archer's whole card: every end, totals, signatures, and countersigning when it is ready. */
+export function CardScreen() {
+  const params = useParams();
+  return (
+    <RequireSignIn>
+      {(me) => (
+        <Card sessionId={Number(params.sessionId)} entryId={Number(params.entryId)} userId={me.user.id} />
+      )}
+    </RequireSignIn>
+  );
+}

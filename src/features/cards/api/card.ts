@@ -1,0 +1,21 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { apiRequest } from '../../../api/request';
+import type { CardView } from '../../../contract/judging';
+import type { MyCard } from '../../../contract/myCards';
+
+export const cardQuery = (sessionId: number, entryId: number) =>
+  queryOptions({
+    queryKey: ['card', sessionId, entryId],
+    queryFn: () => apiRequest<CardView>(`/api/cards/${sessionId}/${entryId}`),
+    // Signatures arrive from the judges' phones: look again now and then while the card is open.
+    refetchInterval: 15_000,
+  });
+
+export const useCard = (sessionId: number, entryId: number) => useQuery(cardQuery(sessionId, entryId));
+
+export const myCardsQuery = queryOptions({
+  queryKey: ['my-cards'],
+  queryFn: () => apiRequest<{ cards: MyCard[] }>('/api/me/cards'),
+});
+
+export const useMyCards = () => useQuery(myCardsQuery);

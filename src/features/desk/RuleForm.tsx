@@ -1,0 +1,133 @@
+import { useState, type FormEvent } from 'react';
+import { endRules, sortEnd, type ArrowValue } from '../../core';
+import { localDb } from '../../local/db';
+import { recordChange } from '../../local/outbox';
+import { syncLoop } from '../../local/syncLoop';
+import { useOnline } from '../../local/online';
+import { Button } from '../../ui/Button';
+import { Field } from '../../ui/Field';
+import { Notice } from '../../ui/Notice';
+import { roundEnds } from '../pad/useEndNavigation';
+import type { DeskItem } from './deskItems';
+import { uploadPhoto } from './api/uploadPhoto';
+
+/** A judge's ruling on one end: every value (any value valid on the face), a reason, and a photo if there is signal. */
+export function RuleForm({
+  item,
+  eventId,
+  userId,
+  onDone,
+}: {
+  item: DeskItem;
+  eventId: number;
+  userId: number;
+  onDone: () => void;
+}) {
+  const archer = item.target.archers[item.archerIndex]!;
+  const end = roundEnds(archer)[item.endIndex]!;
+  const allowed = endRules(archer.round, end.distanceIndex, archer.bowStyle).allowed;
+  const start = item.view.arrows ?? item.local.slots[1]?.arrows ?? item.local.slots[2]?.arrows ?? [];
+  const [arrows, setArrows] = useState<(ArrowValue | '')[]>(() =>
+    Array.from({ length: end.arrowsPerEnd }, (_, i) => start[i] ?? ''),
+  );
+  const [reason, setReason] = useState('');
+  const [photo, setPhoto] = useState<File>();
+  const [problem, setProblem] = useState<string>();
+  const [busy, setBusy] = useState(false);
+  const online = useOnline();
+
+  const submit = async (e: FormEvent) => {
+    e.preventDefault();
+    if (arrows.some((a) => a === '')) return setProblem(`Give a value for all ${end.arrowsPerEnd} arrows.`);
+    if (reason.trim().length < 3) return setProblem('Give a short reason for the ruling.');
+    setBusy(true);
+    try {
+      const photoId = photo ? (await uploadPhoto(eventId, photo)).photoId : undefined;
+      await recordChange(localDb(), userId, {
+        kind: 'end.rule',
+        args: {
+          sessionId: item.target.session.id,
+          entryId: archer.entryId,
+          endIndex: item.endIndex,
+          arrows: sortEnd(arrows as ArrowValue[]),
+          reason: reason.trim(),
+          ...(photoId ? { photoId } : {}),
+        },
+      });
+      syncLoop().kick();
+      onDone();
+    } catch (error) {
+      setProblem(error instanceof Error ? error.message : String(error));
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  return (
+    <form
+      onSubmit={(e) => void submit(e)}
+      className="surface space-y-3 rounded-xl border-2 border-ink bg-card p-3"
+    >
+      <h3 className="text-xl font-bold">
+        Ruling: target {item.target.targetNumber}
+        {archer.position}, {archer.name}, end {item.endIndex + 1}
+      </h3>
+      <p className="text-base">
+        The writers' values and the history stay on record; your ruling decides the end.
+      </p>
+      <div className="grid grid-cols-3 gap-2">
+        {arrows.map((value, i) => (
+          <label key={i} className="block">
+            <span className="block font-bold" aria-hidden="true">
+              Arrow {i + 1}
+            </span>
+            <select
+              aria-label={`Arrow ${i + 1}`}
+              value={value}
+              onChange={(e) =>
+                setArrows((all) => all.map((a, j) => (j === i ? (e.target.value as ArrowValue) : a)))
+              }
+              className="surface min-h-14 w-full rounded-lg border-2 border-line bg-card px-2 text-2xl font-bold"
+            >
+              <option value="">–</option>
+              {allowed.map((v) => (
+                <option key={v} value={v}>
+                  {v}
+                </option>
+              ))}
+            </select>
+          </label>
+        ))}
+      </div>
+      <Field
+        label="Reason"
+        hint="For example: line call on arrow 3, the shaft touches the 9."
+        value={reason}
+        onChange={(e) => setReason(e.target.value)}
+      />
+      <label className="block">
+        <span className="block font-bold">Photo of the target (optional)</span>
+        <input
+          type="file"
+          accept="image/jpeg,image/png,image/webp"
+          capture="environment"
+          disabled={!online}
+          onChange={(e) => setPhoto(e.target.files?.[0])}
+          className="mt-1 block min-h-14 w-full text-base"
+        />
+        {!online && (
+          <span className="text-base">Photos need signal. The ruling itself works without it.</span>
+        )}
+      </label>
+      {problem && <Notice tone="error">{problem}</Notice>}
+      <div className="flex gap-2">
+        <Button type="submit" disabled={busy}>
+          {busy ? 'Saving…' : 'Record ruling'}
+        </Button>
+        <Button variant="secondary" onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}

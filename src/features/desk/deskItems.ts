@@ -1,0 +1,74 @@
+import { endView, type EndView } from '../../core';
+import type { JoinedTarget } from '../../local/db';
+import type { LocalEnd } from '../../local/endFacts';
+import { FLAG_LABELS } from '../pad/EndArrows';
+import { roundEnds } from '../pad/useEndNavigation';
+
+export type DeskItemKind = 'dispute' | 'incident' | 'mismatch' | 'to-sign';
+
+export type DeskItem = {
+  kind: DeskItemKind;
+  target: JoinedTarget;
+  archerIndex: number;
+  endIndex: number;
+  local: LocalEnd;
+  view: EndView;
+  detail: string;
+};
+
+export const DESK_KIND_LABELS: Record<DeskItemKind, { mark: string; word: string }> = {
+  dispute: { mark: '?', word: 'Disputed arrow' },
+  incident: { mark: '⚑', word: 'Incident' },
+  mismatch: { mark: '≠', word: 'Cards differ' },
+  'to-sign': { mark: '✍', word: 'Ready to sign' },
+};
+
+function describe(local: LocalEnd, view: EndView): { kind: DeskItemKind; detail: string } | undefined {
+  if (view.state === 'signed') return undefined;
+  if (view.state === 'disputed') {
+    const positions = local.facts.settlement?.disputed.map((i) => i + 1).join(', ') ?? '';
+    return { kind: 'dispute', detail: `The caller sent arrow ${positions} to a judge.` };
+  }
+  if (view.openIncidents > 0) {
+    const flags = [...(local.slots[1]?.flags ?? []), ...(local.slots[2]?.flags ?? [])];
+    const words = [...new Set(flags.map((f) => `${FLAG_LABELS[f.flag]} on arrow ${f.index + 1}`))].join('; ');
+    return { kind: 'incident', detail: `${words}. Rule on the end before it can be signed.` };
+  }
+  if (view.state === 'mismatch') {
+    const differing = view.check.arrows.filter((a) => !a.same).map((a) => a.index + 1);
+    return {
+      kind: 'mismatch',
+      detail: `The two cards differ at arrow ${differing.join(', ')}; the caller has not settled it.`,
+    };
+  }
+  if (view.canSign) return { kind: 'to-sign', detail: `${view.arrows?.join(' ')}` };
+  return undefined;
+}
+
+/** What needs a judge on these targets, most urgent kind first, then target, end and position. */
+export function deskItems(
+  targets: JoinedTarget[],
+  ends: Map<string, LocalEnd>,
+  keyOf: (t: JoinedTarget, entryId: number, endIndex: number) => string,
+): DeskItem[] {
+  const items: DeskItem[] = [];
+  for (const target of targets) {
+    target.archers.forEach((archer, archerIndex) => {
+      for (const { endIndex } of roundEnds(archer)) {
+        const local = ends.get(keyOf(target, archer.entryId, endIndex));
+        if (!local) continue;
+        const view = endView(local.facts);
+        const found = describe(local, view);
+        if (found) items.push({ ...found, target, archerIndex, endIndex, local, view });
+      }
+    });
+  }
+  const order: DeskItemKind[] = ['dispute', 'incident', 'mismatch', 'to-sign'];
+  return items.sort(
+    (a, b) =>
+      order.indexOf(a.kind) - order.indexOf(b.kind) ||
+      a.endIndex - b.endIndex ||
+      a.target.targetNumber - b.target.targetNumber ||
+      a.archerIndex - b.archerIndex,
+  );
+}

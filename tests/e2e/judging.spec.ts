@@ -1,0 +1,180 @@
+import { expect, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
+import { devices } from '@playwright/test';
+import { DEMO_JUDGES, DEMO_ORGANIZER, DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
+import { readDemoDb, readDemoRows } from './support/demoDb';
+
+/** A demo target nobody scores in the seeded demo field: four barebow archers, 122 cm face, 12 ends of 6. */
+const TARGET = 11;
+const phone = devices['Pixel 7'];
+
+async function token(request: APIRequestContext, email: string): Promise<string> {
+  const res = await request.post('/api/auth/sign-in', { data: { email, password: DEMO_PASSWORD } });
+  expect(res.status()).toBe(200);
+  return ((await res.json()) as { accessToken: string }).accessToken;
+}
+
+/** A phone simulated through the API, for the ends this test does not tap by hand. */
+function apiPhone(request: APIRequestContext, bearer: string, name: string) {
+  const clientId = `e2e-${name}-${Date.now()}`;
+  let seq = 0;
+  const headers = { Authorization: `Bearer ${bearer}` };
+  return {
+    join: async (code: string, task: string) =>
+      expect((await request.post('/api/join', { headers, data: { code, task } })).status()).toBe(200),
+    push: async (changes: { kind: string; args: unknown }[]) => {
+      const mutations = changes.map((c) => ({
+        id: crypto.randomUUID(),
+        seq: ++seq,
+        at: new Date().toISOString(),
+        ...c,
+      }));
+      const res = await request.post('/api/sync/push', { headers, data: { clientId, mutations } });
+      expect(res.status()).toBe(200);
+      const body = (await res.json()) as { results: { status: string; reason?: string }[] };
+      expect(body.results.filter((r) => r.status === 'rejected')).toEqual([]);
+    },
+  };
+}
+
+async function signIn(browser: Browser, email: string): Promise<Page> {
+  const page = await (await browser.newContext({ ...phone })).newPage();
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByTestId('signed-in-name')).toBeVisible();
+  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
+  return page;
+}
+
+const END = ['10', '9', '9', '8', '7', '6'];
+const TINY_PNG = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
+  'base64',
+);
+
+test('a disputed arrow goes to a judge, who rules with a photo and signs; the card is countersigned, mailed and verifies', async ({
+  browser,
+  request,
+}) => {
+  test.setTimeout(240_000);
+  const { code, session_id: sessionId } = readDemoDb<{ code: string; session_id: number }>(
+    'select code, session_id from join_codes where target_number = ? and revoked_at is null',
+    TARGET,
+  );
+  const eventId = readDemoDb<{ event_id: number }>(
+    'select event_id from event_sessions where id = ?',
+    sessionId,
+  ).event_id;
+  const archers = readDemoRows<{ entry_id: number; position: string; email: string }>(
+    `select t.entry_id, t.position, u.email from target_assignments t join entries e on e.id = t.entry_id
+     join users u on u.id = e.user_id where t.session_id = ? and t.target_number = ? order by t.position`,
+    sessionId,
+    TARGET,
+  );
+  const people = demoArchers();
+  const [w1Email, w2Email, callerEmail] = [people[12]!.email, people[13]!.email, people[14]!.email];
+  const w1 = apiPhone(request, await token(request, w1Email), 'w1');
+  const w2 = apiPhone(request, await token(request, w2Email), 'w2');
+  await w1.join(code, 'writer1');
+  await w2.join(code, 'writer2');
+
+  // Every end of every archer, both cards; on end 1 writer 2 has A's third arrow as 8.
+  for (const slot of [1, 2] as const) {
+    const changes = archers.flatMap((a) =>
+      Array.from({ length: 12 }, (_, endIndex) => ({
+        kind: 'end.write',
+        args: {
+          sessionId,
+          entryId: a.entry_id,
+          endIndex,
+          slot,
+          arrows: slot === 2 && endIndex === 0 && a.position === 'A' ? ['10', '9', '8', '8', '7', '6'] : END,
+          flags: [],
+        },
+      })),
+    );
+    await (slot === 1 ? w1 : w2).push(changes);
+  }
+
+  // The caller sends the arrow to a judge.
+  const caller = await signIn(browser, callerEmail);
+  await caller.goto(`/join?code=${code}`);
+  await caller.getByRole('radio', { name: /Caller/ }).check();
+  await caller.getByRole('button', { name: 'Join target' }).click();
+  const mismatch = caller.getByTestId('mismatch-A');
+  await expect(mismatch).toBeVisible({ timeout: 20_000 });
+  await mismatch.getByRole('button', { name: /Send to a judge/ }).click();
+  await mismatch.getByRole('button', { name: 'Settle this end' }).click();
+  await expect(caller.getByTestId('state-A')).toContainText('With a judge', { timeout: 20_000 });
+
+  // The judge loads the desk, goes offline and signs every ready end of the target.
+  const judge = await signIn(browser, DEMO_JUDGES[0]!.email);
+  await judge.goto(`/desk/${eventId}/${sessionId}`);
+  await judge.getByRole('button', { name: /Load the targets/ }).click();
+  await judge.getByRole('combobox', { name: 'Target' }).selectOption(String(TARGET));
+  await expect(judge.getByTestId(`desk-dispute-${TARGET}A-1`)).toBeVisible({ timeout: 30_000 });
+  await judge.context().setOffline(true);
+  await judge.getByRole('button', { name: /Sign all 47 ready ends/ }).click();
+  await expect(judge.getByTestId('waiting-count')).toContainText('47 waiting');
+  await judge.screenshot({ path: '.tmp/screens/desk-offline.png', fullPage: true });
+
+  // Back online: the signatures go, and the ruling with a photo follows.
+  await judge.context().setOffline(false);
+  await expect(judge.getByTestId('sync-line')).toContainText('reached the event server', { timeout: 30_000 });
+  const dispute = judge.getByTestId(`desk-dispute-${TARGET}A-1`);
+  await dispute.getByRole('button', { name: 'Rule on this end' }).click();
+  await dispute.getByRole('combobox', { name: 'Arrow 3' }).selectOption('9');
+  await dispute.getByLabel('Reason').fill('Line call on arrow 3: the shaft touches the 9 line.');
+  await dispute
+    .locator('input[type=file]')
+    .setInputFiles({ name: 'target.png', mimeType: 'image/png', buffer: TINY_PNG });
+  await judge.screenshot({ path: '.tmp/screens/desk-ruling.png', fullPage: true });
+  await dispute.getByRole('button', { name: 'Record ruling' }).click();
+  const toSign = judge.getByTestId(`desk-to-sign-${TARGET}A-1`);
+  await expect(toSign).toBeVisible({ timeout: 30_000 });
+  await toSign.getByRole('button', { name: /Sign end/ }).click();
+  await expect(judge.getByText('Nothing waits for a judge on this target')).toBeVisible({ timeout: 30_000 });
+
+  // The archer countersigns; the writer who kept the first card signs as scorer.
+  const archerA = archers.find((a) => a.position === 'A')!;
+  const archer = await signIn(browser, archerA.email);
+  await archer.goto('/cards');
+  await archer
+    .getByRole('link', { name: /Larchmere/ })
+    .first()
+    .click();
+  await expect(archer.getByTestId('card-totals')).toContainText('Total 588');
+  await archer.getByRole('button', { name: 'Sign as archer' }).click();
+  await expect(archer.getByTestId('card-state')).toContainText('Countersigned', { timeout: 30_000 });
+  const scorer = await signIn(browser, w1Email);
+  await scorer.goto(`/card/${sessionId}/${archerA.entry_id}`);
+  await scorer.getByRole('button', { name: 'Sign as scorer' }).click();
+  await expect(scorer.getByTestId('card-state')).toContainText('Final', { timeout: 30_000 });
+  await scorer.screenshot({ path: '.tmp/screens/card-final.png', fullPage: true });
+
+  // The final card arrives by mail with its PDF, and its link verifies as unchanged.
+  const organizer = await token(request, DEMO_ORGANIZER.email);
+  let mail: { id: number; text: string; attachments: { contentType: string }[] } | undefined;
+  for (let i = 0; i < 40 && !mail; i += 1) {
+    const list = (await (
+      await request.get('/api/caught-mail', { headers: { Authorization: `Bearer ${organizer}` } })
+    ).json()) as {
+      messages: { id: number; to: string }[];
+    };
+    const found = list.messages.find((m) => m.to === archerA.email);
+    if (found)
+      mail = await (
+        await request.get(`/api/caught-mail/${found.id}`, {
+          headers: { Authorization: `Bearer ${organizer}` },
+        })
+      ).json();
+    else await new Promise((r) => setTimeout(r, 500));
+  }
+  expect(mail, 'final card mail').toBeDefined();
+  expect(mail!.attachments.map((a) => a.contentType)).toContain('application/pdf');
+  const link = /https?:\/\/\S+\/verify\?sig=\S+/.exec(mail!.text)![0];
+  await archer.goto(link.replace(/^https?:\/\/[^/]+/, ''));
+  await expect(archer.getByTestId('verify-result')).toContainText('Unchanged since it was signed');
+  await archer.screenshot({ path: '.tmp/screens/verify.png', fullPage: true });
+});
