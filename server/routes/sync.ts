@@ -7,6 +7,9 @@ import { describeIssues, validateBody } from '../http/validate';
 import { pullChanges } from '../services/sync/pullChanges';
 import { pushBatch } from '../services/sync/pushBatch';
 import { mailFinalCards } from '../services/judging/finalCard';
+import { waitingChangesFileSchema } from '../../src/contract/waitingChanges';
+import { importWaitingChanges } from '../services/sync/importWaiting';
+import { requireEventRole } from '../auth/eventRoles';
 
 /** The field path: phones push their mutations and pull what changed (see DEVELOPERS.md, "The field loop"). */
 export function syncRoutes(ctx: AppContext): Router {
@@ -23,6 +26,23 @@ export function syncRoutes(ctx: AppContext): Router {
       }),
     );
   });
+
+  // A phone that cannot sync saves its changes as a file; a judge of the event brings them in.
+  router.post(
+    '/events/:eventId/waiting-changes',
+    ctx.requireUser,
+    requireEventRole(db, 'judge'),
+    validateBody(waitingChangesFileSchema),
+    async (req, res) => {
+      const base = baseUrl(req, ctx.publicUrl);
+      res.json(
+        await importWaitingChanges(db, Number(req.params.eventId), req.user!.id, req.body, {
+          signingKeys: ctx.signingKeys,
+          onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, base),
+        }),
+      );
+    },
+  );
 
   router.get('/sync/pull', ctx.requireUser, async (req, res) => {
     const query = pullQuerySchema.safeParse(req.query);

@@ -20,6 +20,7 @@ const SIGNED_IN: Caller[] = ['organizer', 'judge', 'archer', 'stranger'];
 const EVENT_ROLES: Caller[] = ['organizer', 'judge', 'archer'];
 const STAFF: Caller[] = ['organizer', 'judge'];
 const ORGANIZER: Caller[] = ['organizer'];
+const JUDGE: Caller[] = ['judge'];
 
 type Fixture = {
   people: Record<Exclude<Caller, 'anonymous'>, TestPerson>;
@@ -219,6 +220,33 @@ export const ROUTES: RouteRule[] = [
     ok: 200,
   },
   { method: 'get', path: () => '/api/sync/pull?cursor=0', allowed: SIGNED_IN, ok: 200 },
+  // A phone's saved changes, brought in by a judge of the event (tests/server/sync.import.test.ts).
+  {
+    method: 'post',
+    path: (f) => `${ev(f)}/waiting-changes`,
+    body: (f) => ({
+      format: 'ringcall-waiting-changes',
+      version: 1,
+      exportedAt: '2026-12-12T10:00:00.000Z',
+      clients: [
+        {
+          clientId: `saved-${randomUUID()}`,
+          userId: f.people.judge.id,
+          mutations: [
+            {
+              id: randomUUID(),
+              seq: 1,
+              at: '2026-12-12T09:30:00.000Z',
+              kind: 'end.write',
+              args: { sessionId: f.sessionId, entryId: f.entryIds[0], endIndex: 0, slot: 1, arrows: ['10'] },
+            },
+          ],
+        },
+      ],
+    }),
+    allowed: JUDGE,
+    ok: 200,
+  },
   // Judging: rulings and signatures are pushed mutations (tests/server/judging.rules.test.ts);
   // the public key and the verification of a signature are open to anyone.
   { method: 'get', path: () => '/.well-known/jwks.json', allowed: CALLERS, ok: 200 },
@@ -350,7 +378,13 @@ describe('authorization table: every route × every kind of caller', () => {
  * Bad input for every route that takes a body: an empty body, wrong types, and a body far over
  * the size limit. Each answers 4xx with a message a person can read.
  */
-type BodyRule = { method: 'post' | 'put' | 'patch'; path: (f: Fixture) => string; wrongTypes: object };
+type BodyRule = {
+  method: 'post' | 'put' | 'patch';
+  path: (f: Fixture) => string;
+  wrongTypes: object;
+  /** Who sends it, when the route is not the organizer's. */
+  as?: 'judge';
+};
 const BODY_ROUTES: BodyRule[] = [
   {
     method: 'post',
@@ -385,6 +419,12 @@ const BODY_ROUTES: BodyRule[] = [
   },
   { method: 'post', path: () => '/api/join', wrongTypes: { code: 7, task: 'captain' } },
   { method: 'post', path: () => '/api/sync/push', wrongTypes: { clientId: 5, mutations: 'all' } },
+  {
+    method: 'post',
+    path: (f) => `${ev(f)}/waiting-changes`,
+    wrongTypes: { format: 3, clients: 'all' },
+    as: 'judge',
+  },
 ];
 
 describe('bad input is refused with a readable message', () => {
@@ -399,7 +439,7 @@ describe('bad input is refused with a readable message', () => {
       const agent = request(server.app);
       const send = (body: string | object) =>
         agent[rule.method](rule.path(f))
-          .set(f.people.organizer.auth)
+          .set(f.people[rule.as ?? 'organizer'].auth)
           .set('Content-Type', 'application/json')
           .send(body);
       for (const [what, body] of [

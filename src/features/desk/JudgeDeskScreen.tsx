@@ -15,6 +15,7 @@ import { Rejections } from '../pad/Rejections';
 import { useEventSummary } from '../events/api/eventSummary';
 import { DESK_KIND_LABELS, deskItems, type DeskItem } from './deskItems';
 import { RuleForm } from './RuleForm';
+import { ImportWaiting } from './ImportWaiting';
 import { usePrepareDesk } from './api/prepareDesk';
 
 async function sign(userId: number, items: DeskItem[]) {
@@ -174,6 +175,7 @@ function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: numb
           ))}
         </ul>
       )}
+      <ImportWaiting eventId={eventId} />
       <SyncLine />
     </div>
   );

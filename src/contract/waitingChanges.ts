@@ -1,0 +1,36 @@
+import { z } from 'zod';
+import { mutationSchema, type MutationResult } from './sync';
+
+/**
+ * The file a phone saves when it cannot sync ("Save waiting changes as a file"), which a judge
+ * brings to the server. Each change keeps its phone's client id and number, so importing it
+ * twice, or importing it and later syncing the phone, still applies it once.
+ */
+export const waitingChangesFileSchema = z.object({
+  format: z.literal('ringcall-waiting-changes', {
+    error: 'This is not a file of waiting changes saved by Ringcall.',
+  }),
+  version: z.literal(1, { error: 'This file comes from a newer Ringcall; update the server first.' }),
+  exportedAt: z.string(),
+  clients: z
+    .array(
+      z.object({
+        clientId: z.string().min(8).max(100),
+        userId: z.number().int().positive(),
+        mutations: z.array(mutationSchema).min(1).max(2000),
+      }),
+    )
+    .min(1, 'The file holds no changes.')
+    .max(20),
+});
+export type WaitingChangesFile = z.infer<typeof waitingChangesFileSchema>;
+
+export type WaitingChangesImport = {
+  clients: {
+    clientId: string;
+    userId: number;
+    applied: number;
+    duplicates: number;
+    results: MutationResult[];
+  }[];
+};
