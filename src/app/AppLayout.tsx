@@ -10,12 +10,12 @@ export function AppLayout() {
   return (
     <div className="flex min-h-dvh flex-col">
       <header className="sticky top-0 z-40 bg-ink text-white shadow">
-        <div className="mx-auto flex max-w-3xl items-center gap-3 px-4 py-3">
+        <div className="mx-auto flex max-w-3xl flex-wrap items-center gap-x-3 gap-y-2 px-4 py-3">
           <Link to="/" className="flex min-h-12 items-center gap-2 text-2xl font-bold tracking-tight">
             <RingMark className="h-9 w-9" />
             Ringcall
           </Link>
-          <div className="ml-auto flex items-center gap-2">
+          <div className="ml-auto flex flex-wrap items-center justify-end gap-2">
             <ThemeToggle />
             <ConnectionBadge />
           </div>

@@ -56,22 +56,15 @@ function DeskItemCard({ item, eventId, userId }: { item: DeskItem; eventId: numb
       <p>{item.detail}</p>
       {item.kind !== 'to-sign' && (
         <div className="space-y-1">
-          {item.local.slots[1] && (
-            <EndArrows
-              label="Writer 1"
-              arrows={item.local.slots[1].arrows}
-              flags={item.local.slots[1].flags}
-              slots={perEnd}
-            />
-          )}
-          {item.local.slots[2] && (
-            <EndArrows
-              label="Writer 2"
-              arrows={item.local.slots[2].arrows}
-              flags={item.local.slots[2].flags}
-              slots={perEnd}
-            />
-          )}
+          {([1, 2] as const).map((slot) => {
+            const card = item.local.slots[slot];
+            return card ? (
+              <div key={slot}>
+                <p className="font-bold">Writer {slot}</p>
+                <EndArrows label={`Writer ${slot}`} arrows={card.arrows} flags={card.flags} slots={perEnd} />
+              </div>
+            ) : null;
+          })}
         </div>
       )}
       {ruling ? (
