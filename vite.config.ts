@@ -47,8 +47,15 @@ export default defineConfig({
       },
     }),
   ],
+  resolve: {
+    // Dexie's package entry wraps its ES5 build; its ES module build for modern browsers is ~2 KiB gzip smaller.
+    // Every import of 'dexie' (ours and dexie-react-hooks') goes here, so there is still one copy.
+    alias: [{ find: /^dexie$/, replacement: 'dexie/dist/modern/dexie.mjs' }],
+  },
   build: {
     manifest: true,
+    // Browsers without native module preload still load every chunk, only later; the polyfill is not worth its bytes.
+    modulePreload: { polyfill: false },
     sourcemap: false,
     chunkSizeWarningLimit: 600,
   },

@@ -1,4 +1,5 @@
 import type { ApiErrorBody } from '../contract/apiError';
+import { serverFetch } from './serverFetch';
 import { accessToken, forgetAccessToken, refreshSession } from '../features/auth/session';
 
 /** A failed API call, carrying the server's readable message. */
@@ -22,7 +23,7 @@ async function send(path: string, init: RequestInit, token: string | undefined):
     headers.set('Content-Type', 'application/json');
   if (token) headers.set('Authorization', `Bearer ${token}`);
   try {
-    return await fetch(path, { ...init, headers, credentials: 'same-origin' });
+    return await serverFetch(path, { ...init, headers, credentials: 'same-origin' });
   } catch {
     throw new ApiError(0, 'network', 'No connection to the Ringcall server right now.');
   }

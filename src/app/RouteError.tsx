@@ -1,13 +1,8 @@
-import { isRouteErrorResponse, Link, useRouteError } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 
-/** Shown instead of a blank page when a screen fails to load or throws. */
-export function RouteError() {
-  const error = useRouteError();
-  const detail = isRouteErrorResponse(error)
-    ? `${error.status} ${error.statusText}`
-    : error instanceof Error
-      ? error.message
-      : 'Unknown problem';
+/** Shown instead of a blank page when a screen fails to load or throws (see RouteBoundary). */
+export function RouteError({ error }: { error: unknown }) {
+  const detail = error instanceof Error ? error.message : 'Unknown problem';
   // A lazy chunk that cannot be fetched offline is the most common cause on the field.
   const offline = typeof navigator !== 'undefined' && !navigator.onLine;
   return (

@@ -1,8 +1,15 @@
 import { QueryClient, defaultShouldDehydrateQuery } from '@tanstack/react-query';
 import { createSyncStoragePersister } from '@tanstack/query-sync-storage-persister';
 import type { PersistQueryClientOptions } from '@tanstack/react-query-persist-client';
+import { ApiError } from '../api/request';
 
 const WEEK_MS = 7 * 24 * 60 * 60 * 1000;
+
+const isFinalAnswer = (error: unknown) =>
+  error instanceof ApiError &&
+  error.status >= 400 &&
+  error.status < 500 &&
+  ![408, 429].includes(error.status);
 
 export const queryClient = new QueryClient({
   defaultOptions: {
@@ -12,6 +19,8 @@ export const queryClient = new QueryClient({
       staleTime: 30_000,
       // Try the network even when the browser claims to be offline: field Wi-Fi often lies.
       networkMode: 'offlineFirst',
+      // A refusal or a bad address does not change by asking again; a lost connection may.
+      retry: (failures, error) => failures < 3 && !isFinalAnswer(error),
     },
   },
 });

@@ -37,30 +37,69 @@ const subjectKey = (change: NewChange) =>
     ? `${cardKeyOf(change.args.sessionId, change.args.entryId)}:card`
     : endKeyOf(change.args.sessionId, change.args.entryId, change.args.endIndex);
 
+/** The next sequence number per client, as last committed from this page (see recordChange). */
+const knownNextSeq = new Map<string, number>();
+
+/** The stored counter moved on (another tab of the app wrote a change): try again from it. */
+class SeqMoved extends Error {
+  constructor(readonly stored: number) {
+    super('The change counter moved on in another tab.');
+  }
+}
+
 /**
  * Records a change in the outbox. The outbox row is the phone's own state change (the pad shows
  * pending rows over the server's copy), so the change and its outbox entry are one write.
+ *
+ * The row and the new counter are written together with the read of the stored counter, using
+ * the number this page saw last, so a tap costs one round trip to the database. If another tab
+ * moved the counter, the read tells (or `add` hits the existing row), the transaction is undone
+ * and written again with the stored number: numbers never repeat and never skip.
  */
 export async function recordChange(db: LocalDb, userId: number, change: NewChange): Promise<OutboxRow> {
   const clientId = await clientIdFor(db, userId);
-  return db.transaction('rw', db.outbox, db.meta, async () => {
-    const seqKey = `nextSeq:${clientId}`;
-    const seq = ((await db.meta.get(seqKey))?.value as number | undefined) ?? 1;
-    const row: OutboxRow = {
-      clientId,
-      seq,
-      id: crypto.randomUUID(),
-      userId,
-      kind: change.kind,
-      args: change.args,
-      at: new Date().toISOString(),
-      endKey: subjectKey(change),
-      status: 'pending',
-    };
-    await db.outbox.add(row);
-    await db.meta.put({ key: seqKey, value: seq + 1 });
-    return row;
+  const seqKey = `nextSeq:${clientId}`;
+  const memoKey = `${db.name}:${seqKey}`;
+  const rowWith = (seq: number): OutboxRow => ({
+    clientId,
+    seq,
+    id: crypto.randomUUID(),
+    userId,
+    kind: change.kind,
+    args: change.args,
+    at: new Date().toISOString(),
+    endKey: subjectKey(change),
+    status: 'pending',
   });
+  for (let attempt = 0; ; attempt += 1) {
+    const guess = knownNextSeq.get(memoKey);
+    try {
+      const row = await db.transaction('rw', db.outbox, db.meta, async () => {
+        if (guess === undefined) {
+          const seq = ((await db.meta.get(seqKey))?.value as number | undefined) ?? 1;
+          const row = rowWith(seq);
+          await db.outbox.add(row);
+          await db.meta.put({ key: seqKey, value: seq + 1 });
+          return row;
+        }
+        const row = rowWith(guess);
+        const [stored] = await Promise.all([
+          db.meta.get(seqKey),
+          db.outbox.add(row),
+          db.meta.put({ key: seqKey, value: guess + 1 }),
+        ]);
+        const storedSeq = (stored?.value as number | undefined) ?? 1;
+        if (storedSeq !== guess) throw new SeqMoved(storedSeq);
+        return row;
+      });
+      knownNextSeq.set(memoKey, row.seq + 1);
+      return row;
+    } catch (error) {
+      knownNextSeq.delete(memoKey);
+      const moved = error instanceof SeqMoved || (error instanceof Error && error.name === 'ConstraintError');
+      if (!moved || guess === undefined || attempt > 0) throw error;
+    }
+  }
 }
 
 export const toMutation = (row: OutboxRow): Mutation =>

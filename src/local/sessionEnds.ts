@@ -1,4 +1,5 @@
-import { endKeyOf, type LocalDb, type OutboxRow } from './db';
+import type { Table } from 'dexie';
+import { cardKeyOf, endKeyOf, type LocalDb, type OutboxRow, type OutboxStatus } from './db';
 import { localEnd, type LocalEnd } from './endFacts';
 import type { JoinedTarget } from './db';
 
@@ -25,25 +26,41 @@ export async function loadSessionEnds(
       return Array.from({ length: endCount }, (_, endIndex) => endKeyOf(sessionId, archer.entryId, endIndex));
     }),
   );
-  const [records, settlements, mine, rulings, signatures] = await Promise.all([
-    db.endRecords.where('endKey').anyOf(endKeys).toArray(),
-    db.settlements.where('endKey').anyOf(endKeys).toArray(),
+  const wanted = new Set(endKeys);
+  // One range per archer ("session:entry:" prefix), read whole: a cursor hopping between many
+  // keys costs a round trip to the browser's database process per key, on every tap.
+  const prefixes = [
+    ...new Set(targets.flatMap((t) => t.archers.map((a) => `${cardKeyOf(sessionId, a.entryId)}:`))),
+  ];
+  const byArcher = <T, K, I>(table: Table<T, K, I>) =>
+    Promise.all(prefixes.map((p) => table.where('endKey').between(p, `${p}\uffff`).toArray())).then((parts) =>
+      parts.flat(),
+    );
+  // Only unsynced and refused changes matter here; delivered ones are in the server's copies.
+  const unsynced = (status: OutboxStatus) =>
     db.outbox
-      .where('endKey')
-      .anyOf(endKeys)
-      .filter((r) => r.userId === userId && r.status !== 'applied')
-      .toArray(),
-    db.rulings.where('endKey').anyOf(endKeys).toArray(),
-    db.endSignatures.where('endKey').anyOf(endKeys).toArray(),
-  ]);
+      .where('status')
+      .equals(status)
+      .toArray()
+      .then((rows) => rows.filter((r) => r.userId === userId && wanted.has(r.endKey)));
+  const [records, settlements, pending, rejected, rulings, signatures] = await db.transaction(
+    'r',
+    [db.endRecords, db.settlements, db.outbox, db.rulings, db.endSignatures],
+    () =>
+      Promise.all([
+        byArcher(db.endRecords),
+        byArcher(db.settlements),
+        unsynced('pending'),
+        unsynced('rejected'),
+        byArcher(db.rulings),
+        byArcher(db.endSignatures),
+      ]),
+  );
   const recordsByEnd = groupBy(records, (r) => r.endKey);
   const settlementByEnd = new Map(settlements.map((s) => [s.endKey, s]));
   const rulingsByEnd = groupBy(rulings, (r) => r.endKey);
   const signaturesByEnd = groupBy(signatures, (r) => r.endKey);
-  const waitingByEnd = groupBy(
-    mine.filter((m) => m.status === 'pending'),
-    (m) => m.endKey,
-  );
+  const waitingByEnd = groupBy(pending, (m) => m.endKey);
   const ends = new Map<string, LocalEnd>();
   for (const key of endKeys) {
     ends.set(
@@ -54,5 +71,5 @@ export async function loadSessionEnds(
       }),
     );
   }
-  return { ends, rejected: mine.filter((m) => m.status === 'rejected') };
+  return { ends, rejected };
 }

@@ -1,5 +1,16 @@
 import type { ChangeDto, MutationResult, PullResponse, PushRequest, PushResponse } from '../contract/sync';
-import { cardKeyOf, endKeyOf, recordKeyOf, type LocalDb, type OutboxRow } from './db';
+import {
+  cardKeyOf,
+  endKeyOf,
+  recordKeyOf,
+  type CardSignatureRow,
+  type EndRecordRow,
+  type EndSignatureRow,
+  type LocalDb,
+  type OutboxRow,
+  type RulingRow,
+  type SettlementRow,
+} from './db';
 import { clientIdFor, toMutation } from './outbox';
 
 /** How the engine reaches the server; the app uses HTTP, tests can wire the app directly. */
@@ -50,22 +61,25 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
 
   let applied = 0;
   let rejected = 0;
+  // Bulk reads and writes: the pad's next tap waits for this transaction, so it must be short.
   await db.transaction(
     'rw',
     [db.outbox, db.endRecords, db.settlements, db.rulings, db.endSignatures, db.cardSignatures, db.meta],
     async () => {
-      for (const [seq, result] of outcomes) {
-        const row = await db.outbox.get([clientId, seq]);
-        if (!row || row.status !== 'pending') continue;
+      const seqs = [...outcomes.keys()];
+      const rows = await db.outbox.bulkGet(seqs.map((seq): [string, number] => [clientId, seq]));
+      const answered = rows.flatMap((row): OutboxRow[] => {
+        const result = row?.status === 'pending' ? outcomes.get(row.seq) : undefined;
+        if (!row || !result) return [];
         if (result.status === 'rejected') {
           rejected += 1;
-          await db.outbox.update([clientId, seq], { status: 'rejected', reason: result.reason });
-        } else {
-          applied += 1;
-          await db.outbox.update([clientId, seq], { status: 'applied' });
+          return [{ ...row, status: 'rejected' as const, reason: result.reason }];
         }
-      }
-      for (const change of changes) await applyChange(db, change);
+        applied += 1;
+        return [{ ...row, status: 'applied' as const }];
+      });
+      await db.outbox.bulkPut(answered);
+      await applyChanges(db, changes);
       await db.meta.put({ key: cursorKey(userId), value: cursor });
     },
   );
@@ -94,32 +108,39 @@ async function resendFrom(
   }
 }
 
-async function applyChange(db: LocalDb, change: ChangeDto): Promise<void> {
-  if (change.type === 'card-signature') {
-    await db.cardSignatures.put({
-      ...change.record,
-      cardKey: cardKeyOf(change.record.sessionId, change.record.entryId),
-    });
-    return;
+/** Stores pulled changes; within one pull, a later change to the same record replaces an earlier one. */
+async function applyChanges(db: LocalDb, changes: ChangeDto[]): Promise<void> {
+  const cards = new Map<number, CardSignatureRow>();
+  const rulings = new Map<number, RulingRow>();
+  const signatures = new Map<number, EndSignatureRow>();
+  const settlements = new Map<string, SettlementRow>();
+  const records = new Map<string, EndRecordRow>();
+  for (const change of changes) {
+    if (change.type === 'card-signature') {
+      const r = change.record;
+      cards.set(r.id, { ...r, cardKey: cardKeyOf(r.sessionId, r.entryId) });
+      continue;
+    }
+    const r = change.record;
+    const endKey = endKeyOf(r.sessionId, r.entryId, r.endIndex);
+    if (change.type === 'ruling') rulings.set(change.record.id, { ...change.record, endKey });
+    else if (change.type === 'signature') signatures.set(change.record.id, { ...change.record, endKey });
+    else if (change.type === 'settlement') settlements.set(endKey, { ...change.record, endKey });
+    else {
+      const key = recordKeyOf(r.sessionId, r.entryId, r.endIndex, change.record.slot);
+      const earlier = records.get(key);
+      if (!earlier || earlier.revision <= change.record.revision)
+        records.set(key, { ...change.record, key, endKey });
+    }
   }
-  const r = change.record;
-  const endKey = endKeyOf(r.sessionId, r.entryId, r.endIndex);
-  if (change.type === 'ruling') {
-    await db.rulings.put({ ...change.record, endKey });
-  } else if (change.type === 'signature') {
-    await db.endSignatures.put({ ...change.record, endKey });
-  } else if (change.type === 'end') {
-    const existing = await db.endRecords.get(
-      recordKeyOf(r.sessionId, r.entryId, r.endIndex, change.record.slot),
-    );
-    // Changes arrive in order, but never let an older revision replace a newer one.
-    if (existing && existing.revision > change.record.revision) return;
-    await db.endRecords.put({
-      ...change.record,
-      key: recordKeyOf(r.sessionId, r.entryId, r.endIndex, change.record.slot),
-      endKey,
-    });
-  } else {
-    await db.settlements.put({ ...change.record, endKey });
-  }
+  // Changes arrive in order, but never let an older revision replace a newer one on the phone.
+  const stored = await db.endRecords.bulkGet([...records.keys()]);
+  const newer = [...records.values()].filter((r, i) => !stored[i] || stored[i].revision <= r.revision);
+  await Promise.all([
+    db.cardSignatures.bulkPut([...cards.values()]),
+    db.rulings.bulkPut([...rulings.values()]),
+    db.endSignatures.bulkPut([...signatures.values()]),
+    db.settlements.bulkPut([...settlements.values()]),
+    db.endRecords.bulkPut(newer),
+  ]);
 }

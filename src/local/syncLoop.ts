@@ -15,6 +15,9 @@ export type SyncStatus = {
 const MIN_BACKOFF = 3_000;
 const MAX_BACKOFF = 5 * 60_000;
 const IDLE_PULL = 20_000;
+/** A burst of taps goes as one push once the person pauses, and never waits longer than this. */
+const TYPING_PAUSE = 800;
+const MAX_TYPING_WAIT = 4_000;
 
 /**
  * Keeps the phone and the server in step: after every change, on `online`, when the app comes
@@ -27,8 +30,11 @@ export class SyncLoop {
   private timer: ReturnType<typeof setTimeout> | undefined;
   private backoff = MIN_BACKOFF;
   private running: Promise<void> | undefined;
-  private again = false;
+  /** Milliseconds to wait before the next round, asked for while a round was running. */
+  private again: number | undefined;
   private userId: number | undefined;
+  /** When the oldest change typed since the last round was made (for MAX_TYPING_WAIT). */
+  private typingSince: number | undefined;
 
   constructor(
     private readonly db: LocalDb,
@@ -51,15 +57,26 @@ export class SyncLoop {
     else this.kick();
   }
 
-  /** Ask for a sync soon (after a change, on online or focus). */
-  kick = (): void => {
+  /** Ask for a sync now (on online, focus, or when the person asks). */
+  kick = (): void => this.request(0);
+
+  /**
+   * Ask for a sync after a change on the pad: once typing pauses, so the database is not busy
+   * with a sync's writes while the next tap is stored.
+   */
+  afterChange = (): void => {
+    this.typingSince ??= Date.now();
+    this.request(Math.min(TYPING_PAUSE, Math.max(0, this.typingSince + MAX_TYPING_WAIT - Date.now())));
+  };
+
+  private request(ms: number): void {
     if (this.userId === undefined) return;
     if (this.running) {
-      this.again = true;
+      this.again = Math.min(this.again ?? ms, ms);
       return;
     }
-    this.schedule(0);
-  };
+    this.schedule(ms);
+  }
 
   private schedule(ms: number) {
     clearTimeout(this.timer);
@@ -75,12 +92,13 @@ export class SyncLoop {
     const userId = this.userId;
     if (userId === undefined || this.running) return;
     this.set({ ...this.status, phase: 'syncing' });
+    this.typingSince = undefined;
     this.running = (async () => {
       try {
         await syncOnce(this.db, userId, this.transport);
         this.backoff = MIN_BACKOFF;
         this.set({ phase: 'idle', lastSyncAt: new Date().toISOString() });
-        this.schedule(this.again ? 0 : IDLE_PULL);
+        this.schedule(this.again ?? IDLE_PULL);
       } catch (error) {
         if (error instanceof ApiError && error.status === 401) {
           // Never touch the outbox: the changes wait for the next sign-in.
@@ -101,7 +119,7 @@ export class SyncLoop {
         this.schedule(this.backoff);
         this.backoff = Math.min(this.backoff * 2, MAX_BACKOFF);
       } finally {
-        this.again = false;
+        this.again = undefined;
         this.running = undefined;
       }
     })();

@@ -43,6 +43,33 @@ describe('the outbox', () => {
     expect(await waitingCount(db)).toBe(4);
   });
 
+  it('never repeats or skips a number when another tab of the app records changes too', async () => {
+    const db = freshDb();
+    const first = await recordChange(db, 5, write(0, ['X']));
+    // Another tab (its own memory, same database) records changes 2 and 3 meanwhile.
+    const otherTab = new LocalDb(db.name);
+    dbs.push(otherTab);
+    const seqKey = `nextSeq:${first.clientId}`;
+    for (const seq of [2, 3]) {
+      await otherTab.transaction('rw', otherTab.outbox, otherTab.meta, async () => {
+        await otherTab.outbox.add({ ...first, seq, id: `other-tab-${seq}` });
+        await otherTab.meta.put({ key: seqKey, value: seq + 1 });
+      });
+    }
+    const taps = await Promise.all([
+      recordChange(db, 5, write(0, ['X', '9'])),
+      recordChange(db, 5, write(0, ['X', '9', '8'])),
+    ]);
+    expect(taps.map((r) => r.seq)).toEqual([4, 5]);
+    const stored = await db.outbox
+      .where('[clientId+seq]')
+      .between([first.clientId, 0], [first.clientId, 99])
+      .toArray();
+    expect(stored.map((r) => r.seq)).toEqual([1, 2, 3, 4, 5]);
+    expect(stored.map((r) => r.id).slice(1, 3)).toEqual(['other-tab-2', 'other-tab-3']);
+    expect((await db.meta.get(seqKey))?.value).toBe(6);
+  });
+
   it('survives closing and reopening the database (a reload)', async () => {
     const db = freshDb();
     await recordChange(db, 5, write(0, ['8']));

@@ -19,7 +19,9 @@ test('home screen renders on a phone, and again after going offline and reloadin
   // The persisted query cache still knows the server version it saw.
   await expect(page.getByTestId('server-line')).toContainText('No signal');
   await page.screenshot({ path: '.tmp/screens/home-offline.png', fullPage: true });
+  // Signal back: the app notices by itself (it asks the server now and then while cut off).
   await context.setOffline(false);
+  await expect(page.getByTestId('connection-badge')).toHaveText(/Online/, { timeout: 20_000 });
 });
 
 test('the manifest is served with the fields and icons an install needs', async ({ page, request }) => {

@@ -1,11 +1,12 @@
 import type { RouteObject } from 'react-router-dom';
+import { lazyScreen } from '../../app/lazyScreen';
 
 export const authRoutes: RouteObject[] = [
-  { path: 'sign-in', lazy: async () => ({ Component: (await import('./SignInScreen')).SignInScreen }) },
-  { path: 'sign-up', lazy: async () => ({ Component: (await import('./SignUpScreen')).SignUpScreen }) },
-  { path: 'invite', lazy: async () => ({ Component: (await import('./InviteScreen')).InviteScreen }) },
+  { path: 'sign-in', element: lazyScreen(async () => (await import('./SignInScreen')).SignInScreen) },
+  { path: 'sign-up', element: lazyScreen(async () => (await import('./SignUpScreen')).SignUpScreen) },
+  { path: 'invite', element: lazyScreen(async () => (await import('./InviteScreen')).InviteScreen) },
   {
     path: 'verify-email',
-    lazy: async () => ({ Component: (await import('./VerifyEmailScreen')).VerifyEmailScreen }),
+    element: lazyScreen(async () => (await import('./VerifyEmailScreen')).VerifyEmailScreen),
   },
 ];

@@ -1,3 +1,4 @@
+import { serverFetch } from '../../api/serverFetch';
 import type { AuthSession } from '../../contract/auth';
 
 /**
@@ -29,7 +30,7 @@ export async function accessToken(): Promise<string | undefined> {
 export function refreshSession(): Promise<AuthSession | undefined> {
   refreshing ??= (async () => {
     try {
-      const response = await fetch('/api/auth/refresh', { method: 'POST', credentials: 'same-origin' });
+      const response = await serverFetch('/api/auth/refresh', { method: 'POST', credentials: 'same-origin' });
       if (response.status === 401) {
         setSession(undefined);
         return undefined;

@@ -1,9 +1,10 @@
 import type { RouteObject } from 'react-router-dom';
+import { lazyScreen } from '../../app/lazyScreen';
 
 export const cardRoutes: RouteObject[] = [
-  { path: 'cards', lazy: async () => ({ Component: (await import('./MyCardsScreen')).MyCardsScreen }) },
+  { path: 'cards', element: lazyScreen(async () => (await import('./MyCardsScreen')).MyCardsScreen) },
   {
     path: 'card/:sessionId/:entryId',
-    lazy: async () => ({ Component: (await import('./CardScreen')).CardScreen }),
+    element: lazyScreen(async () => (await import('./CardScreen')).CardScreen),
   },
 ];

@@ -1,12 +1,13 @@
 import type { RouteObject } from 'react-router-dom';
+import { lazyScreen } from '../../app/lazyScreen';
 
 export const deskRoutes: RouteObject[] = [
   {
     path: 'desk/:eventId',
-    lazy: async () => ({ Component: (await import('./JudgeDeskScreen')).JudgeDeskScreen }),
+    element: lazyScreen(async () => (await import('./JudgeDeskScreen')).JudgeDeskScreen),
   },
   {
     path: 'desk/:eventId/:sessionId',
-    lazy: async () => ({ Component: (await import('./JudgeDeskScreen')).JudgeDeskScreen }),
+    element: lazyScreen(async () => (await import('./JudgeDeskScreen')).JudgeDeskScreen),
   },
 ];

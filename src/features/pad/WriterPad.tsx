@@ -56,10 +56,9 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
     : undefined;
 
   const write = async (next: EditableEnd, previous: EditableEnd) => {
-    setUndo((u) => ({ ...u, [key]: [...(u[key] ?? []), previous] }));
-    setTyped((t) => ({ ...t, [key]: next }));
     const started = performance.now();
-    await recordChange(localDb(), target.userId, {
+    // The database write starts before React renders, so the two overlap instead of queueing.
+    const stored = recordChange(localDb(), target.userId, {
       kind: 'end.write',
       args: {
         sessionId: target.session.id,
@@ -70,9 +69,12 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
         flags: next.flags,
       },
     });
+    setUndo((u) => ({ ...u, [key]: [...(u[key] ?? []), previous] }));
+    setTyped((t) => ({ ...t, [key]: next }));
+    await stored;
     // Read by bench/pad-tap.bench.ts: tap to IndexedDB commit.
     performance.measure('ringcall:tap-to-commit', { start: started });
-    syncLoop().kick();
+    syncLoop().afterChange();
   };
 
   const onValue = (value: ArrowValue) => {
@@ -112,7 +114,7 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
         arrows: previous.arrows,
         flags: previous.flags,
       },
-    }).then(() => syncLoop().kick());
+    }).then(() => syncLoop().afterChange());
   };
 
   // The archer's own card as this writer keeps it: every end this writer entered.

@@ -1,9 +1,10 @@
 import type { RouteObject } from 'react-router-dom';
+import { lazyScreen } from '../../app/lazyScreen';
 
 export const padRoutes: RouteObject[] = [
-  { path: 'join', lazy: async () => ({ Component: (await import('../join/JoinScreen')).JoinScreen }) },
+  { path: 'join', element: lazyScreen(async () => (await import('../join/JoinScreen')).JoinScreen) },
   {
     path: 'pad/:sessionId/:targetNumber',
-    lazy: async () => ({ Component: (await import('./PadScreen')).PadScreen }),
+    element: lazyScreen(async () => (await import('./PadScreen')).PadScreen),
   },
 ];

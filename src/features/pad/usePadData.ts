@@ -1,5 +1,5 @@
 import { useLiveQuery } from 'dexie-react-hooks';
-import { localDb, type JoinedTarget, type OutboxRow } from '../../local/db';
+import { localDb, targetKeyOf, type JoinedTarget, type OutboxRow } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
 import { loadSessionEnds } from '../../local/sessionEnds';
 
@@ -16,18 +16,26 @@ export function usePadData(
   targetNumber: number,
   userId: number | undefined,
 ): PadData | null | undefined {
-  return useLiveQuery(async () => {
+  return useLiveQuery(() => {
     const db = localDb();
-    const candidates = await db.targets
-      .filter((t) => t.session.id === sessionId && t.targetNumber === targetNumber)
-      .toArray();
-    // The person signed in now, or (offline, sign-in unknown) whoever joined last on this phone.
-    const target =
-      candidates.find((t) => t.userId === userId) ??
-      candidates.sort((a, b) => b.joinedAt.localeCompare(a.joinedAt))[0];
-    if (!target) return null;
-    const { ends, rejected } = await loadSessionEnds(db, sessionId, target.userId, [target]);
-    const entryIds = new Set(target.archers.map((a) => a.entryId));
-    return { target, ends, rejected: rejected.filter((r) => entryIds.has(r.args.entryId)) };
+    // One read transaction per refresh: the next tap's write waits for every open one.
+    return db.transaction(
+      'r',
+      [db.targets, db.endRecords, db.settlements, db.outbox, db.rulings, db.endSignatures],
+      async () => {
+        // The person signed in now, or (offline, sign-in unknown) whoever joined last on this phone.
+        const target =
+          (userId !== undefined
+            ? await db.targets.get(targetKeyOf(userId, sessionId, targetNumber))
+            : undefined) ??
+          (await db.targets.toArray())
+            .filter((t) => t.session.id === sessionId && t.targetNumber === targetNumber)
+            .sort((a, b) => b.joinedAt.localeCompare(a.joinedAt))[0];
+        if (!target) return null;
+        const { ends, rejected } = await loadSessionEnds(db, sessionId, target.userId, [target]);
+        const entryIds = new Set(target.archers.map((a) => a.entryId));
+        return { target, ends, rejected: rejected.filter((r) => entryIds.has(r.args.entryId)) };
+      },
+    );
   }, [sessionId, targetNumber, userId]);
 }

@@ -1,5 +1,6 @@
 import type { RouteObject } from 'react-router-dom';
+import { lazyScreen } from '../../app/lazyScreen';
 
 export const verifyRoutes: RouteObject[] = [
-  { path: 'verify', lazy: async () => ({ Component: (await import('./VerifyScreen')).VerifyScreen }) },
+  { path: 'verify', element: lazyScreen(async () => (await import('./VerifyScreen')).VerifyScreen) },
 ];

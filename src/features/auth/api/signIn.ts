@@ -1,11 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '../../../api/request';
+import { serverFetch } from '../../../api/serverFetch';
 import type { AuthSession, SignInInput, SignUpInput } from '../../../contract/auth';
 import { setSession } from '../session';
 import { meQuery } from './me';
 
 async function startSession(path: string, body: unknown): Promise<AuthSession> {
-  const response = await fetch(path, {
+  const response = await serverFetch(path, {
     method: 'POST',
     headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
     body: JSON.stringify(body),
