@@ -51,7 +51,7 @@ try {
   await page.getByTestId('end-number').waitFor();
 
   const values = ['X', '10', '9', '9', '8', '7'];
-  /** Four ends for the group of four, tapping `pauseMs` apart (0: as fast as the driver clicks). */
+  /** Four ends for the group of four, tapping `pauseMs` apart (0: as fast as the driver can tap). */
   const enterFourEnds = async (pauseMs: number): Promise<{ durations: number[]; perSecond: number }> => {
     await page.evaluate(() => performance.clearMeasures('ringcall:tap-to-commit'));
     const started = performance.now();
@@ -61,7 +61,11 @@ try {
       for (let a = 0; a < archers; a += 1) {
         await page.getByRole('tab').nth(a).click();
         for (const v of values) {
-          await page.getByRole('button', { name: `Arrow ${v}`, exact: true }).click();
+          // A finger on the key: the test driver's own click checks would run in the page during the measure.
+          const key = page.getByRole('button', { name: `Arrow ${v}`, exact: true });
+          await key.scrollIntoViewIfNeeded();
+          const box = (await key.boundingBox())!;
+          await page.touchscreen.tap(box.x + box.width / 2, box.y + box.height / 2);
           taps += 1;
           if (pauseMs) await page.waitForTimeout(pauseMs);
         }
@@ -76,7 +80,7 @@ try {
     return { durations, perSecond };
   };
   for (const [label, pauseMs] of [
-    ['as fast as the test driver taps', 0],
+    ['as fast as the test driver can tap', 0],
     ['a quick thumb, a pause of 250 ms after each tap', 250],
   ] as const) {
     const { durations, perSecond } = await enterFourEnds(pauseMs);

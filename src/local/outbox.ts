@@ -4,6 +4,8 @@ import { cardKeyOf, endKeyOf, type LocalDb, type OutboxRow } from './db';
 
 /** This phone's identity towards the server: one sequence per install and person. */
 const knownClientIds = new Map<string, Promise<string>>();
+/** The same ids once known, so a tap can open its transaction without waiting a microtask. */
+const settledClientIds = new Map<string, string>();
 
 /** The promise is remembered, so two taps at once never create two install ids. */
 export function clientIdFor(db: LocalDb, userId: number): Promise<string> {
@@ -19,7 +21,10 @@ export function clientIdFor(db: LocalDb, userId: number): Promise<string> {
       return `${install}.${userId}`;
     });
     knownClientIds.set(memoKey, known);
-    known.catch(() => knownClientIds.delete(memoKey));
+    known.then(
+      (id) => settledClientIds.set(memoKey, id),
+      () => knownClientIds.delete(memoKey),
+    );
   }
   return known;
 }
@@ -57,7 +62,7 @@ class SeqMoved extends Error {
  * and written again with the stored number: numbers never repeat and never skip.
  */
 export async function recordChange(db: LocalDb, userId: number, change: NewChange): Promise<OutboxRow> {
-  const clientId = await clientIdFor(db, userId);
+  const clientId = settledClientIds.get(`${db.name}:${userId}`) ?? (await clientIdFor(db, userId));
   const seqKey = `nextSeq:${clientId}`;
   const memoKey = `${db.name}:${seqKey}`;
   const rowWith = (seq: number): OutboxRow => ({
