@@ -65,6 +65,9 @@ export function createApp(deps: AppDeps): Express {
   const api = express.Router();
   api.use(express.json({ limit: '256kb' }));
   api.use(cookieParser());
+  // The field path first: nearly every request on a tournament day is a phone's push or pull,
+  // and each router it has to pass before its own costs a little.
+  api.use(syncRoutes(ctx));
   api.use(healthRoutes(deps.version));
   api.use(authRoutes(ctx));
   api.use(myCardsRoutes(ctx));
@@ -76,7 +79,6 @@ export function createApp(deps: AppDeps): Express {
   api.use(staffRoutes(ctx));
   api.use(targetRoutes(ctx));
   api.use(printoutRoutes(ctx));
-  api.use(syncRoutes(ctx));
   api.use(joinRoutes(ctx));
   api.use(judgingRoutes(ctx));
   api.use(routeNotFound);

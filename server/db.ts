@@ -1,12 +1,14 @@
 import { mkdirSync } from 'node:fs';
 import { dirname } from 'node:path';
+import type { Database } from 'better-sqlite3';
 import knex, { type Knex } from 'knex';
 import { migrationSource } from './migrationSource';
+import { cacheStatements } from './statementCache';
 
 export type Db = Knex;
 
 /**
- * Opens the SQLite database file (creating its folder) with WAL and foreign keys on.
+ * Opens the SQLite database file (creating its folder) with WAL, full sync and foreign keys on.
  * Everything else goes through Knex's builder so a PostgreSQL deployment stays possible.
  */
 export function openDb(file: string): Db {
@@ -18,15 +20,17 @@ export function openDb(file: string): Db {
     pool: {
       min: 1,
       max: 1,
-      afterCreate(
-        conn: { pragma: (sql: string) => unknown },
-        done: (err: Error | null, conn: unknown) => void,
-      ) {
+      afterCreate(conn: Database, done: (err: Error | null, conn: unknown) => void) {
         try {
-          // These two pragmas are the only SQLite-specific statements: durability (WAL) and integrity (FKs).
+          // The only SQLite-specific statements: WAL, a disk flush at every commit, foreign keys.
+          // FULL is SQLite's own default, but better-sqlite3 builds SQLite to use NORMAL in WAL,
+          // where a power cut can take back commits already answered: phones would then have
+          // marked as delivered changes the server no longer holds.
           conn.pragma('journal_mode = WAL');
+          conn.pragma('synchronous = FULL');
           conn.pragma('foreign_keys = ON');
           conn.pragma('busy_timeout = 5000');
+          cacheStatements(conn);
           done(null, conn);
         } catch (err) {
           done(err as Error, conn);

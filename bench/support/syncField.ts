@@ -10,7 +10,12 @@ export const BENCH_SECRET = new TextEncoder().encode('bench-secret-bench-secret-
 
 export type BenchArcher = { entryId: number; target: number };
 export type BenchWriter = { userId: number; token: string; target: number; slot: 1 | 2 };
-export type BenchField = { sessionId: number; archers: BenchArcher[]; writers: BenchWriter[] };
+export type BenchField = {
+  eventId: number;
+  sessionId: number;
+  archers: BenchArcher[];
+  writers: BenchWriter[];
+};
 
 /**
  * A day's field written straight into a fresh database: one recurve division on the 70 m round,
@@ -98,16 +103,26 @@ export async function createBenchField(file: string, targets: number): Promise<B
     }
   }
   await db.destroy();
-  return { sessionId, archers, writers };
+  return { eventId, sessionId, archers, writers };
 }
 
-/** Starts bench/support/syncServerChild.ts on the database file and waits for its port. */
-export async function startServerChild(
-  file: string,
-): Promise<{ port: number; child: ChildProcess; stop: () => Promise<void> }> {
+/**
+ * Starts bench/support/syncServerChild.ts on the database file and waits for its port. With
+ * `BENCH_SERVER_PROFILE=<folder>` the child writes a V8 CPU profile there when it stops (Node
+ * refuses `--cpu-prof` in NODE_OPTIONS, so it has to be passed here).
+ */
+export async function startServerChild(file: string): Promise<{
+  port: number;
+  child: ChildProcess;
+  /** CPU time (user + system) the server has used so far, in ms. */
+  cpuMs: () => Promise<number>;
+  stop: () => Promise<void>;
+}> {
   const script = fileURLToPath(new URL('./syncServerChild.ts', import.meta.url));
-  const child = spawn(process.execPath, ['--import', 'tsx', script, file], {
-    stdio: ['ignore', 'pipe', 'inherit'],
+  const profile = process.env.BENCH_SERVER_PROFILE;
+  const profiling = profile ? ['--cpu-prof', '--cpu-prof-dir', profile] : [];
+  const child = spawn(process.execPath, [...profiling, '--import', 'tsx', script, file], {
+    stdio: ['ignore', 'pipe', 'inherit', 'ipc'],
   });
   const firstLine = await new Promise<string>((resolve, reject) => {
     const lines = createInterface({ input: child.stdout! });
@@ -117,10 +132,18 @@ export async function startServerChild(
     );
   });
   const { port } = JSON.parse(firstLine) as { port: number };
+  const cpuMs = () =>
+    new Promise<number>((resolve) => {
+      child.once('message', (usage) => {
+        const { user, system } = usage as NodeJS.CpuUsage;
+        resolve((user + system) / 1000);
+      });
+      child.send('cpu');
+    });
   const stop = () =>
     new Promise<void>((resolve) => {
       child.once('exit', () => resolve());
       child.kill('SIGTERM');
     });
-  return { port, child, stop };
+  return { port, child, cpuMs, stop };
 }

@@ -1,7 +1,8 @@
 /**
  * The server of bench/sync-server.bench.ts, in a process of its own so the simulated phones and
  * the server never share an event loop. Opens the given database file, starts the real app on a
- * loopback port and prints `{"port": N}` on its first line of output.
+ * loopback port and prints `{"port": N}` on its first line of output. Answers the message `cpu`
+ * (over the IPC channel) with its `process.cpuUsage()`.
  * Usage: node --import tsx bench/support/syncServerChild.ts <database file>
  */
 import { dirname } from 'node:path';
@@ -27,6 +28,10 @@ const app = createApp({
 });
 const server = app.listen(0, '127.0.0.1', () => {
   process.stdout.write(`${JSON.stringify({ port: (server.address() as AddressInfo).port })}\n`);
+});
+// The bench asks for the CPU time used so far, to tell the server's own cost from a busy machine's.
+process.on('message', (message) => {
+  if (message === 'cpu') process.send!(process.cpuUsage());
 });
 process.on('SIGTERM', () => {
   server.close();

@@ -5,7 +5,8 @@ const ACCESS_TTL_SECONDS = 15 * 60;
 const ISSUER = 'ringcall';
 const AUDIENCE = 'ringcall-api';
 
-export type AccessClaims = { userId: number };
+/** `expiresAt`: the token's `exp`, in seconds since the epoch. */
+export type AccessClaims = { userId: number; expiresAt: number };
 
 /** Short-lived access token (HS256 with the server's secret). */
 export async function signAccessToken(secret: Uint8Array, userId: number, now = new Date()) {
@@ -34,7 +35,8 @@ export async function verifyAccessToken(
   });
   const userId = Number(payload.sub);
   if (!Number.isInteger(userId) || userId <= 0) throw new Error('Token has no valid subject.');
-  return { userId };
+  if (payload.exp === undefined) throw new Error('Token has no expiry.');
+  return { userId, expiresAt: payload.exp };
 }
 
 /** An opaque random token (refresh, e-mail links); only its hash is stored. */

@@ -4,26 +4,28 @@ import { signClaim } from '../../signing/signatures';
 import { listInWords } from '../judging/endWords';
 import { cardContentHash, cardTotalsOf, type CardFacts } from '../signing/cardContent';
 import type { Author } from './effects';
-import type { FieldBatch, Placement } from './fieldBatch';
+import type { FieldBatch } from './fieldBatch';
+import type { Placement } from './fieldPlacements';
 import { findPlacement, refuse, roundOf } from './fieldRules';
 
 const ROLE_WORDS = { archer: 'the archer', scorer: 'the scorer' } as const;
 
 /** Who may sign a card in a role: the entry's own account as archer, a writer of the target as scorer. */
-function checkSigner(batch: FieldBatch, placement: Placement, role: CardSignArgs['role']): void {
+function checkSigner(placement: Placement, role: CardSignArgs['role'], userId: number): void {
   const name = placement.archerName;
   if (role === 'archer') {
-    if (placement.archerUserId !== batch.userId)
+    if (placement.archerUserId !== userId)
       refuse(
         `Only ${name} can countersign this card as the archer, signed in with the e-mail address on the entry list.`,
       );
     return;
   }
-  if (placement.task !== 'writer1' && placement.task !== 'writer2')
+  const task = placement.tasks.get(userId);
+  if (task !== 'writer1' && task !== 'writer2')
     refuse(
       `Only writer 1 or writer 2 of target ${placement.targetNumber} can sign ${name}'s card as scorer.`,
     );
-  if (placement.archerUserId === batch.userId)
+  if (placement.archerUserId === userId)
     refuse('You cannot sign your own card as scorer; the other writer signs it.');
 }
 
@@ -47,7 +49,7 @@ export async function applyCardSign(
 ): Promise<void> {
   const placement = findPlacement(batch, args);
   const name = placement.archerName;
-  checkSigner(batch, placement, args.role);
+  checkSigner(placement, args.role, by.userId);
   const round = roundOf(placement);
   const current = batch.cardSignature(args.sessionId, args.entryId, args.role);
   if (current) refuse(`${name}'s card is already signed by ${ROLE_WORDS[args.role]} (${current.dto.name}).`);
@@ -80,7 +82,7 @@ export async function applyCardSign(
   const jws = await signClaim(keys, {
     typ: 'ringcall-card',
     hash,
-    signer: [{ userId: by.userId, name: batch.personName, role: args.role }],
+    signer: [{ userId: by.userId, name: batch.nameOf(by.userId), role: args.role }],
     at: by.at,
     ref: { event: card.eventId, session: card.sessionId, entry: card.entryId },
     totals,
@@ -99,6 +101,6 @@ export async function applyCardSign(
       superseded_at: null,
       superseded_by_ruling: null,
     },
-    batch.personName,
+    batch.nameOf(by.userId),
   );
 }

@@ -20,7 +20,7 @@ export async function applyEndSign(
   by: Author,
   keys: SigningKeys,
 ): Promise<void> {
-  const checked = checkJudgeEnd(batch, args, 'sign an end');
+  const checked = checkJudgeEnd(batch, args, by.userId, 'sign an end');
   const { placement, endLabel } = checked;
   const current = batch.endSignature(args.sessionId, args.entryId, args.endIndex);
   if (current) refuse(`${endLabel} is already signed by ${current.dto.signedByName}.`);
@@ -43,7 +43,7 @@ export async function applyEndSign(
   const jws = await signClaim(keys, {
     typ: 'ringcall-end',
     hash,
-    signer: [{ userId: by.userId, name: batch.personName, role: 'judge' }],
+    signer: [{ userId: by.userId, name: batch.nameOf(by.userId), role: 'judge' }],
     at: by.at,
     ref: { event: ref.eventId, session: ref.sessionId, entry: ref.entryId, end: ref.endIndex },
   });
@@ -62,6 +62,6 @@ export async function applyEndSign(
       superseded_at: null,
       superseded_by_ruling: null,
     },
-    batch.personName,
+    batch.nameOf(by.userId),
   );
 }

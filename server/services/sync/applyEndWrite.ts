@@ -13,7 +13,13 @@ import { Refusal, checkArrows, checkEnd, refuseIfJudged } from './fieldRules';
  */
 export function applyEndWrite(batch: FieldBatch, args: EndWriteArgs, by: Author): void {
   const card = args.slot === 1 ? 'first' : 'second';
-  const checked = checkEnd(batch, args, args.slot === 1 ? 'writer1' : 'writer2', `write the ${card} card`);
+  const checked = checkEnd(
+    batch,
+    args,
+    by.userId,
+    args.slot === 1 ? 'writer1' : 'writer2',
+    `write the ${card} card`,
+  );
   refuseIfJudged(batch, checked, args.endIndex);
   checkArrows(checked, args.arrows, true);
   for (const { index, flag } of args.flags) {

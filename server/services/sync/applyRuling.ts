@@ -11,7 +11,7 @@ import { checkArrows, checkJudgeEnd, refuse } from './fieldRules';
  * Throws Refusal, changing nothing, when a rule is broken.
  */
 export function applyRuling(batch: FieldBatch, args: EndRuleArgs, by: Author): void {
-  const checked = checkJudgeEnd(batch, args, 'rule on an end');
+  const checked = checkJudgeEnd(batch, args, by.userId, 'rule on an end');
   checkArrows(checked, args.arrows, false);
   if (args.photoId !== undefined && batch.photoEvent(args.photoId) !== checked.placement.session.eventId)
     refuse("That photo is not one of this event's photos. Upload it again from this event's judge desk.");

@@ -15,7 +15,7 @@ export const STALE_BASIS_REASON = 'A writer changed this end after you looked at
  * nothing, when a rule is broken.
  */
 export function applySettlement(batch: FieldBatch, args: EndSettleArgs, by: Author): void {
-  const checked = checkEnd(batch, args, 'caller', 'settle an end');
+  const checked = checkEnd(batch, args, by.userId, 'caller', 'settle an end');
   refuseIfJudged(batch, checked, args.endIndex);
   const { endLabel } = checked;
 

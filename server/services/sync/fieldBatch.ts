@@ -1,7 +1,6 @@
-import { endsOfRound, type EndFacts, type RoundDefinition, type RoundEnd } from '../../../src/core';
-import type { BowStyleName } from '../../../src/contract/events';
+import type { EndFacts } from '../../../src/core';
 import type { CardSignatureDto, EndSignatureDto, RulingDto } from '../../../src/contract/judging';
-import type { EndRecordDto, Mutation, SettlementDto, Task } from '../../../src/contract/sync';
+import type { EndRecordDto, Mutation, SettlementDto } from '../../../src/contract/sync';
 import type { Db } from '../../db';
 import { endFactsOf } from '../judging/endRecords';
 import {
@@ -16,25 +15,7 @@ import {
   type RulingRow,
   type SettlementRow,
 } from './fieldRows';
-
-export type FieldSession = { id: number; eventId: number; name: string; closed: boolean };
-
-/** Where an archer shoots in a session, what, and the pushing person's task on that target. */
-export type Placement = {
-  session: FieldSession;
-  entryId: number;
-  archerName: string;
-  /** The account linked to the entry (the archer who countersigns), if any. */
-  archerUserId: number | null;
-  divisionName: string;
-  targetNumber: number;
-  bowStyle: BowStyleName;
-  /** Null when the archer's division has no round in the session. */
-  round: RoundDefinition | null;
-  ends: RoundEnd[];
-  /** The pushing person's task on the archer's target, if they are in its group. */
-  task: Task | undefined;
-};
+import { loadPlacements, type FieldSession, type Placement } from './fieldPlacements';
 
 export type ChangeRecord =
   | { type: 'end'; record: EndRecordDto }
@@ -70,31 +51,18 @@ const endKey = (sessionId: number, entryId: number, endIndex: number) =>
   `${sessionId}:${entryId}:${endIndex}`;
 const cardKey = (sessionId: number, entryId: number) => `${sessionId}:${entryId}`;
 
-// Rounds are stored as JSON snapshots; the same few strings come back on every push.
-const rounds = new Map<string, { round: RoundDefinition; ends: RoundEnd[] }>();
-function parseRound(json: string): { round: RoundDefinition; ends: RoundEnd[] } {
-  let parsed = rounds.get(json);
-  if (!parsed) {
-    const round = JSON.parse(json) as RoundDefinition;
-    parsed = { round, ends: endsOfRound(round) };
-    if (rounds.size > 200) rounds.clear();
-    rounds.set(json, parsed);
-  }
-  return parsed;
-}
-
 const hasEnd = (m: Mutation): m is Extract<Mutation, { args: { endIndex: number } }> =>
   m.kind !== 'card.sign';
 
 /**
- * One push as a unit of work: everything its mutations are checked against is read up front
- * (a few queries whatever the batch size), the mutations are applied in order to this
- * in-memory state by the rules, and `flush` writes the outcome back with multi-row statements.
- * It lives inside the push's transaction, so what it read stays true until it writes.
+ * The pushes of one commit as a unit of work: everything their mutations are checked against is
+ * read up front (a few queries whatever the number of pushes and mutations), the mutations are
+ * applied in order to this in-memory state by the rules, and `flush` writes the outcome back
+ * with multi-row statements. It lives inside the commit's transaction, so what it read stays
+ * true until it writes. Several people's pushes share it: what depends on the person (task on
+ * a target, judge roles, name) is kept by user id.
  */
 export class FieldBatch {
-  private readonly sessions = new Map<number, FieldSession>();
-  private readonly placements = new Map<string, Placement>();
   private readonly records = new Map<string, EndEntryRow>();
   private readonly touchedRecords = new Set<string>();
   private readonly settlements = new Map<string, SettlementRow>();
@@ -110,91 +78,36 @@ export class FieldBatch {
   >();
   /** In a writers' batch, only whether each named end is ruled on or signed. */
   private readonly judgedEnds = new Map<string, 'ruled' | 'signed'>();
-  private readonly judgeOf = new Set<number>();
+  /** `userId:eventId` of each pushing person's judge roles. */
+  private readonly judgeOf = new Set<string>();
+  /** The pushing people's names, as signatures show them (read when the commit has judging mutations). */
+  private readonly names = new Map<number, string>();
   private readonly photoEvents = new Map<number, number>();
   private readonly ops: JudgeOp[] = [];
   /** Applied effects in order, for the change log. */
   readonly changes: { placement: Placement; change: ChangeRecord }[] = [];
   /** Cards that became final (both signatures) in this batch, to mail once it is committed. */
   readonly finalCards: { sessionId: number; entryId: number }[] = [];
-  /** The pushing person's name, as signatures show it. */
-  personName = '';
 
-  private constructor(readonly userId: number) {}
+  private constructor(
+    private readonly sessions: Map<number, FieldSession>,
+    private readonly placements: Map<string, Placement>,
+  ) {}
 
-  static async load(trx: Db, userId: number, mutations: readonly Mutation[]): Promise<FieldBatch> {
-    const batch = new FieldBatch(userId);
-    if (mutations.length === 0) return batch;
+  /** Reads what `mutations`, pushed by the people `userIds`, are checked against. */
+  static async load(
+    trx: Db,
+    mutations: readonly Mutation[],
+    userIds: readonly number[],
+  ): Promise<FieldBatch> {
+    if (mutations.length === 0) return new FieldBatch(new Map(), new Map());
     const sessionIds = [...new Set(mutations.map((m) => m.args.sessionId))];
     const entryIds = [...new Set(mutations.map((m) => m.args.entryId))];
     const endIndexes = [...new Set(mutations.filter(hasEnd).map((m) => m.args.endIndex))];
     const judging = mutations.some((m) => m.kind !== 'end.write' && m.kind !== 'end.settle');
 
-    // Sessions, the archers' places and rounds, and this person's task on each archer's target: one query.
-    const rows = (await trx('event_sessions as s')
-      .leftJoin('target_assignments as ta', (j) =>
-        j.on('ta.session_id', 's.id').andOnIn('ta.entry_id', entryIds),
-      )
-      .leftJoin('entries as e', 'e.id', 'ta.entry_id')
-      .leftJoin('divisions as d', 'd.id', 'e.division_id')
-      .leftJoin('session_divisions as sd', (j) =>
-        j.on('sd.session_id', 's.id').andOn('sd.division_id', 'e.division_id'),
-      )
-      .leftJoin('target_members as tm', (j) =>
-        j
-          .on('tm.session_id', 's.id')
-          .andOn('tm.target_number', 'ta.target_number')
-          .andOnVal('tm.user_id', '=', userId),
-      )
-      .whereIn('s.id', sessionIds)
-      .select(
-        's.id as session_id',
-        's.event_id',
-        's.name as session_name',
-        's.closed_at',
-        'ta.entry_id',
-        'ta.target_number',
-        'e.name as archer_name',
-        'e.user_id as archer_user_id',
-        'd.name as division_name',
-        'd.bow_style',
-        'sd.round_json',
-        'tm.task',
-      )) as {
-      session_id: number;
-      event_id: number;
-      session_name: string;
-      closed_at: string | null;
-      entry_id: number | null;
-      target_number: number | null;
-      archer_name: string | null;
-      archer_user_id: number | null;
-      division_name: string | null;
-      bow_style: BowStyleName | null;
-      round_json: string | null;
-      task: Task | null;
-    }[];
-    for (const r of rows) {
-      let session = batch.sessions.get(r.session_id);
-      if (!session) {
-        session = { id: r.session_id, eventId: r.event_id, name: r.session_name, closed: !!r.closed_at };
-        batch.sessions.set(session.id, session);
-      }
-      if (r.entry_id === null) continue;
-      const parsed = r.round_json ? parseRound(r.round_json) : null;
-      batch.placements.set(`${r.session_id}:${r.entry_id}`, {
-        session,
-        entryId: r.entry_id,
-        archerName: r.archer_name!,
-        archerUserId: r.archer_user_id,
-        divisionName: r.division_name!,
-        targetNumber: Number(r.target_number),
-        bowStyle: r.bow_style!,
-        round: parsed?.round ?? null,
-        ends: parsed?.ends ?? [],
-        task: r.task ?? undefined,
-      });
-    }
+    const { sessions, placements } = await loadPlacements(trx, sessionIds, entryIds, userIds);
+    const batch = new FieldBatch(sessions, placements);
 
     // The writers' records of every end the batch names (a superset; filtered by key).
     const near = (table: string) =>
@@ -223,18 +136,19 @@ export class FieldBatch {
       }
       return batch;
     }
-    await batch.loadJudging(trx, mutations, { sessionIds, entryIds, endIndexes });
+    await batch.loadJudging(trx, mutations, userIds, { sessionIds, entryIds, endIndexes });
     return batch;
   }
 
   /**
    * What judging mutations are checked against: the settlements of the named ends, the latest
    * ruling of each, the current signatures of every end of these archers (a card needs all of
-   * them) and of their cards, the person's judge roles and name, and the photos named.
+   * them) and of their cards, the people's judge roles and names, and the photos named.
    */
   private async loadJudging(
     trx: Db,
     mutations: readonly Mutation[],
+    userIds: readonly number[],
     ids: { sessionIds: number[]; entryIds: number[]; endIndexes: number[] },
   ): Promise<void> {
     const ofCards = (table: string) =>
@@ -276,11 +190,12 @@ export class FieldBatch {
     }
 
     const eventIds = [...new Set([...this.sessions.values()].map((s) => s.eventId))];
-    const roles = await trx('event_roles')
-      .where({ user_id: this.userId, role: 'judge' })
+    const roles = (await trx('event_roles')
+      .where({ role: 'judge' })
+      .whereIn('user_id', [...userIds])
       .whereIn('event_id', eventIds)
-      .pluck('event_id');
-    for (const eventId of roles) this.judgeOf.add(Number(eventId));
+      .select('user_id', 'event_id')) as { user_id: number; event_id: number }[];
+    for (const r of roles) this.judgeOf.add(`${r.user_id}:${r.event_id}`);
     const photoIds = mutations.flatMap((m) =>
       m.kind === 'end.rule' && m.args.photoId !== undefined ? [m.args.photoId] : [],
     );
@@ -288,8 +203,13 @@ export class FieldBatch {
       for (const p of await trx('photos').whereIn('id', photoIds).select('id', 'event_id'))
         this.photoEvents.set(p.id, p.event_id);
     }
-    const person = await trx('users').where({ id: this.userId }).first('display_name');
-    this.personName = person?.display_name ?? '';
+    const people = (await trx('users')
+      .whereIn('id', [...userIds])
+      .select('id', 'display_name')) as {
+      id: number;
+      display_name: string;
+    }[];
+    for (const p of people) this.names.set(p.id, p.display_name);
   }
 
   session(sessionId: number): FieldSession | undefined {
@@ -300,8 +220,13 @@ export class FieldBatch {
     return this.placements.get(`${session.id}:${entryId}`);
   }
 
-  isJudge(eventId: number): boolean {
-    return this.judgeOf.has(eventId);
+  isJudge(userId: number, eventId: number): boolean {
+    return this.judgeOf.has(`${userId}:${eventId}`);
+  }
+
+  /** A pushing person's name, as signatures show it (known when the push has judging mutations). */
+  nameOf(userId: number): string {
+    return this.names.get(userId) ?? '';
   }
 
   /** The event a photo belongs to, if the photo exists. */

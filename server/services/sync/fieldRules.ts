@@ -6,7 +6,8 @@ import {
   type RoundEnd,
 } from '../../../src/core';
 import type { Task } from '../../../src/contract/sync';
-import type { FieldBatch, FieldSession, Placement } from './fieldBatch';
+import type { FieldBatch } from './fieldBatch';
+import type { FieldSession, Placement } from './fieldPlacements';
 import { taskInSentence } from './tasks';
 
 /**
@@ -72,12 +73,13 @@ function endOf(placement: Placement, endIndex: number): CheckedEnd {
 
 /**
  * The checks every writer's and caller's mutation shares: the session exists and is open, the
- * archer is on a target in it, the person keeps `task` on that target, and the end is one of the
- * archer's round.
+ * archer is on a target in it, the person `userId` keeps `task` on that target, and the end is
+ * one of the archer's round.
  */
 export function checkEnd(
   batch: FieldBatch,
   where: { sessionId: number; entryId: number; endIndex: number },
+  userId: number,
   task: Task,
   doing: string,
 ): CheckedEnd {
@@ -86,7 +88,7 @@ export function checkEnd(
   if (session.closed)
     refuse(`The session "${session.name}" is closed, so its ends can no longer change. Ask a judge.`);
 
-  const held = placement.task;
+  const held = placement.tasks.get(userId);
   if (!held)
     refuse(`You are not in the group of target ${target}. Join it with the code on the target sheet.`);
   if (held !== task)
@@ -95,17 +97,18 @@ export function checkEnd(
 }
 
 /**
- * The checks of a judge's mutation: the session exists, the person is a judge of its event, the
- * archer is on a target, the end is one of their round. Judges may still act in a closed session:
- * closing stops the writers, and judges finish the rulings and signatures after it.
+ * The checks of a judge's mutation: the session exists, the person `userId` is a judge of its
+ * event, the archer is on a target, the end is one of their round. Judges may still act in a
+ * closed session: closing stops the writers, and judges finish the rulings and signatures after it.
  */
 export function checkJudgeEnd(
   batch: FieldBatch,
   where: { sessionId: number; entryId: number; endIndex: number },
+  userId: number,
   doing: string,
 ): CheckedEnd {
   const placement = findPlacement(batch, where, (session) => {
-    if (!batch.isJudge(session.eventId)) refuse(`Only a judge of this event can ${doing}.`);
+    if (!batch.isJudge(userId, session.eventId)) refuse(`Only a judge of this event can ${doing}.`);
   });
   return endOf(placement, where.endIndex);
 }

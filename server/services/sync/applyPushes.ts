@@ -1,0 +1,126 @@
+import type { MutationResult, PushRequest, PushResponse } from '../../../src/contract/sync';
+import type { Db } from '../../db';
+import type { Outcome } from '../../groupCommit';
+import { forbidden } from '../../http/httpError';
+import type { SigningKeys } from '../../signing/serverKeys';
+import { nowIso } from '../../time';
+import { applyMutation } from './applyMutation';
+import { FieldBatch } from './fieldBatch';
+import { KnownMutations, answerFromStore, type Sequenced, type Step } from './pushSequence';
+
+/** One phone's push as one commit takes it in. */
+export type Push = { userId: number; request: PushRequest; signingKeys?: SigningKeys };
+
+export type CardRef = { sessionId: number; entryId: number };
+
+/** A push's answer, and the cards it made final (mailed once it is committed). */
+export type PushDone = { response: PushResponse; finalCards: CardRef[] };
+
+type ClientState = { userId: number; lastSeq: number; storedSeq: number | undefined };
+
+const notYours = () =>
+  forbidden(
+    'This phone’s changes belong to another account. Sign in as that person to send them, or ask a judge.',
+  );
+
+/**
+ * Applies the pushes of one commit, in arrival order, each exactly as if it had been committed on
+ * its own: a phone whose client id belongs to another account is refused before anything is
+ * written; every other push is sequenced, its mutations applied to one shared FieldBatch, and
+ * the effects, the log rows and each phone's last seq are written with a few multi-row
+ * statements. Throws only when something unexpected fails (the caller then undoes it all).
+ */
+export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Outcome<PushDone>[]> {
+  const clients = await readClients(trx, pushes);
+  const known = await KnownMutations.load(
+    trx,
+    pushes.map((p) => p.request),
+    (clientId) => clients.get(clientId)?.lastSeq ?? 0,
+  );
+
+  const plans: (Sequenced & { push: Push; done: PushDone })[] = [];
+  const outcomes: Outcome<PushDone>[] = pushes.map((push) => {
+    const { clientId } = push.request;
+    const client = clients.get(clientId);
+    if (client && client.userId !== push.userId) return { error: notYours() };
+    const mutations = [...push.request.mutations].sort((a, b) => a.seq - b.seq);
+    const sequenced = known.sequence(clientId, mutations, client?.lastSeq ?? 0);
+    const done: PushDone = { response: { results: [], lastSeq: sequenced.lastSeq }, finalCards: [] };
+    clients.set(clientId, { userId: push.userId, lastSeq: sequenced.lastSeq, storedSeq: client?.storedSeq });
+    plans.push({ ...sequenced, push, done });
+    return { value: done };
+  });
+
+  const batch = await FieldBatch.load(
+    trx,
+    plans.flatMap((p) => p.steps.flatMap((s) => ('apply' in s ? [s.m] : []))),
+    [...new Set(plans.map((p) => p.push.userId))],
+  );
+  const receivedAt = nowIso();
+  const logRows: object[] = [];
+  for (const { push, done, steps, lastSeq, expectedSeq } of plans) {
+    const finalBefore = batch.finalCards.length;
+    const results: MutationResult[] = [];
+    for (const step of steps) results.push(await resultOf(step, push));
+    done.response = { results, lastSeq, ...(expectedSeq !== undefined ? { expectedSeq } : {}) };
+    done.finalCards = batch.finalCards.slice(finalBefore);
+  }
+
+  async function resultOf(step: Step, push: Push): Promise<MutationResult> {
+    const { m } = step;
+    if ('answer' in step) return step.answer;
+    if ('sameAs' in step) return answerFromStore(m, step.sameAs.outcome!);
+    const by = { userId: push.userId, at: m.at, mutationId: m.id };
+    const reason = await applyMutation(batch, m, by, push.signingKeys);
+    step.apply.outcome = { mutation_uuid: m.id, status: reason === null ? 'applied' : 'rejected', reason };
+    logRows.push({
+      ...step.apply.outcome,
+      client_id: push.request.clientId,
+      seq: m.seq,
+      user_id: push.userId,
+      kind: m.kind,
+      args_json: JSON.stringify(m.args),
+      at: m.at,
+      received_at: receivedAt,
+    });
+    return reason === null
+      ? { seq: m.seq, id: m.id, status: 'applied' }
+      : { seq: m.seq, id: m.id, status: 'rejected', reason };
+  }
+
+  await batch.flush(trx);
+  for (let i = 0; i < logRows.length; i += 200) await trx('mutations').insert(logRows.slice(i, i + 200));
+  await writeClients(trx, clients, receivedAt);
+  return outcomes;
+}
+
+/** Each phone's account and last seq as stored (`storedSeq`); phones new to the server are missing. */
+async function readClients(trx: Db, pushes: readonly Push[]): Promise<Map<string, ClientState>> {
+  const rows = (await trx('sync_clients')
+    .whereIn('client_id', [...new Set(pushes.map((p) => p.request.clientId))])
+    .select('client_id', 'user_id', 'last_seq')) as {
+    client_id: string;
+    user_id: number;
+    last_seq: number;
+  }[];
+  return new Map(
+    rows.map((r) => [r.client_id, { userId: r.user_id, lastSeq: r.last_seq, storedSeq: r.last_seq }]),
+  );
+}
+
+/** Stores each new phone, and the last seq of each phone whose sequence moved, in one statement. */
+async function writeClients(trx: Db, clients: Map<string, ClientState>, at: string): Promise<void> {
+  const rows = [...clients]
+    .filter(([, c]) => c.lastSeq !== c.storedSeq)
+    .map(([clientId, c]) => ({
+      client_id: clientId,
+      user_id: c.userId,
+      last_seq: c.lastSeq,
+      updated_at: at,
+    }));
+  for (let i = 0; i < rows.length; i += 200)
+    await trx('sync_clients')
+      .insert(rows.slice(i, i + 200))
+      .onConflict('client_id')
+      .merge(['last_seq', 'updated_at']);
+}
