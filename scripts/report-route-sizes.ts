@@ -1,6 +1,7 @@
 /**
  * Prints, for each route, the JavaScript a phone downloads on first load of that route (gzip):
- * the entry chunk and its static imports, plus the route's lazy chunk and its static imports.
+ * the entry chunk and its static imports, plus the route's lazy chunk and its static imports, plus
+ * the query cache's chunk for screens that read server data.
  */
 import { readFileSync } from 'node:fs';
 import { gzipSync } from 'node:zlib';
@@ -30,10 +31,19 @@ const entryKey = Object.keys(manifest).find((k) => manifest[k]!.isEntry && k.end
 if (!entryKey) throw new Error('No entry chunk in the Vite manifest.');
 const shell = closure([entryKey]);
 
+/** Loaded by `lazyScreen` together with every screen that reads server data (the query cache). */
+const SERVER_DATA = 'src/app/ServerData.tsx';
+const queryLibrary = [...closure([SERVER_DATA], new Set(shell))].filter((k) => !shell.has(k) && k !== SERVER_DATA);
+
 export function routeSizes(): { route: string; kib: number }[] {
   const rows = [{ route: '(app shell)', kib: gzipKiB(shell) }];
-  for (const key of (manifest[entryKey!]!.dynamicImports ?? []).filter((k) => k.startsWith('src/'))) {
+  const screens = (manifest[entryKey!]!.dynamicImports ?? []).filter(
+    (k) => k.startsWith('src/') && k !== SERVER_DATA,
+  );
+  for (const key of screens) {
     const files = closure([key], new Set(shell));
+    // A screen that uses the query library is one lazyScreen opens with the query cache.
+    if (queryLibrary.some((k) => files.has(k))) closure([SERVER_DATA], files);
     const name = key.replace(/^src\//, '').replace(/\.tsx?$/, '');
     rows.push({ route: name, kib: gzipKiB(files) });
   }

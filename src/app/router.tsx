@@ -25,6 +25,7 @@ function ScreenArea() {
  * Each screen is its own lazily loaded chunk, so a phone downloads the pad without the organizer's
  * screens. Declarative routes, not a data router: screens load their data with TanStack Query and
  * Dexie, and the data router's state machine added ~16 KiB gzip to every screen's first load.
+ * The query library itself comes with the first screen that needs it (see lazyScreen).
  */
 const routes: RouteObject[] = [
   {
@@ -50,7 +51,10 @@ const routes: RouteObject[] = [
               async () => (await import('../features/mail/CaughtMailScreen')).CaughtMailScreen,
             ),
           },
-          { path: '*', element: lazyScreen(async () => (await import('./NotFound')).NotFound) },
+          {
+            path: '*',
+            element: lazyScreen(async () => (await import('./NotFound')).NotFound, { serverData: false }),
+          },
         ],
       },
     ],

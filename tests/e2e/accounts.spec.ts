@@ -19,8 +19,14 @@ test('a person creates an account, sees it on the home screen, signs out and bac
   await page.reload();
   await expect(page.getByTestId('signed-in-name')).toHaveText('Noor Pennock');
 
+  // Signing out in one tab signs out the app's other tabs too.
+  const otherTab = await page.context().newPage();
+  await otherTab.goto('/');
+  await expect(otherTab.getByTestId('signed-in-name')).toHaveText('Noor Pennock');
   await page.getByRole('button', { name: 'Sign out' }).click();
   await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
+  await expect(otherTab.getByRole('link', { name: 'Sign in' })).toBeVisible();
+  await otherTab.close();
   await page.reload();
   await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
 

@@ -18,12 +18,8 @@ async function signIn(page: Page, email: string, next: string) {
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(DEMO_PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
-  // The query cache reaches localStorage up to a second later; a reload before that restores the
-  // signed-out state saved before signing in and sends the person back to the sign-in screen.
-  await page.waitForFunction(
-    (address) => (localStorage.getItem('ringcall.query-cache') ?? '').includes(address),
-    email,
-  );
+  // Signed in once the phone has saved who it is (a reload reads it from there).
+  await page.waitForFunction((address) => (localStorage.getItem('ringcall.me') ?? '').includes(address), email);
 }
 
 const csv = (rows: string[]) => ({

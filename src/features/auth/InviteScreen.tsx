@@ -1,24 +1,23 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '@tanstack/react-query';
 import { Link, useSearchParams } from 'react-router-dom';
 import { apiRequest } from '../../api/request';
 import type { EventRole } from '../../contract/auth';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
-import { meQuery, useMe } from './api/me';
+import { checkMe, useMe } from './api/me';
 
 /** Opened from an invitation mail: accept the role, signing in or creating an account first. */
 export function InviteScreen() {
   const [params] = useSearchParams();
   const token = params.get('token') ?? '';
   const me = useMe();
-  const client = useQueryClient();
   const accept = useMutation({
     mutationFn: () =>
       apiRequest<{ eventId: number; role: EventRole }>('/api/invitations/accept', {
         method: 'POST',
         body: JSON.stringify({ token }),
       }),
-    onSuccess: () => client.invalidateQueries({ queryKey: meQuery.queryKey }),
+    onSuccess: () => checkMe(),
   });
   const back = encodeURIComponent(`/invite?token=${token}`);
 

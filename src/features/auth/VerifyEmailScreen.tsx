@@ -1,18 +1,17 @@
 import { useEffect, useRef } from 'react';
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '@tanstack/react-query';
 import { Link, useSearchParams } from 'react-router-dom';
 import { apiRequest } from '../../api/request';
 import { Notice } from '../../ui/Notice';
-import { meQuery } from './api/me';
+import { checkMe } from './api/me';
 
 export function VerifyEmailScreen() {
   const [params] = useSearchParams();
   const token = params.get('token') ?? '';
-  const client = useQueryClient();
   const verify = useMutation({
     mutationFn: () =>
       apiRequest<unknown>('/api/auth/verify-email', { method: 'POST', body: JSON.stringify({ token }) }),
-    onSuccess: () => client.invalidateQueries({ queryKey: meQuery.queryKey }),
+    onSuccess: () => checkMe(),
   });
   const started = useRef(false);
   const { mutate } = verify;

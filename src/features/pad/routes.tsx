@@ -5,6 +5,7 @@ export const padRoutes: RouteObject[] = [
   { path: 'join', element: lazyScreen(async () => (await import('../join/JoinScreen')).JoinScreen) },
   {
     path: 'pad/:sessionId/:targetNumber',
-    element: lazyScreen(async () => (await import('./PadScreen')).PadScreen),
+    // Works from IndexedDB alone: the field screen loads without the query library.
+    element: lazyScreen(async () => (await import('./PadScreen')).PadScreen, { serverData: false }),
   },
 ];

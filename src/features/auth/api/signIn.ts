@@ -3,7 +3,7 @@ import { apiRequest } from '../../../api/request';
 import { serverFetch } from '../../../api/serverFetch';
 import type { AuthSession, SignInInput, SignUpInput } from '../../../contract/auth';
 import { setSession } from '../session';
-import { meQuery } from './me';
+import { checkMe, setMe } from './me';
 
 async function startSession(path: string, body: unknown): Promise<AuthSession> {
   const response = await serverFetch(path, {
@@ -22,12 +22,11 @@ async function startSession(path: string, body: unknown): Promise<AuthSession> {
 }
 
 function useSessionMutation<T>(path: string) {
-  const client = useQueryClient();
   return useMutation({
     mutationFn: (input: T) => startSession(path, input),
     onSuccess: async (session) => {
       setSession(session);
-      await client.invalidateQueries({ queryKey: meQuery.queryKey });
+      await checkMe();
     },
   });
 }
@@ -41,7 +40,7 @@ export function useSignOut() {
     mutationFn: () => apiRequest<void>('/api/auth/sign-out', { method: 'POST' }).catch(() => undefined),
     onSuccess: async () => {
       setSession(undefined);
-      client.setQueryData(meQuery.queryKey, null);
+      setMe(null);
       await client.invalidateQueries();
     },
   });

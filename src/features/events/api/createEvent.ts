@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateEventInput, EventDetails } from '../../../contract/events';
-import { meQuery } from '../../auth/api/me';
+import { checkMe } from '../../auth/api/me';
 import { eventKeys, jsonBody, send } from './eventKeys';
 
 export const createEvent = (input: CreateEventInput) =>
@@ -15,7 +15,7 @@ export function useCreateEvent() {
       // The creator is now an organizer: both the event list and their roles change.
       await Promise.all([
         client.invalidateQueries({ queryKey: eventKeys.list }),
-        client.invalidateQueries({ queryKey: meQuery.queryKey }),
+        checkMe(),
       ]);
     },
   });
