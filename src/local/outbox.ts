@@ -1,6 +1,8 @@
 import type { EndSettleArgs, EndWriteArgs, Mutation } from '../contract/sync';
 import type { CardSignArgs, EndRuleArgs, EndSignArgs } from '../contract/judging';
+import { Dexie } from 'dexie';
 import { cardKeyOf, endKeyOf, type LocalDb, type OutboxRow } from './db';
+import { writeAtOnce } from './writeAtOnce';
 
 /** This phone's identity towards the server: one sequence per install and person. */
 const knownClientIds = new Map<string, Promise<string>>();
@@ -44,65 +46,75 @@ const subjectKey = (change: NewChange) =>
 
 /** The next sequence number per client, as last committed from this page (see recordChange). */
 const knownNextSeq = new Map<string, number>();
+/** Per person on this page, the change being stored now: the next one starts after it. */
+const inFlight = new Map<string, Promise<unknown>>();
 
-/** The stored counter moved on (another tab of the app wrote a change): try again from it. */
-class SeqMoved extends Error {
-  constructor(readonly stored: number) {
-    super('The change counter moved on in another tab.');
-  }
+/**
+ * The next number from what is stored. Outbox rows are never deleted, so the highest stored
+ * number is the last one used; the saved counter is kept for app versions that read it.
+ */
+async function storedNextSeq(db: LocalDb, clientId: string): Promise<number> {
+  const [last, counter] = await db.transaction('r', db.outbox, db.meta, () =>
+    Promise.all([
+      db.outbox.where('[clientId+seq]').between([clientId, Dexie.minKey], [clientId, Dexie.maxKey]).last(),
+      db.meta.get(`nextSeq:${clientId}`),
+    ]),
+  );
+  return Math.max((last?.seq ?? 0) + 1, (counter?.value as number | undefined) ?? 1);
 }
 
 /**
  * Records a change in the outbox. The outbox row is the phone's own state change (the pad shows
  * pending rows over the server's copy), so the change and its outbox entry are one write.
  *
- * The row and the new counter are written together with the read of the stored counter, using
- * the number this page saw last, so a tap costs one round trip to the database. If another tab
- * moved the counter, the read tells (or `add` hits the existing row), the transaction is undone
- * and written again with the stored number: numbers never repeat and never skip.
+ * A tap costs one write that commits at once (see writeAtOnce), using the number this page used
+ * last plus one. If another tab of the app took that number, the row's key exists, nothing is
+ * stored, and the change is written again with the number read from the database: numbers never
+ * repeat and never skip. Changes from one page are stored one after another, in tap order.
  */
-export async function recordChange(db: LocalDb, userId: number, change: NewChange): Promise<OutboxRow> {
+export function recordChange(db: LocalDb, userId: number, change: NewChange): Promise<OutboxRow> {
+  const queueKey = `${db.name}:${userId}`;
+  const before = inFlight.get(queueKey);
+  const store = () => storeChange(db, userId, change);
+  // Nothing in flight (the usual tap): the write starts within the tap's own task.
+  const stored = before ? before.then(store, store) : store();
+  const settled = stored.catch(() => undefined);
+  inFlight.set(queueKey, settled);
+  void settled.then(() => {
+    if (inFlight.get(queueKey) === settled) inFlight.delete(queueKey);
+  });
+  return stored;
+}
+
+async function storeChange(db: LocalDb, userId: number, change: NewChange): Promise<OutboxRow> {
   const clientId = settledClientIds.get(`${db.name}:${userId}`) ?? (await clientIdFor(db, userId));
   const seqKey = `nextSeq:${clientId}`;
   const memoKey = `${db.name}:${seqKey}`;
-  const rowWith = (seq: number): OutboxRow => ({
-    clientId,
-    seq,
-    id: crypto.randomUUID(),
-    userId,
-    kind: change.kind,
-    args: change.args,
-    at: new Date().toISOString(),
-    endKey: subjectKey(change),
-    status: 'pending',
-  });
   for (let attempt = 0; ; attempt += 1) {
-    const guess = knownNextSeq.get(memoKey);
+    const seq = knownNextSeq.get(memoKey) ?? (await storedNextSeq(db, clientId));
+    const row: OutboxRow = {
+      clientId,
+      seq,
+      id: crypto.randomUUID(),
+      userId,
+      kind: change.kind,
+      args: change.args,
+      at: new Date().toISOString(),
+      endKey: subjectKey(change),
+      status: 'pending',
+    };
     try {
-      const row = await db.transaction('rw', db.outbox, db.meta, async () => {
-        if (guess === undefined) {
-          const seq = ((await db.meta.get(seqKey))?.value as number | undefined) ?? 1;
-          const row = rowWith(seq);
-          await db.outbox.add(row);
-          await db.meta.put({ key: seqKey, value: seq + 1 });
-          return row;
-        }
-        const row = rowWith(guess);
-        const [stored] = await Promise.all([
-          db.meta.get(seqKey),
-          db.outbox.add(row),
-          db.meta.put({ key: seqKey, value: guess + 1 }),
-        ]);
-        const storedSeq = (stored?.value as number | undefined) ?? 1;
-        if (storedSeq !== guess) throw new SeqMoved(storedSeq);
-        return row;
-      });
-      knownNextSeq.set(memoKey, row.seq + 1);
+      await writeAtOnce(db, [
+        { table: db.outbox, type: 'add', value: row },
+        { table: db.meta, type: 'put', value: { key: seqKey, value: seq + 1 } },
+      ]);
+      knownNextSeq.set(memoKey, seq + 1);
       return row;
     } catch (error) {
       knownNextSeq.delete(memoKey);
-      const moved = error instanceof SeqMoved || (error instanceof Error && error.name === 'ConstraintError');
-      if (!moved || guess === undefined || attempt > 0) throw error;
+      // Another tab keeps taking numbers: give up after a few rounds rather than loop.
+      const taken = (error as { name?: unknown } | undefined)?.name === 'ConstraintError';
+      if (!taken || attempt >= 4) throw error;
     }
   }
 }

@@ -1,5 +1,6 @@
 import 'fake-indexeddb/auto';
-import { afterEach, describe, expect, it } from 'vitest';
+import { liveQuery } from 'dexie';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { LocalDb } from '../../src/local/db';
 import { clientIdFor, exportWaiting, recordChange, waitingCount } from '../../src/local/outbox';
 import { syncOnce, type SyncTransport } from '../../src/local/syncEngine';
@@ -68,6 +69,19 @@ describe('the outbox', () => {
     expect(stored.map((r) => r.seq)).toEqual([1, 2, 3, 4, 5]);
     expect(stored.map((r) => r.id).slice(1, 3)).toEqual(['other-tab-2', 'other-tab-3']);
     expect((await db.meta.get(seqKey))?.value).toBe(6);
+  });
+
+  it('tells live queries of a recorded change, so the pad and the waiting count refresh', async () => {
+    const db = freshDb();
+    await recordChange(db, 5, write(0, ['X']));
+    const seen: number[] = [];
+    const subscription = liveQuery(() => db.outbox.where('status').equals('pending').count()).subscribe((n) =>
+      seen.push(n),
+    );
+    await vi.waitFor(() => expect(seen).toEqual([1]));
+    await recordChange(db, 5, write(0, ['X', '9']));
+    await vi.waitFor(() => expect(seen).toEqual([1, 2]));
+    subscription.unsubscribe();
   });
 
   it('survives closing and reopening the database (a reload)', async () => {

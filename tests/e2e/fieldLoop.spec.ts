@@ -20,11 +20,11 @@ async function signedInPhone(browser: Browser, email: string): Promise<Page> {
   return page;
 }
 
-async function join(page: Page, code: string, task: RegExp) {
+async function join(page: Page, code: string, task: RegExp, target = TARGET) {
   await page.goto(`/join?code=${code}`);
   await page.getByRole('radio', { name: task }).check();
   await page.getByRole('button', { name: 'Join target' }).click();
-  await expect(page.getByRole('heading', { name: new RegExp(`Target ${TARGET}`) })).toBeVisible();
+  await expect(page.getByRole('heading', { name: new RegExp(`Target ${target}`) })).toBeVisible();
 }
 
 /** Taps one archer's end on the pad; values are called highest first. */
@@ -124,4 +124,31 @@ test('two writers score an end offline, the cross-check finds the one difference
     TARGET,
   );
   expect(JSON.parse(settled.arrows_json)).toEqual(['10', '9', '9', '8', '7', '6']);
+});
+
+test('a value the phone could not save is not shown as entered, and the writer is told', async ({
+  browser,
+}) => {
+  const target = 10;
+  const { code } = readDemoDb<{ code: string }>(
+    'select code from join_codes where target_number = ? and revoked_at is null',
+    target,
+  );
+  const writer = await signedInPhone(browser, demoArchers()[3]!.email);
+  await join(writer, code, /Writer 1/, target);
+  await enterEnd(writer, 'A', ['X']);
+  await expect(writer.getByTestId('end-total')).toHaveText('10');
+  // The phone's storage refuses the next write, as when it is full.
+  await writer.evaluate(() => {
+    IDBObjectStore.prototype.add = () => {
+      throw new DOMException('The storage on this phone is full.', 'QuotaExceededError');
+    };
+  });
+  await writer.getByRole('button', { name: 'Arrow 9', exact: true }).click();
+  await expect(writer.getByRole('alert')).toContainText(
+    'The last value was not saved on this phone (The storage on this phone is full.)',
+  );
+  await writer.screenshot({ path: '.tmp/screens/pad-not-saved.png', fullPage: true });
+  await expect(writer.getByTestId('end-total')).toHaveText('10');
+  await writer.context().close();
 });

@@ -44,10 +44,7 @@ export function ArrowKeypad({ allowed, onValue, onUndo, canUndo, disabled }: Pro
           key={value}
           type="button"
           disabled={disabled}
-          onClick={() => {
-            navigator.vibrate?.(10);
-            onValue(value);
-          }}
+          onClick={() => onValue(value)}
           className={`h-16 min-w-14 rounded-xl text-[32px] font-bold shadow-sm transition-transform active:scale-95 disabled:opacity-40 ${arrowLook(value)}`}
           aria-label={value === 'M' ? 'Miss (M)' : `Arrow ${value}`}
         >

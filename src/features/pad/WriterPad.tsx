@@ -48,39 +48,60 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
   const view = local ? endView(local.facts) : undefined;
   const [undo, setUndo] = useState<Record<string, EditableEnd[]>>({});
   const [selected, setSelected] = useState<number>();
-  const [notice, setNotice] = useState<string>();
+  const [notice, setNotice] = useState<{ tone: 'info' | 'error'; text: string }>();
   const locked = view?.state === 'signed';
 
   const rules = endInfo
     ? endRules(archer.round, endInfo.distanceIndex, archer.bowStyle, { allowPartial: true })
     : undefined;
 
+  /** Stores what this writer's card now says for the end; resolves once it is on the phone. */
+  const store = async (value: EditableEnd): Promise<boolean> => {
+    try {
+      await recordChange(localDb(), target.userId, {
+        kind: 'end.write',
+        args: {
+          sessionId: target.session.id,
+          entryId: archer.entryId,
+          endIndex,
+          slot,
+          arrows: value.arrows,
+          flags: value.flags,
+        },
+      });
+      return true;
+    } catch (error) {
+      // Show what is stored, not what was typed, and say so.
+      setTyped((t) => withoutKey(t, key));
+      setNotice({
+        tone: 'error',
+        text: `The last value was not saved on this phone (${error instanceof Error ? error.message : String(error)}). Check the end and enter it again.`,
+      });
+      return false;
+    }
+  };
+
   const write = async (next: EditableEnd, previous: EditableEnd) => {
     const started = performance.now();
     // The database write starts before React renders, so the two overlap instead of queueing.
-    const stored = recordChange(localDb(), target.userId, {
-      kind: 'end.write',
-      args: {
-        sessionId: target.session.id,
-        entryId: archer.entryId,
-        endIndex,
-        slot,
-        arrows: next.arrows,
-        flags: next.flags,
-      },
-    });
+    const stored = store(next);
     setUndo((u) => ({ ...u, [key]: [...(u[key] ?? []), previous] }));
     setTyped((t) => ({ ...t, [key]: next }));
-    await stored;
+    if (!(await stored)) return;
     // Read by bench/pad-tap.bench.ts: tap to IndexedDB commit.
     performance.measure('ringcall:tap-to-commit', { start: started });
+    // The short buzz says the value is stored on the phone, not only that a key was touched.
+    navigator.vibrate?.(10);
     syncLoop().afterChange();
   };
 
   const onValue = (value: ArrowValue) => {
     if (!rules) return;
     if (mine.arrows.length >= rules.arrowsPerEnd) {
-      setNotice(`All ${rules.arrowsPerEnd} arrows are in. Tap an arrow to change or remove it.`);
+      setNotice({
+        tone: 'info',
+        text: `All ${rules.arrowsPerEnd} arrows are in. Tap an arrow to change or remove it.`,
+      });
       return;
     }
     setNotice(undefined);
@@ -104,17 +125,7 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
     if (!previous) return;
     setUndo((u) => ({ ...u, [key]: stack.slice(0, -1) }));
     setTyped((t) => ({ ...t, [key]: previous }));
-    void recordChange(localDb(), target.userId, {
-      kind: 'end.write',
-      args: {
-        sessionId: target.session.id,
-        entryId: archer.entryId,
-        endIndex,
-        slot,
-        arrows: previous.arrows,
-        flags: previous.flags,
-      },
-    }).then(() => syncLoop().afterChange());
+    void store(previous).then((stored) => stored && syncLoop().afterChange());
   };
 
   // The archer's own card as this writer keeps it: every end this writer entered.
@@ -194,7 +205,7 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
         </div>
       )}
 
-      {notice && <Notice tone="info">{notice}</Notice>}
+      {notice && <Notice tone={notice.tone}>{notice.text}</Notice>}
       {locked ? (
         <Notice tone="info">This end is signed. Ask a judge to correct it.</Notice>
       ) : (

@@ -1,0 +1,70 @@
+import { Dexie, RangeSet, type IndexableType, type Table } from 'dexie';
+
+export type QuickWrite = { table: Table; type: 'add' | 'put'; value: object };
+
+/**
+ * Writes rows in one IndexedDB transaction that is told to commit as soon as its writes are done.
+ * Dexie's transactions commit only after each result has come back to the page, and on a busy
+ * phone that return trip waits behind the frame the tap itself paints. Live queries are then told
+ * of the change the way Dexie tells them of its own writes, so screens and other tabs refresh.
+ *
+ * A failed write (an `add` whose key exists: ConstraintError) undoes the whole transaction.
+ */
+export function writeAtOnce(db: Dexie, writes: QuickWrite[]): Promise<void> {
+  for (const w of writes) {
+    // Only new index values are announced below; a put that moves a row between index values would not be.
+    if (w.type === 'put' && w.table.schema.indexes.length > 0) {
+      throw new Error(`writeAtOnce puts only into tables without indexes, not ${w.table.name}.`);
+    }
+  }
+  // Open already on every tap after the first: the transaction then starts within the tap's own task.
+  if (!db.isOpen()) return db.open().then(() => writeAtOnce(db, writes));
+  const tx = db.backendDB().transaction(
+    writes.map((w) => w.table.name),
+    'readwrite',
+  );
+  const done = new Promise<void>((resolve, reject) => {
+    tx.oncomplete = () => resolve();
+    tx.onabort = () => reject(tx.error ?? new DOMException('The change was not stored.', 'AbortError'));
+  });
+  try {
+    for (const w of writes) {
+      const request = tx.objectStore(w.table.name)[w.type](w.value);
+      // Not prevented, so the transaction aborts; the error is reported once, by `done`.
+      request.onerror = (event) => event.stopPropagation();
+    }
+  } catch (error) {
+    // A value the store refuses outright (a key it cannot read, storage refused): write nothing.
+    done.catch(() => undefined);
+    tx.abort();
+    return Promise.reject(error instanceof Error ? error : new Error(String(error)));
+  }
+  tx.commit();
+  return done.then(() => {
+    // In the next task: the caller learns of the commit first; the screens' refresh follows.
+    setTimeout(() => Dexie.on.storagemutated.fire(changedParts(db.name, writes)), 0);
+  });
+}
+
+/** Dexie's record of what a write touched: `idb://db/table/index` → the keys, '' for primary keys. */
+function changedParts(dbName: string, writes: QuickWrite[]) {
+  const parts: Record<string, RangeSet> = {};
+  const mark = (table: string, index: string, key: unknown) => {
+    // A row without a value for an index is not in that index.
+    if (key === undefined || (Array.isArray(key) && key.includes(undefined))) return;
+    (parts[`idb://${dbName}/${table}/${index}`] ??= new RangeSet()).addKey(key as IndexableType);
+  };
+  for (const { table, value } of writes) {
+    const { primKey, indexes } = table.schema;
+    const key: unknown = Dexie.getByKeyPath(value, primKey.keyPath as string | string[]);
+    mark(table.name, '', key);
+    // As Dexie does for a write whose earlier row it did not read.
+    mark(table.name, ':dels', key);
+    for (const index of indexes) {
+      const indexKey: unknown = Dexie.getByKeyPath(value, index.keyPath as string | string[]);
+      if (index.multi && Array.isArray(indexKey)) indexKey.forEach((k) => mark(table.name, index.name, k));
+      else mark(table.name, index.name, indexKey);
+    }
+  }
+  return parts;
+}
