@@ -10,7 +10,7 @@ export function RouteError({ error }: { error: unknown }) {
       <h1 className="text-2xl font-bold">This screen could not be shown</h1>
       <p>
         {offline
-          ? 'This phone is offline and this screen was not saved on it yet. It will open once you have signal again.'
+          ? 'This phone is offline and this screen was not saved on it yet. Reload once you have signal again.'
           : 'Something went wrong while showing this screen. Reloading usually fixes it.'}
       </p>
       <p className="text-base text-ink-soft">Details: {detail}</p>
