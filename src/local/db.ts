@@ -63,7 +63,9 @@ export class LocalDb extends Dexie {
   cardSignatures!: EntityTable<CardSignatureRow, 'id'>;
 
   constructor(name = 'ringcall') {
-    super(name);
+    // No live-query cache: a tap's write bypasses Dexie (see writeAtOnce), and a cached answer
+    // would not see it. Every live query reads IndexedDB again when a change is announced.
+    super(name, { cache: 'disabled' });
     this.version(1).stores({
       meta: 'key',
       targets: 'key, userId',

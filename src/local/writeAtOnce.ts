@@ -9,6 +9,8 @@ export type QuickWrite = { table: Table; type: 'add' | 'put'; value: object };
  * of the change the way Dexie tells them of its own writes, so screens and other tabs refresh.
  *
  * A failed write (an `add` whose key exists: ConstraintError) undoes the whole transaction.
+ * The database must be opened with Dexie's live-query cache off (`cache: 'disabled'`, see LocalDb):
+ * that cache is kept up to date by Dexie's own writes only, and would answer with stale rows.
  */
 export function writeAtOnce(db: Dexie, writes: QuickWrite[]): Promise<void> {
   for (const w of writes) {

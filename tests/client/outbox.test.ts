@@ -74,14 +74,21 @@ describe('the outbox', () => {
   it('tells live queries of a recorded change, so the pad and the waiting count refresh', async () => {
     const db = freshDb();
     await recordChange(db, 5, write(0, ['X']));
-    const seen: number[] = [];
-    const subscription = liveQuery(() => db.outbox.where('status').equals('pending').count()).subscribe((n) =>
-      seen.push(n),
-    );
-    await vi.waitFor(() => expect(seen).toEqual([1]));
+    const counts: number[] = [];
+    const lists: string[][] = [];
+    // A count and a list, as the header and the pad read them: neither may answer from before the write.
+    const subscriptions = [
+      liveQuery(() => db.outbox.where('status').equals('pending').count()).subscribe((n) => counts.push(n)),
+      liveQuery(() => db.outbox.where('status').equals('pending').toArray()).subscribe((rows) =>
+        lists.push(rows.map((r) => (r.args as EndWriteArgs).arrows.join(' '))),
+      ),
+    ];
+    await vi.waitFor(() => expect(counts).toEqual([1]));
+    await vi.waitFor(() => expect(lists).toEqual([['X']]));
     await recordChange(db, 5, write(0, ['X', '9']));
-    await vi.waitFor(() => expect(seen).toEqual([1, 2]));
-    subscription.unsubscribe();
+    await vi.waitFor(() => expect(counts).toEqual([1, 2]));
+    await vi.waitFor(() => expect(lists).toEqual([['X'], ['X', 'X 9']]));
+    subscriptions.forEach((s) => s.unsubscribe());
   });
 
   it('survives closing and reopening the database (a reload)', async () => {
