@@ -4,6 +4,7 @@ import type { CardView } from '../../contract/judging';
 import { cardKeyOf, localDb } from '../../local/db';
 import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
+import { useLocalSave } from '../../local/useLocalSave';
 import { RequireSignIn } from '../auth/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
@@ -18,6 +19,7 @@ const CARD_STATE_WORDS: Record<CardView['state'], string> = {
 };
 
 function Countersign({ card, userId }: { card: CardView; userId: number }) {
+  const { save, problem } = useLocalSave();
   const key = `${cardKeyOf(card.session.id, card.archer.entryId)}:card`;
   const waiting = useLiveQuery(
     () =>
@@ -48,19 +50,22 @@ function Countersign({ card, userId }: { card: CardView; userId: number }) {
       <Button
         className="w-full"
         onClick={() =>
-          void recordChange(localDb(), userId, {
-            kind: 'card.sign',
-            args: {
-              sessionId: card.session.id,
-              entryId: card.archer.entryId,
-              role,
-              total: card.totals.total,
-            },
-          }).then(() => syncLoop().kick())
+          save(() =>
+            recordChange(localDb(), userId, {
+              kind: 'card.sign',
+              args: {
+                sessionId: card.session.id,
+                entryId: card.archer.entryId,
+                role,
+                total: card.totals.total,
+              },
+            }).then(() => syncLoop().kick()),
+          )
         }
       >
         ✍ Sign as {role}
       </Button>
+      {problem && <Notice tone="error">{problem}</Notice>}
     </div>
   );
 }

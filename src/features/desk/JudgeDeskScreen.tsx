@@ -5,6 +5,7 @@ import { endKeyOf, localDb } from '../../local/db';
 import { loadSessionEnds } from '../../local/sessionEnds';
 import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
+import { useLocalSave } from '../../local/useLocalSave';
 import { useOnline } from '../../local/online';
 import { RequireSignIn } from '../auth/RequireSignIn';
 import { Button } from '../../ui/Button';
@@ -36,6 +37,7 @@ async function sign(userId: number, items: DeskItem[]) {
 
 function DeskItemCard({ item, eventId, userId }: { item: DeskItem; eventId: number; userId: number }) {
   const [ruling, setRuling] = useState(false);
+  const { save, problem } = useLocalSave();
   const archer = item.target.archers[item.archerIndex]!;
   const label = DESK_KIND_LABELS[item.kind];
   const perEnd = archer.round.distances[0]?.arrowsPerEnd ?? 6;
@@ -74,15 +76,19 @@ function DeskItemCard({ item, eventId, userId }: { item: DeskItem; eventId: numb
           <Button variant="secondary" onClick={() => setRuling(true)}>
             Rule on this end
           </Button>
-          {item.kind === 'to-sign' && <Button onClick={() => void sign(userId, [item])}>✍ Sign end</Button>}
+          {item.kind === 'to-sign' && (
+            <Button onClick={() => save(() => sign(userId, [item]))}>✍ Sign end</Button>
+          )}
         </div>
       )}
+      {problem && <Notice tone="error">{problem}</Notice>}
     </li>
   );
 }
 
 function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: number; userId: number }) {
   const [targetFilter, setTargetFilter] = useState<number | 'all'>('all');
+  const { save, problem } = useLocalSave();
   const prepare = usePrepareDesk(eventId, sessionId, userId);
   const online = useOnline();
   const data = useLiveQuery(async () => {
@@ -147,10 +153,11 @@ function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: numb
       </label>
 
       {ready.length > 1 && (
-        <Button className="w-full" onClick={() => void sign(userId, ready)}>
+        <Button className="w-full" onClick={() => save(() => sign(userId, ready))}>
           ✍ Sign all {ready.length} ready ends{targetFilter === 'all' ? '' : ` of target ${targetFilter}`}
         </Button>
       )}
+      {problem && <Notice tone="error">{problem}</Notice>}
       {items.length === 0 ? (
         <p>
           Nothing waits for a judge{targetFilter === 'all' ? '' : ' on this target'}. Disputes, incidents and

@@ -4,7 +4,9 @@ import { endKeyOf, localDb, type JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
 import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
+import { useLocalSave } from '../../local/useLocalSave';
 import { Button } from '../../ui/Button';
+import { Notice } from '../../ui/Notice';
 import { EndArrows } from './EndArrows';
 import { END_STATE_LABELS } from './endStateLabel';
 import { roundEnds } from './useEndNavigation';
@@ -26,6 +28,7 @@ function SettleEnd({
   const archer = target.archers[archerIndex]!;
   const view = endView(local.facts);
   const [choices, setChoices] = useState<Record<number, Choice>>({});
+  const { save, problem } = useLocalSave();
   const first = local.slots[1];
   const second = local.slots[2];
   if (!first || !second) return null;
@@ -110,7 +113,8 @@ function SettleEnd({
           </div>
         </fieldset>
       ))}
-      <Button className="w-full" disabled={!complete} onClick={() => void settle()}>
+      {problem && <Notice tone="error">{problem}</Notice>}
+      <Button className="w-full" disabled={!complete} onClick={() => save(settle)}>
         Settle this end
       </Button>
     </article>

@@ -17,7 +17,7 @@ export type MeState = {
 };
 
 const STORAGE_KEY = 'ringcall.me';
-/** An answer younger than this is not asked again when a screen mounts. */
+/** An answer younger than this is not asked again when the app comes back into focus. */
 const FRESH_MS = 60_000;
 
 export async function fetchMe(): Promise<Me | null> {
