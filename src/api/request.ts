@@ -14,6 +14,9 @@ export class ApiError extends Error {
   }
 }
 
+/** The readable message of any failure (a thrown value need not be an Error). */
+export const messageOf = (error: unknown): string => (error instanceof Error ? error.message : String(error));
+
 export const isSignedOutError = (error: unknown) => error instanceof ApiError && error.status === 401;
 
 async function send(path: string, init: RequestInit, token: string | undefined): Promise<Response> {

@@ -1,4 +1,4 @@
-import { ApiError } from '../api/request';
+import { ApiError, messageOf } from '../api/request';
 import { localDb, type LocalDb } from './db';
 import { syncOnce, type SyncTransport } from './syncEngine';
 import { httpTransport } from './httpTransport';
@@ -113,7 +113,7 @@ export class SyncLoop {
         this.set({
           ...this.status,
           phase: offline ? 'offline' : 'error',
-          lastError: error instanceof Error ? error.message : String(error),
+          lastError: messageOf(error),
           retryInMs: this.backoff,
         });
         this.schedule(this.backoff);

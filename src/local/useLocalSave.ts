@@ -1,8 +1,5 @@
 import { useCallback, useState } from 'react';
-
-/** Why a change could not be stored on the phone, in the words the browser gave. */
-export const notSavedReason = (error: unknown): string =>
-  error instanceof Error ? error.message : String(error);
+import { messageOf } from '../api/request';
 
 /**
  * Runs an action that records changes on this phone (settle, sign). Such screens show only what is
@@ -13,7 +10,7 @@ export function useLocalSave(): { save: (action: () => Promise<unknown>) => void
   const save = useCallback((action: () => Promise<unknown>) => {
     setProblem(undefined);
     action().catch((error: unknown) =>
-      setProblem(`This was not saved on this phone (${notSavedReason(error)}). Try again.`),
+      setProblem(`This was not saved on this phone (${messageOf(error)}). Try again.`),
     );
   }, []);
   return { save, problem };

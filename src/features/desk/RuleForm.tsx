@@ -1,5 +1,6 @@
 import { useState, type FormEvent } from 'react';
 import { endRules, sortEnd, type ArrowValue } from '../../core';
+import { messageOf } from '../../api/request';
 import { localDb } from '../../local/db';
 import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
@@ -57,7 +58,7 @@ export function RuleForm({
       syncLoop().kick();
       onDone();
     } catch (error) {
-      setProblem(error instanceof Error ? error.message : String(error));
+      setProblem(messageOf(error));
     } finally {
       setBusy(false);
     }

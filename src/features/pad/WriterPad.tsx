@@ -4,9 +4,9 @@ import { ARROW_FLAGS, type WriterSlot } from '../../contract/fieldTerms';
 import { endKeyOf, localDb, type JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
 import { endView } from '../../core';
+import { messageOf } from '../../api/request';
 import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
-import { notSavedReason } from '../../local/useLocalSave';
 import { Notice } from '../../ui/Notice';
 import { ArrowKeypad } from './ArrowKeypad';
 import { EndArrows, FLAG_LABELS } from './EndArrows';
@@ -76,7 +76,7 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
       setTyped((t) => withoutKey(t, key));
       setNotice({
         tone: 'error',
-        text: `The last value was not saved on this phone (${notSavedReason(error)}). Check the end and enter it again.`,
+        text: `The last value was not saved on this phone (${messageOf(error)}). Check the end and enter it again.`,
       });
       return false;
     }
