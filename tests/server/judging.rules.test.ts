@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { ArrowValue } from '../../src/core';
 import type { CardSignatureDto, EndSignatureDto, RulingDto } from '../../src/contract/judging';
 import type { ChangeDto } from '../../src/contract/sync';
@@ -33,13 +33,15 @@ import {
  * with a reason a person understands, and nothing else changes.
  */
 
+// Each test starts from its own fresh event, so any one of them can run alone or in any order.
 let server: TestServer;
 let j: JudgingField;
-beforeAll(async () => {
+beforeEach(async () => {
   server = await startTestServer();
   j = await setUpJudging(server);
+  nextEnd = -1;
 });
-afterAll(async () => {
+afterEach(async () => {
   await server.close();
 });
 
@@ -319,12 +321,71 @@ describe('signing an end', () => {
   });
 });
 
+const ada = () => j.ada.entryId;
+const adaTotal = () =>
+  twelveEnds()
+    .flat()
+    .reduce((s, v) => s + (v === 'X' ? 10 : v === 'M' ? 0 : Number(v)), 0);
+const adaCard = (role: 'archer' | 'scorer', total = adaTotal()) => ({
+  sessionId: j.sessionId,
+  entryId: ada(),
+  role,
+  total,
+});
+const ALL_ENDS = [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11];
+
+/** Ada's twelve ends agreed and signed by the judge. */
+async function adaSignedByJudge() {
+  await agreeEnds(j, ada(), twelveEnds());
+  expectApplied(await signEnds(server, j, ada(), ALL_ENDS));
+}
+
+/** Ada's card final: every end signed, then the archer's and the scorer's signatures. */
+async function adaFinal() {
+  await adaSignedByJudge();
+  expectApplied([await pushOne(j.phones.ada, j.phones.ada.signCard(adaCard('archer')))]);
+  expectApplied([await pushOne(j.phones.writer1, j.phones.writer1.signCard(adaCard('scorer')))]);
+}
+
+const CORRECTED_FIRST_END: ArrowValue[] = ['X', '10', '9', '9', '8', '8'];
+/** A judge corrects end 1 of Ada's final card. */
+const correctAdaFirstEnd = async () =>
+  expectApplied([
+    await pushOne(
+      j.phones.judge,
+      j.phones.judge.rule({
+        sessionId: j.sessionId,
+        entryId: ada(),
+        endIndex: 0,
+        arrows: CORRECTED_FIRST_END,
+        reason: 'Addition corrected after a look at the face',
+      }),
+    ),
+  ]);
+
+/**
+ * A judged morning: Ada's card final and then corrected by a ruling (superseding signatures), and
+ * two of Bea's ends ruled after a caller's settlement left an arrow disputed.
+ */
+async function judgedMorning() {
+  await adaFinal();
+  await correctAdaFirstEnd();
+  for (let i = 0; i < 2; i += 1) {
+    const e = freshEnd();
+    await writeBoth(j, e.entryId, e.endIndex, SIX, ['X', '10', '8', '9', '8', '7']);
+    expectApplied([
+      await pushOne(
+        j.phones.caller,
+        j.phones.caller.settle({ ...at(e), arrows: SIX, basis: { first: 1, second: 1 }, disputed: [2] }),
+      ),
+    ]);
+    expectApplied([
+      await pushOne(j.phones.judge, j.phones.judge.rule({ ...at(e), arrows: SIX, reason: 'Looked at the holes' })),
+    ]);
+  }
+}
+
 describe('countersigning the card', () => {
-  const ada = () => j.ada.entryId;
-  const adaTotal = () =>
-    twelveEnds()
-      .flat()
-      .reduce((s, v) => s + (v === 'X' ? 10 : v === 'M' ? 0 : Number(v)), 0);
 
   it('is refused while ends are unsigned, with the ends named', async () => {
     await agreeEnds(j, ada(), twelveEnds());
@@ -339,13 +400,8 @@ describe('countersigning the card', () => {
   });
 
   it('only the archer countersigns their own card, with the right total; the writer signs as scorer', async () => {
-    expectApplied(await signEnds(server, j, ada(), [9, 10, 11]));
-    const card = (role: 'archer' | 'scorer', total = adaTotal()) => ({
-      sessionId: j.sessionId,
-      entryId: ada(),
-      role,
-      total,
-    });
+    await adaSignedByJudge();
+    const card = adaCard;
     for (const phone of [j.phones.judge, j.phones.writer1, j.phones.organizer, j.phones.stranger])
       expectRejected(
         await pushOne(phone, phone.signCard(card('archer'))),
@@ -394,18 +450,8 @@ describe('countersigning the card', () => {
   });
 
   it('a ruling on an end of a final card supersedes the card signatures too', async () => {
-    expectApplied([
-      await pushOne(
-        j.phones.judge,
-        j.phones.judge.rule({
-          sessionId: j.sessionId,
-          entryId: ada(),
-          endIndex: 0,
-          arrows: ['X', '10', '9', '9', '8', '8'],
-          reason: 'Addition corrected after a look at the face',
-        }),
-      ),
-    ]);
+    await adaFinal();
+    await correctAdaFirstEnd();
     const cards = await server.db('card_signatures').where({ entry_id: ada() }).orderBy('id');
     expect(cards).toHaveLength(2);
     expect(cards.every((c) => c.superseded_at && c.superseded_by_ruling)).toBe(true);
@@ -432,6 +478,7 @@ describe('the log and the phones', () => {
   });
 
   it('rulings and signatures reach the target group and the judges by pull; a stranger sees nothing', async () => {
+    await judgedMorning();
     const pullAll = async (phone: Phone) => {
       const changes: ChangeDto[] = [];
       let cursor = 0;
@@ -463,6 +510,7 @@ describe('the log and the phones', () => {
   });
 
   it('the replay of the log gives the same writers’ records, settlements and rulings; rebuilding keeps signatures', async () => {
+    await judgedMorning();
     const current = await readFieldState(server.db);
     expect(current.rulings.length).toBeGreaterThanOrEqual(3);
     expect(sortFieldState(await replayLog(server.db))).toEqual(current);
