@@ -11,11 +11,18 @@ function describe(row: OutboxRow, nameOf: (sessionId: number, entryId: number) =
   return end.charAt(0).toUpperCase() + end.slice(1);
 }
 
+/** An archer's name from elsewhere on the phone (a card looked at), when no joined target has it. */
+export type NameLookup = (sessionId: number, entryId: number) => string | undefined;
+
 /**
  * A person's changes the server has not accepted yet, one line per end or signature (many taps
  * on one end are one line), in the order they were made.
  */
-export async function waitingInWords(db: LocalDb, userId: number): Promise<string[]> {
+export async function waitingInWords(
+  db: LocalDb,
+  userId: number,
+  otherNames: NameLookup = () => undefined,
+): Promise<string[]> {
   const [rows, targets] = await db.transaction('r', db.outbox, db.targets, () =>
     Promise.all([
       db.outbox
@@ -30,6 +37,8 @@ export async function waitingInWords(db: LocalDb, userId: number): Promise<strin
     targets
       .filter((t) => t.session.id === sessionId)
       .flatMap((t) => t.archers)
-      .find((a) => a.entryId === entryId)?.name ?? 'an archer';
+      .find((a) => a.entryId === entryId)?.name ??
+    otherNames(sessionId, entryId) ??
+    'an archer';
   return [...new Set(rows.map((r) => describe(r, nameOf)))];
 }

@@ -1,5 +1,7 @@
 import { useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
 import { useLiveQuery } from 'dexie-react-hooks';
+import { cardQuery, myCardsQuery } from '../cards/api/card';
 import { localDb } from '../../local/db';
 import { saveWaitingFile } from '../../local/saveWaitingFile';
 import { syncLoop } from '../../local/syncLoop';
@@ -7,6 +9,16 @@ import { waitingInWords } from '../../local/waitingInWords';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { useSignOut } from './api/signIn';
+
+/** Names of archers whose cards this person looked at, from the query cache. */
+function useCardNames() {
+  const client = useQueryClient();
+  return (sessionId: number, entryId: number) =>
+    client.getQueryData(cardQuery(sessionId, entryId).queryKey)?.archer.name ??
+    client
+      .getQueryData(myCardsQuery.queryKey)
+      ?.toSign.find((c) => c.sessionId === sessionId && c.entryId === entryId)?.archerName;
+}
 
 /**
  * Sign-out on a phone that may be shared. With nothing waiting, it signs out and clears the
@@ -17,7 +29,8 @@ import { useSignOut } from './api/signIn';
 export function SignOut({ userId }: { userId: number }) {
   const signOut = useSignOut();
   const [asking, setAsking] = useState(false);
-  const waiting = useLiveQuery(() => waitingInWords(localDb(), userId), [userId]);
+  const names = useCardNames();
+  const waiting = useLiveQuery(() => waitingInWords(localDb(), userId, names), [userId]);
   const busy = signOut.isPending || waiting === undefined;
   const error = signOut.error && <Notice tone="error">{signOut.error.message}</Notice>;
 
