@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { DEMO_PASSWORD } from '../../server/demo/demoPeople';
+import { DEMO_JUDGES, DEMO_PASSWORD } from '../../server/demo/demoPeople';
 import { checkA11y } from './support/a11y';
 import { readDemoDb } from './support/demoDb';
 
@@ -39,6 +39,14 @@ test('the scorer finds the card to sign on the home screen, signs it offline, an
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
 
+  // An archer's home: targets and cards; creating an event is a small link, the mail catcher is not there.
+  await expect(page.getByRole('heading', { name: 'Your scorecards' })).toBeVisible();
+  await expect(page.getByRole('heading', { name: 'Events you organize' })).toHaveCount(0);
+  await expect(page.getByRole('link', { name: 'Caught mail' })).toHaveCount(0);
+  await expect(page.getByRole('link', { name: 'My events' })).toHaveCount(0);
+  const create = page.getByRole('link', { name: 'Create an event' });
+  expect((await create.boundingBox())!.height).toBeGreaterThanOrEqual(44);
+
   const toSign = page.getByRole('list', { name: 'Cards to sign as scorer' });
   const link = toSign.getByRole('link', { name: new RegExp(card.name) });
   await expect(link).toContainText('Ready for your signature');
@@ -72,4 +80,20 @@ test('the scorer finds the card to sign on the home screen, signs it offline, an
   await expect(page.getByRole('link', { name: new RegExp(card.name) })).toHaveCount(0);
   await page.getByRole('button', { name: 'Sign out' }).click();
   await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
+});
+
+test("a judge's home leads to the judge desk of their event, not to setup or cards", async ({ page }) => {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(DEMO_JUDGES[0]!.email);
+  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  const desk = page.getByRole('link', { name: /Larchmere.*Judge desk/ });
+  await expect(desk).toBeVisible();
+  await expect(page.getByRole('heading', { name: 'Events you organize' })).toHaveCount(0);
+  await expect(page.getByRole('heading', { name: 'Cards to sign as scorer' })).toHaveCount(0);
+  await expect(page.getByRole('link', { name: 'Caught mail' })).toHaveCount(0);
+  await checkA11y(page, 'judge home');
+  await shot(page, '3-judge-home');
+  await desk.click();
+  await expect(page).toHaveURL(/\/desk\/1$/);
 });

@@ -16,7 +16,7 @@ function EventLinks({ roles, to, label }: { roles: Role[]; to: (eventId: number)
         <li key={r.eventId}>
           <Link to={to(r.eventId)} className={eventLink}>
             <span>{r.eventName}</span>
-            <span className="text-base">{label} ▸</span>
+            <span className="whitespace-nowrap pl-2 text-base">{label} ▸</span>
           </Link>
         </li>
       ))}
