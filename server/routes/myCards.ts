@@ -1,8 +1,12 @@
 import { Router } from 'express';
 import type { AppContext } from '../context';
-import type { MyCard } from '../../src/contract/myCards';
+import type { MyCard, MyCards } from '../../src/contract/myCards';
+import { cardsToSign } from '../services/judging/cardsToSign';
 
-/** The signed-in archer's own scorecards: one per session they are assigned to. */
+/**
+ * The signed-in person's own scorecards (one per session they are assigned to), and the cards
+ * they kept as a writer and must sign as scorer.
+ */
 export function myCardsRoutes(ctx: AppContext): Router {
   const router = Router();
   router.get('/me/cards', ctx.requireUser, async (req, res) => {
@@ -24,7 +28,8 @@ export function myCardsRoutes(ctx: AppContext): Router {
         'target_assignments.position as position',
       );
     const cards: MyCard[] = rows;
-    res.json({ cards });
+    res.setHeader('Cache-Control', 'no-store');
+    res.json({ cards, toSign: await cardsToSign(ctx.db, req.user!.id) } satisfies MyCards);
   });
   return router;
 }

@@ -122,14 +122,27 @@ async function storeChange(db: LocalDb, userId: number, change: NewChange): Prom
 export const toMutation = (row: OutboxRow): Mutation =>
   ({ id: row.id, seq: row.seq, kind: row.kind, args: row.args, at: row.at }) as Mutation;
 
-export async function waitingCount(db: LocalDb, userId?: number): Promise<number> {
-  const pending = db.outbox.where('status').equals('pending');
-  return userId === undefined ? pending.count() : pending.filter((r) => r.userId === userId).count();
+export async function waitingCount(db: LocalDb, userId: number): Promise<number> {
+  return db.outbox
+    .where('status')
+    .equals('pending')
+    .filter((r) => r.userId === userId)
+    .count();
 }
 
-/** Unsynced and refused changes as a file a judge can import when a phone cannot sync. */
-export async function exportWaiting(db: LocalDb): Promise<{ fileName: string; json: string }> {
-  const rows = await db.outbox.where('status').anyOf('pending', 'rejected').toArray();
+/**
+ * A person's unsynced and refused changes as a file a judge can import when a phone cannot sync
+ * (only theirs: another person's changes on a shared phone are never handed to someone else).
+ */
+export async function exportWaiting(
+  db: LocalDb,
+  userId: number,
+): Promise<{ fileName: string; json: string }> {
+  const rows = await db.outbox
+    .where('status')
+    .anyOf('pending', 'rejected')
+    .filter((r) => r.userId === userId)
+    .toArray();
   const byClient = new Map<string, OutboxRow[]>();
   for (const row of rows) byClient.set(row.clientId, [...(byClient.get(row.clientId) ?? []), row]);
   const body = {

@@ -2,6 +2,7 @@ import { ApiError, messageOf } from '../api/request';
 import { localDb, type LocalDb } from './db';
 import { syncOnce, type SyncTransport } from './syncEngine';
 import { httpTransport } from './httpTransport';
+import { ownerSettled } from './phoneOwner';
 
 export type SyncStatus = {
   /** 'signed-out': changes wait until the person signs in again; nothing is dropped. */
@@ -39,6 +40,8 @@ export class SyncLoop {
   constructor(
     private readonly db: LocalDb,
     private readonly transport: SyncTransport,
+    /** Resolves when the phone is ready to hold this person's data (see phoneOwner). */
+    private readonly ready: () => Promise<void> = () => Promise.resolve(),
   ) {}
 
   getStatus = (): SyncStatus => this.status;
@@ -95,6 +98,7 @@ export class SyncLoop {
     this.typingSince = undefined;
     this.running = (async () => {
       try {
+        await this.ready();
         await syncOnce(this.db, userId, this.transport);
         this.backoff = MIN_BACKOFF;
         this.set({ phase: 'idle', lastSyncAt: new Date().toISOString() });
@@ -132,7 +136,7 @@ let loop: SyncLoop | undefined;
 /** The app's one sync loop, wired to the browser's online and focus events. */
 export function syncLoop(): SyncLoop {
   if (!loop) {
-    const created = new SyncLoop(localDb(), httpTransport);
+    const created = new SyncLoop(localDb(), httpTransport, ownerSettled);
     window.addEventListener('online', created.kick);
     window.addEventListener('focus', created.kick);
     document.addEventListener('visibilitychange', () => {

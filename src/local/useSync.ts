@@ -1,31 +1,23 @@
 import { useEffect, useSyncExternalStore } from 'react';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { localDb } from './db';
+import { waitingCount } from './outbox';
 import { syncLoop, type SyncStatus } from './syncLoop';
 import { useMe } from '../features/auth/api/me';
+import { usePhoneOwner } from './phoneOwner';
 
 export function useSyncStatus(): SyncStatus {
   const loop = syncLoop();
   return useSyncExternalStore(loop.subscribe, loop.getStatus, loop.getStatus);
 }
 
-/** Changes on this phone not yet accepted by the server (all people who used this phone). */
+/**
+ * The changes of the person whose data this phone holds that the server has not accepted yet.
+ * Another person's waiting changes stay on the phone but are never counted or shown here.
+ */
 export function useWaitingCount(): number {
-  return useLiveQuery(() => localDb().outbox.where('status').equals('pending').count(), [], 0);
-}
-
-/** Refused changes the person has not looked at yet. */
-export function useUnseenRejections() {
-  return useLiveQuery(
-    () =>
-      localDb()
-        .outbox.where('status')
-        .equals('rejected')
-        .filter((r) => !r.seenAt)
-        .toArray(),
-    [],
-    [],
-  );
+  const owner = usePhoneOwner();
+  return useLiveQuery(() => (owner === undefined ? 0 : waitingCount(localDb(), owner)), [owner], 0);
 }
 
 /** Connects the sync loop to whoever is signed in. */

@@ -1,28 +1,9 @@
-import { Link } from 'react-router-dom';
-import { useMe } from '../auth/api/me';
-import { useSignOut } from '../auth/api/signIn';
-import { Button } from '../../ui/Button';
+import type { Me } from '../../contract/auth';
+import { SignOut } from '../auth/SignOut';
 
-const linkClass = 'flex min-h-14 items-center justify-center rounded-lg px-5 text-lg font-bold';
-
-/** Who is signed in, their events, and the way in for someone who is not. */
-export function AccountPanel() {
-  const me = useMe();
-  const signOut = useSignOut();
-  if (me.isPending) return null;
-  if (!me.data) {
-    return (
-      <section aria-label="Account" className="grid grid-cols-2 gap-3">
-        <Link to="/sign-in" className={`${linkClass} bg-moss text-white`}>
-          Sign in
-        </Link>
-        <Link to="/sign-up" className={`${linkClass} border-2 border-ink`}>
-          Create account
-        </Link>
-      </section>
-    );
-  }
-  const { user, roles } = me.data;
+/** Who is signed in, with the way out. */
+export function AccountPanel({ me }: { me: Me }) {
+  const { user } = me;
   return (
     <section aria-label="Account" className="surface space-y-3 rounded-xl border border-line bg-card p-4">
       <p>
@@ -31,40 +12,7 @@ export function AccountPanel() {
           <span className="block text-base">▲ Confirm your e-mail address with the link we sent you.</span>
         )}
       </p>
-      {roles.length > 0 && (
-        <ul className="space-y-1">
-          {roles.map((r) => (
-            <li key={`${r.eventId}-${r.role}`}>
-              <Link
-                to={
-                  r.role === 'judge'
-                    ? `/desk/${r.eventId}`
-                    : r.role === 'archer'
-                      ? '/cards'
-                      : `/events/${r.eventId}`
-                }
-                className="font-bold underline"
-              >
-                {r.eventName}
-              </Link>{' '}
-              <span className="text-base">
-                · {r.role === 'judge' ? 'judge desk' : r.role === 'archer' ? 'your scorecard' : r.role}
-              </span>
-            </li>
-          ))}
-        </ul>
-      )}
-      <div className="flex flex-wrap gap-3">
-        <Link to="/events" className={`${linkClass} bg-moss text-white`}>
-          My events
-        </Link>
-        <Link to="/mail" className={`${linkClass} border-2 border-ink`}>
-          Caught mail
-        </Link>
-        <Button variant="secondary" onClick={() => signOut.mutate()} disabled={signOut.isPending}>
-          Sign out
-        </Button>
-      </div>
+      <SignOut userId={user.id} />
     </section>
   );
 }

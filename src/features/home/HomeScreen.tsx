@@ -1,8 +1,8 @@
+import { Link } from 'react-router-dom';
 import { SafetyNote } from '../../ui/SafetyNote';
 import { useOnline } from '../../local/online';
 import { useServerHealth } from './api/serverHealth';
-import { AccountPanel } from './AccountPanel';
-import { MyTargets } from './MyTargets';
+import { PersonHome } from './PersonHome';
 import { useMe } from '../auth/api/me';
 
 const STEPS = [
@@ -53,10 +53,12 @@ function ServerLine() {
   );
 }
 
-export function HomeScreen() {
-  const me = useMe();
+const linkClass = 'flex min-h-14 items-center justify-center rounded-lg px-5 text-lg font-bold';
+
+/** What Ringcall is and how a day with it goes, with the way in. */
+function Welcome({ known }: { known: boolean }) {
   return (
-    <div className="space-y-6">
+    <>
       <section className="space-y-2">
         <h1 className="text-3xl font-bold leading-tight">
           Your scorecard, on the field, with or without signal
@@ -65,11 +67,16 @@ export function HomeScreen() {
           Ringcall keeps every called arrow on this phone first, then brings it to the event when it can.
         </p>
       </section>
-
-      {me.data && <MyTargets userId={me.data.user.id} />}
-
-      <AccountPanel />
-
+      {known && (
+        <section aria-label="Account" className="grid grid-cols-2 gap-3">
+          <Link to="/sign-in" className={`${linkClass} bg-moss text-white`}>
+            Sign in
+          </Link>
+          <Link to="/sign-up" className={`${linkClass} border-2 border-ink`}>
+            Create account
+          </Link>
+        </section>
+      )}
       <ol className="space-y-3">
         {STEPS.map((step, i) => (
           <li key={step.title} className="surface flex gap-4 rounded-xl border border-line bg-card p-4">
@@ -86,9 +93,16 @@ export function HomeScreen() {
           </li>
         ))}
       </ol>
+    </>
+  );
+}
 
+export function HomeScreen() {
+  const me = useMe();
+  return (
+    <div className="space-y-6">
+      {me.data ? <PersonHome me={me.data} /> : <Welcome known={!me.isPending} />}
       <SafetyNote />
-
       <footer className="text-base text-ink-soft">
         <ServerLine />
       </footer>

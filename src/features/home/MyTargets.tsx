@@ -4,16 +4,14 @@ import { localDb } from '../../local/db';
 import { TASK_LABELS } from '../pad/taskNames';
 
 /** Targets this phone has joined: they open offline, straight from IndexedDB. */
-export function MyTargets({ userId }: { userId: number | undefined }) {
+export function MyTargets({ userId }: { userId: number }) {
   const targets = useLiveQuery(
     () =>
       localDb()
-        .targets.toArray()
-        .then((all) =>
-          all
-            .filter((t) => userId === undefined || t.userId === userId)
-            .sort((a, b) => b.joinedAt.localeCompare(a.joinedAt)),
-        ),
+        .targets.where('userId')
+        .equals(userId)
+        .toArray()
+        .then((mine) => mine.sort((a, b) => b.joinedAt.localeCompare(a.joinedAt))),
     [userId],
   );
   return (

@@ -5,6 +5,8 @@ import { endKeyOf, type JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
 import { SafetyNote } from '../../ui/SafetyNote';
 import { useMe } from '../auth/api/me';
+import { usePhoneOwner } from '../../local/phoneOwner';
+import { CardsToSignLink } from '../cards/CardsToSignLink';
 import { CallerView } from './CallerView';
 import { END_STATE_LABELS } from './endStateLabel';
 import { Rejections } from './Rejections';
@@ -134,6 +136,7 @@ function Pad({
       ) : (
         <CallerView target={target} ends={ends} endIndex={endIndex} />
       )}
+      {slot && <CardsToSignLink target={target} slot={slot} ends={ends} />}
       <SyncLine />
     </div>
   );
@@ -144,7 +147,9 @@ export function PadScreen() {
   const sessionId = Number(params.sessionId);
   const targetNumber = Number(params.targetNumber);
   const me = useMe();
-  const data = usePadData(sessionId, targetNumber, me.data?.user.id);
+  // After a sign-in ran out, the pad still opens for the person whose phone it is (not for anyone else).
+  const owner = usePhoneOwner();
+  const data = usePadData(sessionId, targetNumber, me.data?.user.id ?? owner);
   if (data === undefined) return <p>Opening the pad…</p>;
   if (data === null) {
     return (

@@ -1,19 +1,9 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import { localDb } from '../../local/db';
-import { exportWaiting } from '../../local/outbox';
+import { saveWaitingFile } from '../../local/saveWaitingFile';
 import { useSyncStatus, useWaitingCount } from '../../local/useSync';
 import { syncLoop } from '../../local/syncLoop';
 import { useOnline } from '../../local/online';
-
-async function saveWaiting() {
-  const { fileName, json } = await exportWaiting(localDb());
-  const url = URL.createObjectURL(new Blob([json], { type: 'application/json' }));
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = fileName;
-  a.click();
-  URL.revokeObjectURL(url);
-}
 
 /** What waits to sync, in words, with a way to send now and a file for the judge if it cannot. */
 export function SyncLine() {
@@ -53,7 +43,7 @@ export function SyncLine() {
           <button
             type="button"
             className="min-h-12 rounded-lg border-2 border-ink px-3 font-bold"
-            onClick={() => void saveWaiting()}
+            onClick={() => void saveWaitingFile()}
           >
             Save waiting changes as a file
           </button>

@@ -23,14 +23,9 @@ export function usePadData(
       'r',
       [db.targets, db.endRecords, db.settlements, db.outbox, db.rulings, db.endSignatures],
       async () => {
-        // The person signed in now, or (offline, sign-in unknown) whoever joined last on this phone.
+        // Only the signed-in person's own target: a shared phone never shows another's pad.
         const target =
-          (userId !== undefined
-            ? await db.targets.get(targetKeyOf(userId, sessionId, targetNumber))
-            : undefined) ??
-          (await db.targets.toArray())
-            .filter((t) => t.session.id === sessionId && t.targetNumber === targetNumber)
-            .sort((a, b) => b.joinedAt.localeCompare(a.joinedAt))[0];
+          userId === undefined ? undefined : await db.targets.get(targetKeyOf(userId, sessionId, targetNumber));
         if (!target) return null;
         const { ends, rejected } = await loadSessionEnds(db, sessionId, target.userId, [target]);
         const entryIds = new Set(target.archers.map((a) => a.entryId));

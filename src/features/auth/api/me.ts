@@ -1,6 +1,7 @@
 import { useEffect, useSyncExternalStore } from 'react';
 import { apiRequest, isSignedOutError } from '../../../api/request';
 import type { Me } from '../../../contract/auth';
+import { claimPhone } from '../../../local/phoneOwner';
 
 /**
  * Who is signed in, and their roles. Kept apart from the query cache so the field screens (pad,
@@ -57,8 +58,12 @@ function update(next: Partial<MeState>) {
   listeners.forEach((l) => l());
 }
 
-/** Records the answer, here and for the app's other tabs. */
+/**
+ * Records the answer, here and for the app's other tabs. A person signed in makes the phone
+ * theirs first, so no screen shows them the previous person's data even for a moment.
+ */
 export function setMe(me: Me | null): void {
+  if (me) claimPhone(me.user.id);
   checkedAt = Date.now();
   try {
     localStorage.setItem(STORAGE_KEY, JSON.stringify({ me, at: checkedAt } satisfies Saved));
@@ -113,5 +118,9 @@ if (typeof window !== 'undefined') {
  */
 export function useMe(): MeState {
   useEffect(() => void checkMe(), []);
-  return useSyncExternalStore(subscribe, () => state, () => state);
+  return useSyncExternalStore(
+    subscribe,
+    () => state,
+    () => state,
+  );
 }

@@ -1,8 +1,9 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiRequest } from '../../../api/request';
+import { useMutation } from '@tanstack/react-query';
+import { ApiError, apiRequest } from '../../../api/request';
 import { serverFetch } from '../../../api/serverFetch';
 import type { AuthSession, SignInInput, SignUpInput } from '../../../contract/auth';
 import { setSession } from '../session';
+import { releasePhone } from '../../../local/phoneOwner';
 import { checkMe, setMe } from './me';
 
 async function startSession(path: string, body: unknown): Promise<AuthSession> {
@@ -34,14 +35,24 @@ function useSessionMutation<T>(path: string) {
 export const useSignIn = () => useSessionMutation<SignInInput>('/api/auth/sign-in');
 export const useSignUp = () => useSessionMutation<SignUpInput>('/api/auth/sign-up');
 
+/**
+ * Signs out and takes the person's data off the phone. Needs signal: the server must end the
+ * sign-in, or its cookie would sign the next person on this phone in as this one.
+ */
 export function useSignOut() {
-  const client = useQueryClient();
   return useMutation({
-    mutationFn: () => apiRequest<void>('/api/auth/sign-out', { method: 'POST' }).catch(() => undefined),
-    onSuccess: async () => {
+    mutationFn: async () => {
+      await apiRequest<void>('/api/auth/sign-out', { method: 'POST' }).catch((error: unknown) => {
+        if (error instanceof ApiError && error.status === 0)
+          throw new Error(
+            'Signing out needs a connection to the event server, so that this phone cannot sign you in again by itself. Stay signed in and try again with signal.',
+          );
+        throw error;
+      });
       setSession(undefined);
+      const cleared = releasePhone();
       setMe(null);
-      await client.invalidateQueries();
+      await cleared;
     },
   });
 }

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '../../../api/request';
 import type { CardView } from '../../../contract/judging';
-import type { MyCard } from '../../../contract/myCards';
+import type { MyCards } from '../../../contract/myCards';
 
 export const cardQuery = (sessionId: number, entryId: number) =>
   queryOptions({
@@ -15,7 +15,7 @@ export const useCard = (sessionId: number, entryId: number) => useQuery(cardQuer
 
 export const myCardsQuery = queryOptions({
   queryKey: ['my-cards'],
-  queryFn: () => apiRequest<{ cards: MyCard[] }>('/api/me/cards'),
+  queryFn: () => apiRequest<MyCards>('/api/me/cards'),
 });
 
 export const useMyCards = () => useQuery(myCardsQuery);

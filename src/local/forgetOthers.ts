@@ -1,0 +1,55 @@
+import type { LocalDb, OutboxRow } from './db';
+
+/** A change the server has not accepted yet: it belongs to its person until it reaches the server. */
+const isWaiting = (row: OutboxRow) => row.status !== 'applied';
+
+/**
+ * Removes from this phone every stored row that is not `keep`'s (everyone's when `keep` is
+ * undefined, at sign-out). The pulled copies of the server are one person's view, so they go
+ * whole, with every pull cursor, and the next person pulls their own from the start.
+ *
+ * Another person's changes that have not reached the server stay, and so does each target they
+ * are about: they go to the server when that person signs in again. Every screen reads them
+ * by person, so no one else sees them.
+ */
+export async function forgetOthers(db: LocalDb, keep: number | undefined): Promise<void> {
+  await db.transaction(
+    'rw',
+    [
+      db.targets,
+      db.outbox,
+      db.meta,
+      db.endRecords,
+      db.settlements,
+      db.rulings,
+      db.endSignatures,
+      db.cardSignatures,
+    ],
+    async () => {
+      const others = (await db.outbox.toArray()).filter((r) => r.userId !== keep);
+      const waiting = others.filter(isWaiting);
+      const targets = (await db.targets.toArray()).filter((t) => t.userId !== keep);
+      const stale = targets.filter(
+        (t) =>
+          !waiting.some(
+            (r) =>
+              r.userId === t.userId &&
+              r.args.sessionId === t.session.id &&
+              t.archers.some((a) => a.entryId === r.args.entryId),
+          ),
+      );
+      await db.targets.bulkDelete(stale.map((t) => t.key));
+      await db.outbox.bulkDelete(
+        others.filter((r) => !isWaiting(r)).map((r): [string, number] => [r.clientId, r.seq]),
+      );
+      await Promise.all([
+        db.endRecords.clear(),
+        db.settlements.clear(),
+        db.rulings.clear(),
+        db.endSignatures.clear(),
+        db.cardSignatures.clear(),
+        db.meta.where('key').startsWith('pullCursor:').delete(),
+      ]);
+    },
+  );
+}
