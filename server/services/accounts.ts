@@ -130,7 +130,13 @@ export async function signUp(
     await acceptInvitation(db, input.inviteToken, user.id);
     user = (await db('users').where({ id: user.id }).first()) as UserRow;
   } else {
-    await sendVerificationMail(db, mailer, user, options.baseUrl);
+    // The account stands even when the mail cannot leave (no mail server): the person can ask
+    // for the link again later, and that request says why it fails.
+    await sendVerificationMail(db, mailer, user, options.baseUrl).catch((err: unknown) =>
+      console.warn(
+        `Confirmation mail to account ${user.id} not sent: ${err instanceof Error ? err.message : err}`,
+      ),
+    );
   }
   return toSessionUser(user);
 }

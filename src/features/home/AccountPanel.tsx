@@ -58,9 +58,6 @@ export function AccountPanel() {
         <Link to="/events" className={`${linkClass} bg-moss text-white`}>
           My events
         </Link>
-        <Link to="/mail" className={`${linkClass} border-2 border-ink`}>
-          Caught mail
-        </Link>
         <Button variant="secondary" onClick={() => signOut.mutate()} disabled={signOut.isPending}>
           Sign out
         </Button>
