@@ -57,7 +57,16 @@ export function judgingRoutes(ctx: AppContext): Router {
     const roles = await rolesInEvent(db, req.user!.id, data.event.id);
     if (!roles.includes('organizer'))
       throw forbidden("Only the event's organizers can send a final card again.");
-    res.json(await sendFinalCard(db, ctx.mailer, data.session.id, data.archer.entryId, ctx.linkAddress.url));
+    res.json(
+      await sendFinalCard(
+        db,
+        ctx.mailer,
+        data.session.id,
+        data.archer.entryId,
+        ctx.linkAddress.url,
+        req.user!.id,
+      ),
+    );
   });
 
   // Public: anyone holding a printed or mailed card may check it.

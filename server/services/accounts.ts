@@ -6,6 +6,7 @@ import { dummyHashFor, hashPassword, passwordProblem, verifyPassword } from '../
 import { nowIso } from '../time';
 import { audit } from './audit';
 import { createEmailToken, findEmailToken, markEmailTokenUsed } from './emailTokens';
+import { reserveMail } from './limits/mailLimits';
 
 type UserRow = {
   id: number;
@@ -91,6 +92,7 @@ export async function sendVerificationMail(
   user: UserRow,
   base: string,
 ): Promise<void> {
+  await reserveMail(db, { kind: 'verify', sentBy: user.id, eventId: null, recipient: user.email });
   const token = await createEmailToken(db, { purpose: 'verify', email: user.email });
   await mailer.send({
     to: user.email,
