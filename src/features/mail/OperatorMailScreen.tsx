@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useEffect, useState, type FormEvent } from 'react';
 import { messageOf } from '../../api/request';
 import { Notice } from '../../ui/Notice';
 import { Button } from '../../ui/Button';
@@ -126,6 +126,12 @@ function KeyForm({ onKey }: { onKey: (key: string) => void }) {
  */
 export function OperatorMailScreen() {
   const [key, setKey] = useState(takeOperatorKey);
+  // The printed address pasted into a tab already on this screen changes only the hash.
+  useEffect(() => {
+    const onHash = () => setKey((current) => takeOperatorKey() ?? current);
+    window.addEventListener('hashchange', onHash);
+    return () => window.removeEventListener('hashchange', onHash);
+  }, []);
   const use = (next: string | undefined) => {
     rememberOperatorKey(next);
     setKey(next);

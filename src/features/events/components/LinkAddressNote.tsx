@@ -15,7 +15,8 @@ export function LinkAddressNote({ address }: { address: LinkAddress }) {
   const how = (
     <>
       To print another address, start the server with <code>PUBLIC_URL</code> set to an address phones can
-      open (for example <code>PUBLIC_URL=http://192.168.1.20:3000</code>), then print again.
+      open (for example <code className="break-all">PUBLIC_URL=http://192.168.1.20:3000</code>), then print
+      again.
     </>
   );
   if (!address.phonesCanOpen) {
@@ -29,7 +30,14 @@ export function LinkAddressNote({ address }: { address: LinkAddress }) {
           <span aria-hidden="true">▲ </span>Phones cannot open the address on the paper: {address.url}
         </p>
         <p className="text-base">
-          A phone opening it would reach itself, not this server ({WHERE[address.from]}). {how}
+          A phone opening it would reach itself, not this server ({WHERE[address.from]}).{' '}
+          {address.from === 'HOST' && (
+            <>
+              The server only listens on this machine: start it with <code>HOST=0.0.0.0</code> so phones reach
+              it.{' '}
+            </>
+          )}
+          {how}
         </p>
       </div>
     );
