@@ -44,7 +44,7 @@ async function main(): Promise<void> {
 
   const mailLine = {
     smtp: '  Mail:      sent through SMTP_URL',
-    off: '  Mail:      ▲ OFF (NODE_ENV=production without SMTP_URL): invitations and confirmations cannot be sent. Set SMTP_URL, or MAIL_CATCHER=on for a trial.',
+    off: '  Mail:      ▲ OFF (no SMTP_URL, and the catcher is off, as in production): invitations and confirmations cannot be sent. Set SMTP_URL, or MAIL_CATCHER=on for a trial.',
     catcher: `  Mail:      caught, not sent (SMTP on 127.0.0.1:${catcher?.port}). Only you, the operator, read it:\n  Mail inbox: ${linkAddress.url}/operator/mail#key=${mailInboxKey} (keep this address to yourself)`,
   }[config.mail];
   const lines = [

@@ -66,5 +66,5 @@ export function linkAddressLine(address: LinkAddress): string {
   const line = `  Links:     ${address.url} in mail, QR codes and cards (${why[address.from]})`;
   return address.phonesCanOpen
     ? line
-    : `${line}\n  ▲ Phones cannot open ${address.url}. Join a network, or set PUBLIC_URL to an address phones can reach, and restart.`;
+    : `${line}\n  ▲ Phones cannot open ${address.url}. ${address.from === 'HOST' ? 'Listen on all addresses (HOST=0.0.0.0)' : 'Join a network'}, or set PUBLIC_URL to an address phones can reach, and restart.`;
 }

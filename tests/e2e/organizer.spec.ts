@@ -44,6 +44,8 @@ test('an organizer builds an event from nothing to printed scorecards and an inv
   page,
   request,
 }) => {
+  // A whole event from nothing, with accessibility checks, on a machine other runs share.
+  test.setTimeout(120_000);
   const stamp = Date.now();
   const email = `organizer.${stamp}@example.org`;
   const password = 'a long steady draw';
