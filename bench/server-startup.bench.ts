@@ -28,7 +28,7 @@ const app = createApp({
   version: 'bench',
   secret: new TextEncoder().encode('bench-secret-bench-secret-bench-secret'),
   mailer: { send: async () => undefined },
-  mailCaught: false,
+  linkAddress: { url: 'http://127.0.0.1', from: 'HOST', phonesCanOpen: false },
   dataDir: dir,
   signingKeys,
   logRequests: false,

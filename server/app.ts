@@ -1,6 +1,7 @@
 import express, { type Express } from 'express';
 import cookieParser from 'cookie-parser';
 import morgan from 'morgan';
+import type { LinkAddress } from '../src/contract/linkAddress';
 import type { Db } from './db';
 import type { Mailer } from './mail/mailer';
 import type { AppContext } from './context';
@@ -12,7 +13,7 @@ import { requireUser } from './auth/requireUser';
 import { BCRYPT_COST } from './auth/passwords';
 import { healthRoutes } from './routes/health';
 import { authRoutes } from './routes/auth';
-import { caughtMailRoutes } from './routes/caughtMail';
+import { operatorMailRoutes } from './routes/operatorMail';
 import { eventRoutes } from './routes/events';
 import { divisionRoutes } from './routes/divisions';
 import { sessionRoutes } from './routes/sessions';
@@ -31,10 +32,12 @@ export type AppDeps = {
   version: string;
   secret: Uint8Array;
   mailer: Mailer;
-  mailCaught: boolean;
+  /** The operator's key to the caught-mail inbox; leave it out when mail is not caught. */
+  mailInboxKey?: string;
   dataDir: string;
   signingKeys: SigningKeys;
-  publicUrl?: string;
+  /** Where links in mail and on paper point (server/linkAddress.ts). */
+  linkAddress: LinkAddress;
   /** Defaults to the production cost; tests lower it to stay fast. */
   bcryptCost?: number;
   /** Folder of the built client; when it has no index.html only the API is served. */
@@ -48,10 +51,10 @@ export function createApp(deps: AppDeps): Express {
     db: deps.db,
     secret: deps.secret,
     mailer: deps.mailer,
-    mailCaught: deps.mailCaught,
+    mailInboxKey: deps.mailInboxKey,
     dataDir: deps.dataDir,
     signingKeys: deps.signingKeys,
-    publicUrl: deps.publicUrl,
+    linkAddress: deps.linkAddress,
     bcryptCost: deps.bcryptCost ?? BCRYPT_COST,
     requireUser: requireUser(deps.db, deps.secret),
   };
@@ -71,7 +74,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(healthRoutes(deps.version));
   api.use(authRoutes(ctx));
   api.use(myCardsRoutes(ctx));
-  api.use(caughtMailRoutes(ctx));
+  api.use(operatorMailRoutes(ctx));
   api.use(eventRoutes(ctx));
   api.use(divisionRoutes(ctx));
   api.use(sessionRoutes(ctx));

@@ -17,7 +17,18 @@ const envSchema = z.object({
   SMTP_URL: z.string().url().optional(),
   MAIL_FROM: z.string().default('Ringcall <no-reply@ringcall.local>'),
   MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  /** Catch mail instead of sending it: on by default, off by default when NODE_ENV=production. */
+  MAIL_CATCHER: z.enum(['on', 'off']).optional(),
+  /** The operator's key to the caught-mail inbox; made in DATA_DIR when unset. */
+  MAIL_INBOX_SECRET: z.string().min(32, 'use at least 32 characters').optional(),
+  NODE_ENV: z.string().optional(),
 });
+
+/**
+ * Where mail goes: a real server (SMTP_URL), the app's own catcher, or nowhere. A production
+ * server never catches mail unless asked to, so no inbox of other people's links is left open.
+ */
+export type MailMode = 'smtp' | 'catcher' | 'off';
 
 export type ServerConfig = {
   port: number;
@@ -33,7 +44,19 @@ export type ServerConfig = {
   smtpUrl: string | undefined;
   mailFrom: string;
   mailCatcherPort: number;
+  mail: MailMode;
+  mailInboxSecret: string | undefined;
 };
+
+function mailMode(e: z.infer<typeof envSchema>): MailMode {
+  if (e.SMTP_URL && e.MAIL_CATCHER === 'on')
+    throw new Error(
+      'Ringcall cannot start: set SMTP_URL to send real mail, or MAIL_CATCHER=on to catch it, not both.',
+    );
+  if (e.SMTP_URL) return 'smtp';
+  const catcher = e.MAIL_CATCHER ?? (e.NODE_ENV === 'production' ? 'off' : 'on');
+  return catcher === 'on' ? 'catcher' : 'off';
+}
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
   const parsed = envSchema.safeParse(env);
@@ -56,5 +79,7 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,
     mailCatcherPort: e.MAIL_CATCHER_PORT,
+    mail: mailMode(e),
+    mailInboxSecret: e.MAIL_INBOX_SECRET,
   };
 }

@@ -1,4 +1,5 @@
 import type { RequestHandler } from 'express';
+import type { LinkAddress } from '../src/contract/linkAddress';
 import type { Db } from './db';
 import type { Mailer } from './mail/mailer';
 import type { SigningKeys } from './signing/serverKeys';
@@ -9,9 +10,10 @@ export type AppContext = {
   secret: Uint8Array;
   mailer: Mailer;
   bcryptCost: number;
-  publicUrl: string | undefined;
-  /** True when mail goes to the app's own catcher (demo, development, tests). */
-  mailCaught: boolean;
+  /** The address links in mail and on paper use, fixed at start (never a request's Host header). */
+  linkAddress: LinkAddress;
+  /** The operator's key to the mail catcher's inbox; undefined when mail is not caught. */
+  mailInboxKey: string | undefined;
   dataDir: string;
   /** The server's key pair for signatures on ends and cards (public half at /.well-known/jwks.json). */
   signingKeys: SigningKeys;

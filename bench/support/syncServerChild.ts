@@ -21,7 +21,7 @@ const app = createApp({
   version: 'bench',
   secret: BENCH_SECRET,
   mailer: { send: async () => undefined },
-  mailCaught: false,
+  linkAddress: { url: 'http://127.0.0.1', from: 'HOST', phonesCanOpen: false },
   dataDir: dirname(file),
   signingKeys: await loadSigningKeys(dirname(file)),
   logRequests: false,

@@ -9,7 +9,6 @@ import {
 import type { AppContext } from '../context';
 import { validateBody } from '../http/validate';
 import { unauthorized } from '../http/httpError';
-import { baseUrl } from '../http/baseUrl';
 import { signAccessToken } from '../auth/tokens';
 import { issueRefreshToken, revokeRefreshFamily, rotateRefreshToken } from '../auth/refreshTokens';
 import { signInLimits, signUpLimit } from '../auth/rateLimits';
@@ -51,7 +50,7 @@ export function authRoutes(ctx: AppContext): Router {
   router.post('/auth/sign-up', signUpLimit(), validateBody(signUpSchema), async (req, res) => {
     const user = await signUp(db, ctx.mailer, req.body, {
       bcryptCost: ctx.bcryptCost,
-      baseUrl: baseUrl(req, ctx.publicUrl),
+      baseUrl: ctx.linkAddress.url,
     });
     await startSession(req, res, user.id, 201);
   });
@@ -94,7 +93,7 @@ export function authRoutes(ctx: AppContext): Router {
 
   router.post('/me/send-verification', ctx.requireUser, async (req, res) => {
     const row = await db('users').where({ id: req.user!.id }).first();
-    await sendVerificationMail(db, ctx.mailer, row, baseUrl(req, ctx.publicUrl));
+    await sendVerificationMail(db, ctx.mailer, row, ctx.linkAddress.url);
     res.status(202).json({ sent: true });
   });
 

@@ -4,7 +4,6 @@ import { PHOTO_MAX_BYTES } from '../../src/contract/judging';
 import type { AppContext } from '../context';
 import { requireEventRole, rolesInEvent } from '../auth/eventRoles';
 import { verifyLimit } from '../auth/rateLimits';
-import { baseUrl } from '../http/baseUrl';
 import { badRequest, forbidden } from '../http/httpError';
 import { idParam } from '../http/params';
 import { photoUpload } from '../http/photoUpload';
@@ -59,7 +58,14 @@ export function judgingRoutes(ctx: AppContext): Router {
     if (!roles.includes('organizer'))
       throw forbidden("Only the event's organizers can send a final card again.");
     res.json(
-      await sendFinalCard(db, ctx.mailer, data.session.id, data.archer.entryId, baseUrl(req, ctx.publicUrl)),
+      await sendFinalCard(
+        db,
+        ctx.mailer,
+        data.session.id,
+        data.archer.entryId,
+        ctx.linkAddress.url,
+        req.user!.id,
+      ),
     );
   });
 

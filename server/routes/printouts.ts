@@ -1,7 +1,6 @@
 import { Router, type Request, type Response } from 'express';
 import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
-import { baseUrl } from '../http/baseUrl';
 import { idParam } from '../http/params';
 import { findSession } from '../services/sessions';
 import { loadPrintSession } from '../services/printouts/printSession';
@@ -24,7 +23,7 @@ export function printoutRoutes(ctx: AppContext): Router {
 
   async function send(req: Request, res: Response, what: 'scorecards' | 'target-sheets') {
     const session = await findSession(db, Number(req.params.eventId), idParam(req, 'sessionId', 'session'));
-    const print = await loadPrintSession(db, session, baseUrl(req, ctx.publicUrl));
+    const print = await loadPrintSession(db, session, ctx.linkAddress.url);
     const pdf = what === 'scorecards' ? await scorecardsPdf(print) : await targetSheetsPdf(print);
     res.setHeader('Content-Type', 'application/pdf');
     res.setHeader('Content-Disposition', `attachment; filename="${fileName(session.name, what)}"`);

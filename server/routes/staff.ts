@@ -2,7 +2,6 @@ import { Router } from 'express';
 import { inviteStaffSchema, staffRoleSchema } from '../../src/contract/events';
 import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
-import { baseUrl } from '../http/baseUrl';
 import { notFound } from '../http/httpError';
 import { idParam } from '../http/params';
 import { validateBody } from '../http/validate';
@@ -28,7 +27,7 @@ export function staffRoutes(ctx: AppContext): Router {
       ...req.body,
       eventId: Number(req.params.eventId),
       invitedBy: { id: req.user!.id, displayName: req.user!.displayName },
-      baseUrl: baseUrl(req, ctx.publicUrl),
+      baseUrl: ctx.linkAddress.url,
     });
     res.status(201).json(invitation);
   });

@@ -1,7 +1,6 @@
 import { Router } from 'express';
 import { pullQuerySchema, pushRequestSchema } from '../../src/contract/sync';
 import type { AppContext } from '../context';
-import { baseUrl } from '../http/baseUrl';
 import { badRequest } from '../http/httpError';
 import { describeIssues, validateBody } from '../http/validate';
 import { pullChanges } from '../services/sync/pullChanges';
@@ -17,12 +16,11 @@ export function syncRoutes(ctx: AppContext): Router {
   const { db } = ctx;
 
   router.post('/sync/push', ctx.requireUser, validateBody(pushRequestSchema), async (req, res) => {
-    const base = baseUrl(req, ctx.publicUrl);
     res.json(
       await pushBatch(db, req.user!.id, req.body, {
         signingKeys: ctx.signingKeys,
         // Mailed after the push is committed, without holding up its answer.
-        onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, base),
+        onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, ctx.linkAddress.url),
       }),
     );
   });
@@ -34,11 +32,10 @@ export function syncRoutes(ctx: AppContext): Router {
     requireEventRole(db, 'judge'),
     validateBody(waitingChangesFileSchema),
     async (req, res) => {
-      const base = baseUrl(req, ctx.publicUrl);
       res.json(
         await importWaitingChanges(db, Number(req.params.eventId), req.user!.id, req.body, {
           signingKeys: ctx.signingKeys,
-          onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, base),
+          onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, ctx.linkAddress.url),
         }),
       );
     },

@@ -2,7 +2,6 @@ import { Router, type Request } from 'express';
 import { MAX_TARGET_NUMBER, moveArcherSchema, swapArchersSchema } from '../../src/contract/events';
 import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
-import { baseUrl } from '../http/baseUrl';
 import { notFound } from '../http/httpError';
 import { idParam } from '../http/params';
 import { validateBody } from '../http/validate';
@@ -32,7 +31,7 @@ export function targetRoutes(ctx: AppContext): Router {
     if (n > MAX_TARGET_NUMBER) throw notFound('That target does not exist.');
     return n;
   };
-  const layout = async (req: Request) => loadTargetList(db, await session(req), baseUrl(req, ctx.publicUrl));
+  const layout = async (req: Request) => loadTargetList(db, await session(req), ctx.linkAddress);
 
   router.get(
     `${base}/targets`,

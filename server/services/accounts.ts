@@ -6,6 +6,7 @@ import { dummyHashFor, hashPassword, passwordProblem, verifyPassword } from '../
 import { nowIso } from '../time';
 import { audit } from './audit';
 import { createEmailToken, findEmailToken, markEmailTokenUsed } from './emailTokens';
+import { reserveMail } from './limits/mailLimits';
 
 type UserRow = {
   id: number;
@@ -91,6 +92,7 @@ export async function sendVerificationMail(
   user: UserRow,
   base: string,
 ): Promise<void> {
+  await reserveMail(db, { kind: 'verify', sentBy: user.id, eventId: null, recipient: user.email });
   const token = await createEmailToken(db, { purpose: 'verify', email: user.email });
   await mailer.send({
     to: user.email,
@@ -130,7 +132,13 @@ export async function signUp(
     await acceptInvitation(db, input.inviteToken, user.id);
     user = (await db('users').where({ id: user.id }).first()) as UserRow;
   } else {
-    await sendVerificationMail(db, mailer, user, options.baseUrl);
+    // The account stands even when the mail cannot leave (no mail server): the person can ask
+    // for the link again later, and that request says why it fails.
+    await sendVerificationMail(db, mailer, user, options.baseUrl).catch((err: unknown) =>
+      console.warn(
+        `Confirmation mail to account ${user.id} not sent: ${err instanceof Error ? err.message : err}`,
+      ),
+    );
   }
   return toSessionUser(user);
 }

@@ -6,6 +6,7 @@ import { nowIso } from '../time';
 import { audit } from './audit';
 import { createEmailToken } from './emailTokens';
 import { loadEvent } from './events';
+import { reserveMail } from './limits/mailLimits';
 
 const ROLE_WORDS: Record<StaffRole, string> = { organizer: 'an organizer', judge: 'a judge' };
 
@@ -78,6 +79,12 @@ export async function inviteStaff(
       `${holder.display_name} (${input.email}) is already ${ROLE_WORDS[input.role]} at this event.`,
     );
 
+  await reserveMail(db, {
+    kind: 'invite',
+    sentBy: input.invitedBy.id,
+    eventId: input.eventId,
+    recipient: input.email,
+  });
   await db('email_tokens')
     .where({ event_id: input.eventId, purpose: 'invite', email: input.email, role: input.role })
     .whereNull('used_at')

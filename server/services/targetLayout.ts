@@ -7,6 +7,7 @@ import type {
   UnassignedEntry,
 } from '../../src/contract/events';
 import { canonicalJson, type RoundDefinition } from '../../src/core';
+import type { LinkAddress } from '../../src/contract/linkAddress';
 import type { Db } from '../db';
 import { activeJoinCodes, toJoinCode } from './joinCodes';
 import { parseRound, sessionDivisions, type SessionRow } from './sessions';
@@ -86,7 +87,7 @@ export async function loadLayout(db: Db, session: SessionRow): Promise<LayoutEnt
 export const placed = (layout: LayoutEntry[]) => layout.filter((e) => e.targetNumber !== null);
 
 /** Targets with their archers in position order, join codes, faces to hang, and every conflict in words. */
-export async function loadTargetList(db: Db, session: SessionRow, baseUrl: string): Promise<TargetList> {
+export async function loadTargetList(db: Db, session: SessionRow, link: LinkAddress): Promise<TargetList> {
   const layout = await loadLayout(db, session);
   const onTargets = placed(layout).sort(
     (a, b) => a.targetNumber! - b.targetNumber! || a.position!.localeCompare(b.position!),
@@ -103,7 +104,7 @@ export async function loadTargetList(db: Db, session: SessionRow, baseUrl: strin
         archers: [],
         facesPerTarget: 1,
         faceUse: 'shared',
-        joinCode: code ? await toJoinCode(code, baseUrl) : null,
+        joinCode: code ? await toJoinCode(code, link.url) : null,
       };
       targets.push(target);
     }
@@ -152,5 +153,6 @@ export async function loadTargetList(db: Db, session: SessionRow, baseUrl: strin
     targets,
     unassigned,
     conflicts,
+    linkAddress: link,
   };
 }

@@ -46,9 +46,11 @@ const routes: RouteObject[] = [
           ...cardRoutes,
           ...eventRoutes,
           {
-            path: 'mail',
+            // The operator's, not an app role's: no sign-in, and nothing of it in the query cache.
+            path: 'operator/mail',
             element: lazyScreen(
-              async () => (await import('../features/mail/CaughtMailScreen')).CaughtMailScreen,
+              async () => (await import('../features/mail/OperatorMailScreen')).OperatorMailScreen,
+              { serverData: false },
             ),
           },
           {

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { emailSchema } from './auth';
 import type { EventRole } from './auth';
+import type { LinkAddress } from './linkAddress';
 
 /*
  * The event setup API: events, divisions, sessions and their rounds, the entry list, staff,
@@ -354,6 +355,8 @@ export type TargetList = {
   targets: Target[];
   unassigned: UnassignedEntry[];
   conflicts: Conflict[];
+  /** The address the join links and QR codes of this session's printouts open. */
+  linkAddress: LinkAddress;
 };
 
 export type AssignResult = TargetList & { assigned: number };

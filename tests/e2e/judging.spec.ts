@@ -1,7 +1,8 @@
 import { expect, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
 import { devices } from '@playwright/test';
-import { DEMO_JUDGES, DEMO_ORGANIZER, DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
+import { DEMO_JUDGES, DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
 import { readDemoDb, readDemoRows } from './support/demoDb';
+import { operatorMailTo } from './support/operatorMail';
 
 /** A demo target nobody scores in the seeded demo field: four barebow archers, 122 cm face, 12 ends of 6. */
 const TARGET = 11;
@@ -154,26 +155,9 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   await scorer.screenshot({ path: '.tmp/screens/card-final.png', fullPage: true });
 
   // The final card arrives by mail with its PDF, and its link verifies as unchanged.
-  const organizer = await token(request, DEMO_ORGANIZER.email);
-  let mail: { id: number; text: string; attachments: { contentType: string }[] } | undefined;
-  for (let i = 0; i < 40 && !mail; i += 1) {
-    const list = (await (
-      await request.get('/api/caught-mail', { headers: { Authorization: `Bearer ${organizer}` } })
-    ).json()) as {
-      messages: { id: number; to: string }[];
-    };
-    const found = list.messages.find((m) => m.to === archerA.email);
-    if (found)
-      mail = await (
-        await request.get(`/api/caught-mail/${found.id}`, {
-          headers: { Authorization: `Bearer ${organizer}` },
-        })
-      ).json();
-    else await new Promise((r) => setTimeout(r, 500));
-  }
-  expect(mail, 'final card mail').toBeDefined();
-  expect(mail!.attachments.map((a) => a.contentType)).toContain('application/pdf');
-  const link = /https?:\/\/\S+\/verify\?sig=\S+/.exec(mail!.text)![0];
+  const mail = await operatorMailTo(request, archerA.email, /final scorecard/);
+  expect(mail.attachments.map((a) => a.contentType)).toContain('application/pdf');
+  const link = /https?:\/\/\S+\/verify\?sig=\S+/.exec(mail.text)![0];
   await archer.goto(link.replace(/^https?:\/\/[^/]+/, ''));
   await expect(archer.getByTestId('verify-result')).toContainText('Unchanged since it was signed');
   await archer.screenshot({ path: '.tmp/screens/verify.png', fullPage: true });

@@ -309,8 +309,9 @@ async function makeFixture(): Promise<Fixture> {
     await api('post', '/sessions', { name: 'Closed', startsAt: '2026-12-12T15:00', rounds: [] })
   ).body.id;
   await api('post', `/sessions/${closedSessionId}/close`, {});
-  const invitationId = (await api('post', '/staff', { email: 'pending@example.org', role: 'organizer' })).body
-    .id;
+  const invitationId = (
+    await api('post', '/staff', { email: `pending.${eventId}@example.org`, role: 'organizer' })
+  ).body.id;
   const joinCode = (
     await db('join_codes')
       .where({ session_id: sessionId, target_number: 1 })

@@ -5,7 +5,7 @@ import { simpleParser } from 'mailparser';
 import { CompactSign, compactVerify, createLocalJWKSet, generateKeyPair, type JSONWebKeySet } from 'jose';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CardView, VerifyResult } from '../../src/contract/judging';
-import { startTestServer, type TestServer } from './support/testServer';
+import { startTestServer, TEST_LINK_ADDRESS, type TestServer } from './support/testServer';
 import { waitForMail } from './support/mail';
 import {
   ADA_EMAIL,
@@ -180,7 +180,7 @@ describe('the final card', () => {
     const mail = await waitForMail(server.db, ADA_EMAIL);
     expect(mail.subject).toBe('Your final scorecard: Field Shoot, Qualification');
     const parsed = await simpleParser(mail.raw);
-    expect(parsed.text).toContain(`/verify?sig=${archerJws}`);
+    expect(parsed.text).toContain(`${TEST_LINK_ADDRESS.url}/verify?sig=${archerJws}`);
     expect(parsed.attachments).toHaveLength(1);
     const pdf = parsed.attachments[0]!;
     expect(pdf.contentType).toBe('application/pdf');
@@ -200,11 +200,17 @@ describe('the final card', () => {
   });
 
   it('organizers can send it again; a failing mail server loses no signature', async () => {
+    const before = (await server.db('caught_mail').max({ id: 'id' }).first())!.id as number;
     const res = await request(server.app)
       .post(`/api/cards/${j.sessionId}/${j.ada.entryId}/send`)
-      .set(j.field.organizer.auth);
+      .set(j.field.organizer.auth)
+      .set({ Host: 'evil.example', 'X-Forwarded-Host': 'evil.example' });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     expect(res.body).toEqual({ sentTo: ADA_EMAIL });
+    // The link in the mail is the server's own address, not the one the request claimed.
+    const again = await waitForMail(server.db, ADA_EMAIL, 5_000, before);
+    expect(again.text_body).toContain(`${TEST_LINK_ADDRESS.url}/verify?sig=`);
+    expect(again.raw).not.toContain('evil.example');
 
     const failing = { send: async () => Promise.reject(new Error('connection refused')) };
     await expect(

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
 import { migrate, openDb, type Db } from '../../server/db';
-import { startTestServer, TEST_BCRYPT_COST, type TestServer } from './support/testServer';
+import { startTestServer, TEST_BCRYPT_COST, TEST_LINK_ADDRESS, type TestServer } from './support/testServer';
 import { TEST_SECRET, makePerson } from './support/people';
 import { setUpMixedField } from './support/fieldSetup';
 import { Phone } from './support/phone';
@@ -52,8 +52,8 @@ describe('server restart', () => {
       version: 'test',
       secret: TEST_SECRET,
       mailer: { send: async () => undefined },
-      mailCaught: true,
       dataDir: server.dir,
+      linkAddress: TEST_LINK_ADDRESS,
       signingKeys,
       bcryptCost: TEST_BCRYPT_COST,
     });

@@ -3,6 +3,7 @@ import type { Db } from '../../db';
 import type { Mailer } from '../../mail/mailer';
 import { conflict, HttpError } from '../../http/httpError';
 import { nowIso } from '../../time';
+import { reserveMail } from '../limits/mailLimits';
 import { qrPng } from '../joinCodes';
 import { PrintDocument } from '../printouts/pdfDocument';
 import { scorecardPage, type FilledCard } from '../printouts/scorecards';
@@ -112,6 +113,8 @@ export async function sendFinalCard(
   sessionId: number,
   entryId: number,
   baseUrl: string,
+  /** Who asked for it again (counted against the mail limits); absent when the last signature sends it. */
+  requestedBy?: number,
 ): Promise<{ sentTo: string }> {
   const card = await loadCard(db, sessionId, entryId);
   if (!isFinal(card))
@@ -123,6 +126,8 @@ export async function sendFinalCard(
     throw conflict(
       `${card.archer.name} has no e-mail address. Add one in the entry list, then send the card again.`,
     );
+  if (requestedBy !== undefined)
+    await reserveMail(db, { kind: 'card', sentBy: requestedBy, eventId: card.event.id, recipient: to });
   const pdf = await finalCardPdf(card, baseUrl);
   const url = verifyUrl(baseUrl, card.signatures.archer!.jws);
   const t = cardTotals(

@@ -1,13 +1,14 @@
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, renameSync, writeFileSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import type { PhotoUploadResult } from '../../../src/contract/judging';
 import type { Db } from '../../db';
 import { HttpError, forbidden, notFound } from '../../http/httpError';
 import { photoKind } from '../../http/photoUpload';
 import { nowIso } from '../../time';
 import { audit } from '../audit';
+import { refusePhotoOverLimits } from '../limits/photoLimits';
 
 /** Photos live in DATA_DIR/photos, outside the web root: only the API serves them, to those allowed. */
 export const photoDir = (dataDir: string): string => join(dataDir, 'photos');
@@ -32,30 +33,39 @@ export async function storePhoto(
     );
   const sha256 = createHash('sha256').update(bytes).digest('hex');
   const stored = `${sha256}.${kind.ext}`;
-  const dir = photoDir(dataDir);
-  const file = join(dir, stored);
-  if (!existsSync(file)) {
-    mkdirSync(dir, { recursive: true });
-    // Written beside and renamed, so a half-written file is never served.
-    const partial = `${file}.${process.pid}.part`;
-    writeFileSync(partial, bytes, { mode: 0o600 });
-    renameSync(partial, file);
-  }
-  const existing = await db('photos').where({ event_id: eventId, sha256 }).first('id');
-  if (existing) return { created: false, result: { photoId: existing.id, sha256 } };
-  const [row] = (await db('photos')
-    .insert({
-      event_id: eventId,
-      sha256,
-      mime_type: kind.mime,
-      size_bytes: bytes.length,
-      stored_name: stored,
-      uploaded_by: userId,
-      uploaded_at: nowIso(),
-    })
-    .returning('id')) as { id: number }[];
-  await audit(db, { userId, eventId, action: 'photo.uploaded', details: { photoId: row!.id, sha256 } });
-  return { created: true, result: { photoId: row!.id, sha256 } };
+  const file = join(photoDir(dataDir), stored);
+  return db.transaction(async (trx) => {
+    const existing = await trx('photos').where({ event_id: eventId, sha256 }).first('id');
+    if (existing) {
+      writeOnce(file, bytes);
+      return { created: false, result: { photoId: existing.id, sha256 } };
+    }
+    await refusePhotoOverLimits(trx, userId, eventId, bytes.length);
+    writeOnce(file, bytes);
+    const [row] = (await trx('photos')
+      .insert({
+        event_id: eventId,
+        sha256,
+        mime_type: kind.mime,
+        size_bytes: bytes.length,
+        stored_name: stored,
+        uploaded_by: userId,
+        uploaded_at: nowIso(),
+      })
+      .returning('id')) as { id: number }[];
+    await audit(trx, { userId, eventId, action: 'photo.uploaded', details: { photoId: row!.id, sha256 } });
+    return { created: true, result: { photoId: row!.id, sha256 } };
+  });
+}
+
+/** Stores a picture's file once (the same picture in two events is one file). */
+function writeOnce(file: string, bytes: Buffer): void {
+  if (existsSync(file)) return;
+  mkdirSync(dirname(file), { recursive: true });
+  // Written beside and renamed, so a half-written file is never served.
+  const partial = `${file}.${process.pid}.part`;
+  writeFileSync(partial, bytes, { mode: 0o600 });
+  renameSync(partial, file);
 }
 
 /** A photo's bytes, for the judges and organizers of its event only. */

@@ -16,6 +16,7 @@ import { useDownloadScorecards } from './api/downloadScorecards';
 import { useDownloadTargetSheets } from './api/downloadTargetSheets';
 import { ConfirmButton } from './components/ConfirmButton';
 import { OrganizerGate } from './components/OrganizerGate';
+import { LinkAddressNote } from './components/LinkAddressNote';
 import { PlacesPanel } from './components/PlacesPanel';
 import { TargetCard } from './components/TargetCard';
 import { localStart } from './components/formProblems';
@@ -133,6 +134,7 @@ function Targets({ summary, sessionId }: { summary: EventSummary; sessionId: num
           <p className="text-base">
             One scorecard per archer; one sheet per target with its join code, QR code and the range cautions.
           </p>
+          <LinkAddressNote address={list.linkAddress} />
           {printError && <Notice tone="error">{printError.message}</Notice>}
         </section>
       )}

@@ -2,6 +2,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Express } from 'express';
+import type { LinkAddress } from '../../../src/contract/linkAddress';
 import { createApp } from '../../../server/app';
 import { migrate, openDb, type Db } from '../../../server/db';
 import { startMailCatcher } from '../../../server/mail/mailCatcher';
@@ -18,6 +19,11 @@ export type TestServer = {
   signingKeys: SigningKeys;
   close: () => Promise<void>;
 };
+
+/** The operator's key to the caught-mail inbox in tests. */
+export const TEST_MAIL_INBOX_KEY = 'operator-key-for-tests-only-0123456789';
+/** Links in mail and on paper point here in tests (a documentation address, RFC 5737). */
+export const TEST_LINK_ADDRESS: LinkAddress = { url: 'http://192.0.2.10:3000', from: 'network', phonesCanOpen: true };
 
 /** bcrypt cost for tests only: production uses 12 (asserted in tests/server/auth.test.ts). */
 export const TEST_BCRYPT_COST = 4;
@@ -37,9 +43,10 @@ export async function startTestServer(
     version: 'test',
     secret: TEST_SECRET,
     mailer: createMailer(catcher.smtpUrl, 'Ringcall test <test@ringcall.example>'),
-    mailCaught: true,
+    mailInboxKey: TEST_MAIL_INBOX_KEY,
     dataDir: dir,
     signingKeys,
+    linkAddress: TEST_LINK_ADDRESS,
     bcryptCost: options.bcryptCost ?? TEST_BCRYPT_COST,
     logRequests: false,
     ...(options.clientDir ? { clientDir: options.clientDir } : {}),
