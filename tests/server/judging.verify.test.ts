@@ -211,6 +211,10 @@ describe('the final card', () => {
     const again = await waitForMail(server.db, ADA_EMAIL, 5_000, before);
     expect(again.text_body).toContain(`${TEST_LINK_ADDRESS.url}/verify?sig=`);
     expect(again.raw).not.toContain('evil.example');
+    // Sent again by a person, it counts against the mail limits (tests/server/limits.test.ts).
+    expect(await server.db('sent_mail').where({ kind: 'card', sent_by: j.field.organizer.id })).toHaveLength(
+      1,
+    );
 
     const failing = { send: async () => Promise.reject(new Error('connection refused')) };
     await expect(
@@ -238,7 +242,7 @@ describe('the final card', () => {
       totalEnds: 12,
       total,
     });
-  });
+  }, 60_000); // three PDFs of a final card: slow on a loaded machine
 
   it('a later ruling supersedes the card: verification says so', async () => {
     expectApplied([
