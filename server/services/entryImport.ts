@@ -8,6 +8,7 @@ import {
   type ImportRow,
 } from '../../src/contract/events';
 import type { Db } from '../db';
+import { refuseOverLimit } from './eventLimits';
 import { HttpError, badRequest } from '../http/httpError';
 import { nowIso } from '../time';
 import { audit } from './audit';
@@ -143,6 +144,7 @@ export async function importEntries(
   const raw = readEntryCsv(buffer);
   return db.transaction(async (trx) => {
     const { rows, divisionIds } = await checkEntryRows(trx, eventId, raw);
+    await refuseOverLimit(trx, eventId, 'entries', rows.length);
     const bad = rows.filter((r) => r.problems.length > 0);
     if (bad.length) {
       throw new HttpError(

@@ -3,7 +3,6 @@ import type { Db } from '../../db';
 import type { Mailer } from '../../mail/mailer';
 import { conflict, HttpError } from '../../http/httpError';
 import { nowIso } from '../../time';
-import { qrPng } from '../joinCodes';
 import { PrintDocument } from '../printouts/pdfDocument';
 import { scorecardPage, type FilledCard } from '../printouts/scorecards';
 import { isFinal, loadCard, type CardData } from './cardData';
@@ -60,7 +59,7 @@ export async function finalCardPdf(card: CardData, baseUrl: string): Promise<Buf
       { label: 'Scorer', name: scorer.name, at: timeInEvent(scorer.signed_at, card.event.timeZone) },
     ],
     judgesLine: `All ${card.ends.length} ends signed by a judge (${listInWords(judges)}).`,
-    verify: { url, qrPng: await qrPng(url, 900) },
+    verify: { url },
   };
   const pdf = new PrintDocument(
     `Final card · ${card.archer.name} · ${card.event.name} · ${card.session.name}`,
@@ -82,7 +81,7 @@ export async function finalCardPdf(card: CardData, baseUrl: string): Promise<Buf
     },
     filled,
   );
-  return pdf.finish();
+  return pdf.toBuffer();
 }
 
 /** Where a final card is mailed: the entry's address, else the linked account's. */
