@@ -51,6 +51,12 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
       'Something went wrong on the server. Try again; if it keeps happening, tell the organizer.',
     );
   }
+  // A failure in the middle of a streamed answer (a printout): the status is long sent, so the
+  // connection is cut and the reader sees an incomplete file rather than a second answer.
+  if (res.headersSent) {
+    res.destroy();
+    return;
+  }
   const body: ApiErrorBody = {
     error: {
       code: httpError.code,
