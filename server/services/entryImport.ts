@@ -7,6 +7,7 @@ import {
   type ImportResult,
   type ImportRow,
 } from '../../src/contract/events';
+import { cleanText } from '../../src/core';
 import type { Db } from '../db';
 import { refuseOverLimit } from './eventLimits';
 import { HttpError, badRequest } from '../http/httpError';
@@ -63,7 +64,7 @@ export function readEntryCsv(buffer: Buffer): RawRow[] {
   const rows: RawRow[] = [];
   records.forEach((record, index) => {
     if (index <= headerIndex || record.every((cell) => cell.trim() === '')) return;
-    const cell = (c: Column) => (columnIndex[c] >= 0 ? (record[columnIndex[c]] ?? '').trim() : '');
+    const cell = (c: Column) => (columnIndex[c] >= 0 ? cleanText(record[columnIndex[c]] ?? '').trim() : '');
     rows.push({
       row: index + 1,
       values: {

@@ -1,3 +1,4 @@
+import { cleanText } from './cleanText';
 import { ScoringError } from './errors';
 import { BOW_STYLES, VENUES, isFaceId } from './faces';
 import type { BowStyle, FaceId, Venue } from './faces';
@@ -186,7 +187,8 @@ function isWholeAbove0(n: unknown): n is number {
 }
 
 function text(value: unknown): string | undefined {
-  return typeof value === 'string' && value.trim() !== '' ? value.trim() : undefined;
+  const clean = typeof value === 'string' ? cleanText(value).trim() : '';
+  return clean !== '' ? clean : undefined;
 }
 
 /** A value from the network quoted in a message: never calls the value's own toString. */
