@@ -7,6 +7,8 @@ import type { Mailer } from './mail/mailer';
 import type { AppContext } from './context';
 import type { SigningKeys } from './signing/serverKeys';
 import { securityHeaders } from './http/security';
+import { checkBodyShape } from './http/bodyShape';
+import { noStore } from './http/noStore';
 import { clientFiles } from './http/clientFiles';
 import { routeNotFound, errorHandler } from './http/errorHandler';
 import { requireUser } from './auth/requireUser';
@@ -66,7 +68,9 @@ export function createApp(deps: AppDeps): Express {
   if (deps.logRequests) app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));
 
   const api = express.Router();
+  api.use(noStore);
   api.use(express.json({ limit: '256kb' }));
+  api.use(checkBodyShape);
   api.use(cookieParser());
   // The field path first: nearly every request on a tournament day is a phone's push or pull,
   // and each router it has to pass before its own costs a little.

@@ -22,6 +22,10 @@ function fromBodyParser(err: BodyParserError): HttpError | undefined {
   }
 }
 
+/** A 4xx a library attached to its error: the request's fault, never logged as the server's. */
+const isClientStatus = (status: unknown): status is number =>
+  typeof status === 'number' && status >= 400 && status < 500;
+
 export const routeNotFound: RequestHandler = (req, _res, next) => {
   next(notFound(`Nothing is at ${req.method} ${req.originalUrl.split('?')[0]}.`));
 };
@@ -32,9 +36,13 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
   if (err instanceof HttpError) httpError = err;
   else if (err instanceof Error && fromBodyParser(err as BodyParserError))
     httpError = fromBodyParser(err as BodyParserError)!;
-  else if (err instanceof Error && (err as BodyParserError).status && (err as BodyParserError).expose) {
+  else if (err instanceof URIError)
+    // The router could not decode a %-escape in the address (`/api/photos/%zz`).
+    httpError = new HttpError(400, 'bad_address', 'The address has a broken %-escape. Check the link.');
+  else if (err instanceof Error && isClientStatus((err as BodyParserError).status)) {
     const status = (err as BodyParserError).status!;
-    httpError = new HttpError(status, 'bad_request', err.message);
+    const message = (err as BodyParserError).expose ? err.message : 'The request could not be read.';
+    httpError = new HttpError(status, 'bad_request', message);
   } else {
     console.error(`Unexpected error on ${req.method} ${req.originalUrl}:`, err);
     httpError = new HttpError(
@@ -42,6 +50,12 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
       'internal',
       'Something went wrong on the server. Try again; if it keeps happening, tell the organizer.',
     );
+  }
+  // A failure in the middle of a streamed answer (a printout): the status is long sent, so the
+  // connection is cut and the reader sees an incomplete file rather than a second answer.
+  if (res.headersSent) {
+    res.destroy();
+    return;
   }
   const body: ApiErrorBody = {
     error: {

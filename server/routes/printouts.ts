@@ -24,11 +24,11 @@ export function printoutRoutes(ctx: AppContext): Router {
   async function send(req: Request, res: Response, what: 'scorecards' | 'target-sheets') {
     const session = await findSession(db, Number(req.params.eventId), idParam(req, 'sessionId', 'session'));
     const print = await loadPrintSession(db, session, ctx.linkAddress.url);
-    const pdf = what === 'scorecards' ? await scorecardsPdf(print) : await targetSheetsPdf(print);
     res.setHeader('Content-Type', 'application/pdf');
     res.setHeader('Content-Disposition', `attachment; filename="${fileName(session.name, what)}"`);
-    res.setHeader('Cache-Control', 'no-store');
-    res.send(pdf);
+    // Streamed page by page: a session's printout never holds up other requests for long.
+    if (what === 'scorecards') await scorecardsPdf(print, res);
+    else await targetSheetsPdf(print, res);
   }
 
   router.get('/events/:eventId/sessions/:sessionId/scorecards.pdf', ...staff, (req, res) =>

@@ -1,7 +1,7 @@
-import { Router } from 'express';
-import { pullQuerySchema, pushRequestSchema } from '../../src/contract/sync';
+import { Router, type RequestHandler } from 'express';
+import { PUSH_MAX_CHANGES, pullQuerySchema, pushRequestSchema } from '../../src/contract/sync';
 import type { AppContext } from '../context';
-import { badRequest } from '../http/httpError';
+import { HttpError, badRequest } from '../http/httpError';
 import { describeIssues, validateBody } from '../http/validate';
 import { pullChanges } from '../services/sync/pullChanges';
 import { pushBatch } from '../services/sync/pushBatch';
@@ -10,20 +10,36 @@ import { waitingChangesFileSchema } from '../../src/contract/waitingChanges';
 import { importWaitingChanges } from '../services/sync/importWaiting';
 import { requireEventRole } from '../auth/eventRoles';
 
+/** More changes than one push takes: 413, which tells the phone to send its batch in halves. */
+const refuseLargeBatch: RequestHandler = (req, _res, next) => {
+  const changes = (req.body as { mutations?: unknown } | undefined)?.mutations;
+  next(
+    Array.isArray(changes) && changes.length > PUSH_MAX_CHANGES
+      ? new HttpError(413, 'too_large', `Send at most ${PUSH_MAX_CHANGES} changes at once.`)
+      : undefined,
+  );
+};
+
 /** The field path: phones push their mutations and pull what changed (see DEVELOPERS.md, "The field loop"). */
 export function syncRoutes(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
 
-  router.post('/sync/push', ctx.requireUser, validateBody(pushRequestSchema), async (req, res) => {
-    res.json(
-      await pushBatch(db, req.user!.id, req.body, {
-        signingKeys: ctx.signingKeys,
-        // Mailed after the push is committed, without holding up its answer.
-        onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, ctx.linkAddress.url),
-      }),
-    );
-  });
+  router.post(
+    '/sync/push',
+    ctx.requireUser,
+    refuseLargeBatch,
+    validateBody(pushRequestSchema),
+    async (req, res) => {
+      res.json(
+        await pushBatch(db, req.user!.id, req.body, {
+          signingKeys: ctx.signingKeys,
+          // Mailed after the push is committed, without holding up its answer.
+          onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, ctx.linkAddress.url),
+        }),
+      );
+    },
+  );
 
   // A phone that cannot sync saves its changes as a file; a judge of the event brings them in.
   router.post(

@@ -1,6 +1,7 @@
 import type { BowStyleName, Division, DivisionInput } from '../../src/contract/events';
 import type { RoundDefinition } from '../../src/core';
 import type { Db } from '../db';
+import { refuseOverLimit } from './eventLimits';
 import { conflict, notFound } from '../http/httpError';
 import { audit } from './audit';
 
@@ -65,6 +66,7 @@ export async function createDivision(
 ): Promise<Division> {
   const name = divisionName(input.bowStyle, input.className);
   await refuseDuplicateName(db, eventId, name);
+  await refuseOverLimit(db, eventId, 'divisions');
   const [row] = await db('divisions')
     .insert({ event_id: eventId, bow_style: input.bowStyle, class_name: input.className, name })
     .returning('id');

@@ -1,5 +1,6 @@
 import type { Entry, EntryInput, EntryList, UpdateEntryInput } from '../../src/contract/events';
 import type { Db } from '../db';
+import { refuseOverLimit } from './eventLimits';
 import { conflict, notFound } from '../http/httpError';
 import { nowIso } from '../time';
 import { audit } from './audit';
@@ -96,6 +97,7 @@ export async function createEntry(
 ): Promise<Entry> {
   await findDivision(db, eventId, input.divisionId);
   await refuseDuplicate(db, eventId, input.name, input.divisionId);
+  await refuseOverLimit(db, eventId, 'entries');
   const id = await db.transaction(async (trx) => {
     const [row] = await trx('entries')
       .insert({

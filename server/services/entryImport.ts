@@ -7,7 +7,9 @@ import {
   type ImportResult,
   type ImportRow,
 } from '../../src/contract/events';
+import { cleanText } from '../../src/core';
 import type { Db } from '../db';
+import { refuseOverLimit } from './eventLimits';
 import { HttpError, badRequest } from '../http/httpError';
 import { nowIso } from '../time';
 import { audit } from './audit';
@@ -62,7 +64,7 @@ export function readEntryCsv(buffer: Buffer): RawRow[] {
   const rows: RawRow[] = [];
   records.forEach((record, index) => {
     if (index <= headerIndex || record.every((cell) => cell.trim() === '')) return;
-    const cell = (c: Column) => (columnIndex[c] >= 0 ? (record[columnIndex[c]] ?? '').trim() : '');
+    const cell = (c: Column) => (columnIndex[c] >= 0 ? cleanText(record[columnIndex[c]] ?? '').trim() : '');
     rows.push({
       row: index + 1,
       values: {
@@ -143,6 +145,7 @@ export async function importEntries(
   const raw = readEntryCsv(buffer);
   return db.transaction(async (trx) => {
     const { rows, divisionIds } = await checkEntryRows(trx, eventId, raw);
+    await refuseOverLimit(trx, eventId, 'entries', rows.length);
     const bad = rows.filter((r) => r.problems.length > 0);
     if (bad.length) {
       throw new HttpError(

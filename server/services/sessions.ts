@@ -1,6 +1,7 @@
 import type { EventSession, SessionInput, SessionRound, UpdateSessionInput } from '../../src/contract/events';
 import type { RoundDefinition } from '../../src/core';
 import type { Db } from '../db';
+import { refuseOverLimit } from './eventLimits';
 import { badRequest, conflict, notFound } from '../http/httpError';
 import { nowIso } from '../time';
 import { audit } from './audit';
@@ -119,6 +120,7 @@ export async function createSession(
   input: SessionInput,
 ): Promise<EventSession> {
   await refuseDuplicateName(db, eventId, input.name);
+  await refuseOverLimit(db, eventId, 'sessions');
   const rounds = await resolveRounds(db, eventId, input.rounds);
   const sessionId = await db.transaction(async (trx) => {
     const [row] = await trx('event_sessions')

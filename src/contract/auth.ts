@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { nameText } from './names';
 
 export const emailSchema = z
   .string({ error: 'Enter an e-mail address.' })
@@ -16,11 +17,7 @@ export const newPasswordSchema = z
 export const signUpSchema = z.object({
   email: emailSchema,
   password: newPasswordSchema,
-  displayName: z
-    .string({ error: 'Enter your name as it should appear on scorecards.' })
-    .trim()
-    .min(1, 'Enter your name as it should appear on scorecards.')
-    .max(120, 'Use at most 120 characters for your name.'),
+  displayName: nameText('your name', 120, 'Enter your name as it should appear on scorecards.'),
   /** Present when the person follows an invitation link. */
   inviteToken: z.string().max(200).optional(),
 });

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { emailSchema } from './auth';
+import { nameText, optionalNameText } from './names';
 import type { EventRole } from './auth';
 import type { LinkAddress } from './linkAddress';
 
@@ -9,19 +10,6 @@ import type { LinkAddress } from './linkAddress';
  */
 
 // ---------- small building blocks ----------
-
-const text = (what: string, max: number) =>
-  z
-    .string({ error: `Enter ${what}.` })
-    .trim()
-    .min(1, `Enter ${what}.`)
-    .max(max, `Use at most ${max} characters for ${what}.`);
-
-const optionalText = (what: string, max: number) =>
-  z
-    .string({ error: `${what} must be text.` })
-    .trim()
-    .max(max, `Use at most ${max} characters for ${what}.`);
 
 /** A calendar date as YYYY-MM-DD that exists (no 31 April). */
 export const dateSchema = z
@@ -88,8 +76,8 @@ const endsAfterStart = (v: { startsOn?: string | undefined; endsOn?: string | un
 
 export const createEventSchema = z
   .object({
-    name: text('the event name', 160),
-    venue: optionalText('the venue', 160).default(''),
+    name: nameText('the event name', 160),
+    venue: optionalNameText('the venue', 160).default(''),
     startsOn: dateSchema,
     endsOn: dateSchema,
     timeZone: timeZoneSchema,
@@ -99,8 +87,8 @@ export type CreateEventInput = z.infer<typeof createEventSchema>;
 
 export const updateEventSchema = z
   .object({
-    name: text('the event name', 160).optional(),
-    venue: optionalText('the venue', 160).optional(),
+    name: nameText('the event name', 160).optional(),
+    venue: optionalNameText('the venue', 160).optional(),
     startsOn: dateSchema.optional(),
     endsOn: dateSchema.optional(),
     timeZone: timeZoneSchema.optional(),
@@ -125,7 +113,7 @@ export type EventList = { events: EventListItem[] };
 
 export const divisionInputSchema = z.object({
   bowStyle: bowStyleSchema,
-  className: text('the class (for example Women, Men, Under 18)', 60),
+  className: nameText('the class (for example Women, Men, Under 18)', 60),
 });
 export type DivisionInput = z.infer<typeof divisionInputSchema>;
 
@@ -153,7 +141,7 @@ export const sessionRoundInputSchema = z.union(
 export type SessionRoundInput = z.infer<typeof sessionRoundInputSchema>;
 
 export const sessionInputSchema = z.object({
-  name: text('the session name', 120),
+  name: nameText('the session name', 120),
   startsAt: localDateTimeSchema,
   rounds: z
     .array(sessionRoundInputSchema, { error: 'List the divisions shooting in this session.' })
@@ -224,8 +212,8 @@ export type EventSummary = {
 // ---------- entries ----------
 
 export const entryInputSchema = z.object({
-  name: text("the archer's name", 120),
-  club: optionalText('the club', 120).default(''),
+  name: nameText("the archer's name", 120),
+  club: optionalNameText('the club', 120).default(''),
   email: z
     .union([z.literal(''), emailSchema], { error: 'That does not look like an e-mail address.' })
     .default(''),
@@ -235,8 +223,8 @@ export type EntryInput = z.infer<typeof entryInputSchema>;
 
 export const updateEntrySchema = z
   .object({
-    name: text("the archer's name", 120).optional(),
-    club: optionalText('the club', 120).optional(),
+    name: nameText("the archer's name", 120).optional(),
+    club: optionalNameText('the club', 120).optional(),
     email: z
       .union([z.literal(''), emailSchema], { error: 'That does not look like an e-mail address.' })
       .optional(),

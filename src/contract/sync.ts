@@ -70,11 +70,74 @@ export const mutationSchema = z.discriminatedUnion(
 export type Mutation = z.infer<typeof mutationSchema>;
 export type MutationKind = Mutation['kind'];
 
+/** A change's JSON longer than this is refused on its own (the largest real change is ~1,500). */
+export const MUTATION_MAX_CHARS = 8_000;
+export const PUSH_MAX_CHANGES = 500;
+
+/**
+ * A change the server could place in the phone's sequence but not read: a kind this server does
+ * not know yet (a newer app), an `at` with an offset, a value out of range. It is refused on its
+ * own, with its reason, so it never blocks the changes behind it.
+ */
+export type UnreadableChange = {
+  id: string;
+  seq: number;
+  unreadable: { reason: string; kind: string; at: string; argsJson: string };
+};
+/** A change as the server received it: understood, or unreadable (refused on its own). */
+export type ReceivedChange = Mutation | UnreadableChange;
+
+export const isUnreadable = (change: ReceivedChange): change is UnreadableChange => 'unreadable' in change;
+
+/** The changes of a push or a file that the server understood. */
+export const understood = (changes: readonly ReceivedChange[]): Mutation[] =>
+  changes.filter((c): c is Mutation => !isUnreadable(c));
+
+const clip = (value: unknown, max: number): string => (typeof value === 'string' ? value.slice(0, max) : '');
+
+function readChange(raw: { id: string; seq: number; [key: string]: unknown }): ReceivedChange {
+  const refused = (reason: string): UnreadableChange => ({
+    id: raw.id,
+    seq: raw.seq,
+    unreadable: {
+      reason,
+      kind: clip(raw.kind, 40) || '(none)',
+      at: clip(raw.at, 30),
+      argsJson: JSON.stringify(raw.args ?? null).slice(0, MUTATION_MAX_CHARS),
+    },
+  });
+  const size = JSON.stringify(raw).length;
+  if (size > MUTATION_MAX_CHARS)
+    return refused(
+      `This change is too large to be one change (${size} characters; at most ${MUTATION_MAX_CHARS}).`,
+    );
+  const parsed = mutationSchema.safeParse(raw);
+  if (parsed.success) return parsed.data;
+  const problems = parsed.error.issues
+    .map((issue) => (issue.path.length ? `${issue.path.join('.')}: ${issue.message}` : issue.message))
+    .join('; ');
+  return refused(`This change could not be read: ${problems}`);
+}
+
+/**
+ * Each change of a push needs only an id and a number to take its place in the phone's sequence;
+ * the rest is read change by change (readChange). Only a push without these is refused as a whole.
+ */
+export const receivedChangeSchema = z
+  .looseObject({ id: z.uuid(), seq: z.number().int().positive() })
+  .transform(readChange);
+
 export const pushRequestSchema = z.object({
   clientId: z.string().min(8).max(100),
-  mutations: z.array(mutationSchema).min(1).max(500, 'Send at most 500 changes at once.'),
+  mutations: z
+    .array(receivedChangeSchema)
+    .min(1)
+    .max(PUSH_MAX_CHANGES, `Send at most ${PUSH_MAX_CHANGES} changes at once.`),
 });
-export type PushRequest = z.infer<typeof pushRequestSchema>;
+/** What a phone sends. */
+export type PushRequest = { clientId: string; mutations: Mutation[] };
+/** A push as the server reads it: each change understood or refused on its own. */
+export type ReceivedPush = z.output<typeof pushRequestSchema>;
 
 export type MutationResult =
   | { seq: number; id: string; status: 'applied' | 'duplicate' }

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { mutationSchema, type MutationResult } from './sync';
+import { receivedChangeSchema, type MutationResult } from './sync';
 
 /**
  * The file a phone saves when it cannot sync ("Save waiting changes as a file"), which a judge
@@ -11,13 +11,13 @@ export const waitingChangesFileSchema = z.object({
     error: 'This is not a file of waiting changes saved by Ringcall.',
   }),
   version: z.literal(1, { error: 'This file comes from a newer Ringcall; update the server first.' }),
-  exportedAt: z.string(),
+  exportedAt: z.string().max(40),
   clients: z
     .array(
       z.object({
         clientId: z.string().min(8).max(100),
         userId: z.number().int().positive(),
-        mutations: z.array(mutationSchema).min(1).max(2000),
+        mutations: z.array(receivedChangeSchema).min(1).max(2000),
       }),
     )
     .min(1, 'The file holds no changes.')

@@ -56,6 +56,7 @@ export { rankArchers } from './ranking';
 export type { Placing, RankInput } from './ranking';
 
 export { canonicalJson } from './canonicalJson';
+export { cleanText } from './cleanText';
 
 export { endView, settlementApplies } from './endState';
 export type { EndFacts, EndState, EndView, Settlement, WriterRecord } from './endState';

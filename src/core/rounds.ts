@@ -1,3 +1,4 @@
+import { cleanText } from './cleanText';
 import { ScoringError } from './errors';
 import { BOW_STYLES, VENUES, isFaceId } from './faces';
 import type { BowStyle, FaceId, Venue } from './faces';
@@ -159,14 +160,44 @@ export function endsOfRound(round: RoundDefinition): RoundEnd[] {
   return ends;
 }
 
-const MAX_ARROWS_PER_END = 12;
+/*
+ * Limits of a hand-built round, from what the sport shoots (common practice, no single rule):
+ * target archery shoots ends of 3 or 6 arrows (WA Book 3), so 6 per end is the ceiling; the
+ * longest common distance is 36 ends of 3 (a 1440 distance); the longest common round is a double
+ * 1440 (8 distances, 288 arrows). Beyond these a round is a mistake or an attack, and an unbounded
+ * one would make every card, pad and printout of it unboundedly large.
+ */
+export const ROUND_LIMITS = {
+  arrowsPerEnd: 6,
+  endsPerDistance: 36,
+  distances: 8,
+  arrowsPerRound: 288,
+  /** Metres; the longest outdoor distance is 90 m. */
+  distanceM: 150,
+  /** Four minutes for six arrows is the usual limit; twice that leaves room for para classes. */
+  secondsPerEnd: 600,
+  /** Characters of the round's id, name and each distance's label. */
+  id: 60,
+  name: 120,
+  label: 60,
+} as const;
 
 function isWholeAbove0(n: unknown): n is number {
   return typeof n === 'number' && Number.isInteger(n) && n > 0;
 }
 
 function text(value: unknown): string | undefined {
-  return typeof value === 'string' && value.trim() !== '' ? value.trim() : undefined;
+  const clean = typeof value === 'string' ? cleanText(value).trim() : '';
+  return clean !== '' ? clean : undefined;
+}
+
+/** A value from the network quoted in a message: never calls the value's own toString. */
+function quoted(value: unknown): string {
+  return typeof value === 'string'
+    ? `"${value.slice(0, 40)}"`
+    : typeof value === 'number'
+      ? String(value)
+      : 'That';
 }
 
 function checkDistance(raw: unknown, where: string, problems: string[]): RoundDistance | undefined {
@@ -180,19 +211,36 @@ function checkDistance(raw: unknown, where: string, problems: string[]): RoundDi
   const before = problems.length;
   const label = text(d.label);
   if (label === undefined) problems.push(`${where} needs a label.`);
+  else if (label.length > ROUND_LIMITS.label)
+    problems.push(`${where}: use at most ${ROUND_LIMITS.label} characters for the label.`);
   const { distanceM, faceId, arrows, arrowsPerEnd, secondsPerEnd } = d;
-  if (typeof distanceM !== 'number' || !Number.isFinite(distanceM) || distanceM <= 0) {
-    problems.push(`${where}: distance must be a number of metres above 0.`);
+  if (
+    typeof distanceM !== 'number' ||
+    !Number.isFinite(distanceM) ||
+    distanceM <= 0 ||
+    distanceM > ROUND_LIMITS.distanceM
+  ) {
+    problems.push(
+      `${where}: distance must be a number of metres above 0 and at most ${ROUND_LIMITS.distanceM}.`,
+    );
   }
-  if (!isFaceId(faceId)) problems.push(`${where}: "${String(faceId)}" is not a known target face.`);
-  if (!isWholeAbove0(arrows)) problems.push(`${where}: arrows must be a whole number above 0.`);
-  if (!isWholeAbove0(arrowsPerEnd) || arrowsPerEnd > MAX_ARROWS_PER_END) {
-    problems.push(`${where}: arrows per end must be a whole number from 1 to ${MAX_ARROWS_PER_END}.`);
+  if (!isFaceId(faceId)) problems.push(`${where}: ${quoted(faceId)} is not a known target face.`);
+  const perEnd = ROUND_LIMITS.arrowsPerEnd;
+  const maxArrows =
+    ROUND_LIMITS.endsPerDistance * (isWholeAbove0(arrowsPerEnd) ? Math.min(arrowsPerEnd, perEnd) : perEnd);
+  if (!isWholeAbove0(arrows) || arrows > maxArrows)
+    problems.push(
+      `${where}: arrows must be a whole number from 1 to ${maxArrows} (at most ${ROUND_LIMITS.endsPerDistance} ends).`,
+    );
+  if (!isWholeAbove0(arrowsPerEnd) || arrowsPerEnd > perEnd) {
+    problems.push(`${where}: arrows per end must be a whole number from 1 to ${perEnd}.`);
   } else if (isWholeAbove0(arrows) && arrows % arrowsPerEnd !== 0) {
     problems.push(`${where}: ${arrows} arrows do not split into ends of ${arrowsPerEnd}.`);
   }
-  if (!isWholeAbove0(secondsPerEnd))
-    problems.push(`${where}: seconds per end must be a whole number above 0.`);
+  if (!isWholeAbove0(secondsPerEnd) || secondsPerEnd > ROUND_LIMITS.secondsPerEnd)
+    problems.push(
+      `${where}: seconds per end must be a whole number from 1 to ${ROUND_LIMITS.secondsPerEnd}.`,
+    );
   if (problems.length > before) return undefined;
   return {
     label: label as string,
@@ -218,11 +266,15 @@ export function defineCustomRound(input: unknown): RoundDefinition {
 
   const id = text(raw.id);
   if (id === undefined) problems.push('The round needs an id.');
+  else if (id.length > ROUND_LIMITS.id)
+    problems.push(`Use at most ${ROUND_LIMITS.id} characters for the round's id.`);
   else if (ROUND_CATALOG.some((r) => r.id === id))
     problems.push(`The id "${id}" belongs to a catalog round.`);
 
   const name = text(raw.name);
   if (name === undefined) problems.push('The round needs a name.');
+  else if (name.length > ROUND_LIMITS.name)
+    problems.push(`Use at most ${ROUND_LIMITS.name} characters for the round's name.`);
 
   const venue = raw.venue;
   if (!VENUES.includes(venue as Venue)) problems.push(`Venue must be ${VENUES.join(' or ')}.`);
@@ -230,19 +282,26 @@ export function defineCustomRound(input: unknown): RoundDefinition {
   const distances: RoundDistance[] = [];
   if (!Array.isArray(raw.distances) || raw.distances.length === 0) {
     problems.push('The round needs at least one distance.');
+  } else if (raw.distances.length > ROUND_LIMITS.distances) {
+    problems.push(`A round has at most ${ROUND_LIMITS.distances} distances.`);
   } else {
     raw.distances.forEach((d: unknown, i) => {
       const checked = checkDistance(d, `Distance ${i + 1}`, problems);
       if (checked) distances.push(checked);
     });
+    const arrows = distances.reduce((sum, d) => sum + d.arrows, 0);
+    if (arrows > ROUND_LIMITS.arrowsPerRound)
+      problems.push(`A round has at most ${ROUND_LIMITS.arrowsPerRound} arrows; this one has ${arrows}.`);
   }
 
   const bowStyles = raw.bowStyles;
   if (!Array.isArray(bowStyles) || bowStyles.length === 0) {
     problems.push('The round needs at least one bow style.');
+  } else if (bowStyles.length > BOW_STYLES.length) {
+    problems.push(`A round lists at most ${BOW_STYLES.length} bow styles.`);
   } else {
     for (const style of bowStyles) {
-      if (!BOW_STYLES.includes(style as BowStyle)) problems.push(`"${String(style)}" is not a bow style.`);
+      if (!BOW_STYLES.includes(style as BowStyle)) problems.push(`${quoted(style)} is not a bow style.`);
     }
     if (new Set(bowStyles).size !== bowStyles.length) problems.push('A bow style is listed twice.');
   }

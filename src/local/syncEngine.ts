@@ -40,7 +40,7 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
     const waiting = await db.outbox.where('[clientId+status]').equals([clientId, 'pending']).sortBy('seq');
     const batch = waiting.filter((r) => !outcomes.has(r.seq)).slice(0, PUSH_BATCH);
     if (batch.length === 0) break;
-    const response = await transport.push({ clientId, mutations: batch.map(toMutation) });
+    const response = await pushSplitting(transport, clientId, batch);
     pushed += batch.length;
     response.results.forEach((r) => outcomes.set(r.seq, r));
     if (response.expectedSeq !== undefined) {
@@ -98,14 +98,35 @@ async function resendFrom(
     .between([clientId, expectedSeq], [clientId, Infinity])
     .toArray();
   for (let i = 0; i < rows.length; i += PUSH_BATCH) {
-    const response = await transport.push({
-      clientId,
-      mutations: rows.slice(i, i + PUSH_BATCH).map(toMutation),
-    });
+    const response = await pushSplitting(transport, clientId, rows.slice(i, i + PUSH_BATCH));
     response.results.forEach((r) => outcomes.set(r.seq, r));
     if (response.expectedSeq !== undefined)
       throw new Error('The server and this phone disagree on which changes it holds.');
   }
+}
+
+/** The server's answer to a push it found too large (413): it held nothing of it. */
+const tooLarge = (error: unknown): boolean => (error as { status?: unknown } | null)?.status === 413;
+
+/**
+ * Pushes rows in order; a batch the server finds too large is sent again in halves (a batch of
+ * one that is still too large cannot be helped by splitting, and its error is passed on).
+ */
+async function pushSplitting(
+  transport: SyncTransport,
+  clientId: string,
+  rows: OutboxRow[],
+): Promise<PushResponse> {
+  try {
+    return await transport.push({ clientId, mutations: rows.map(toMutation) });
+  } catch (error) {
+    if (!tooLarge(error) || rows.length < 2) throw error;
+  }
+  const half = Math.ceil(rows.length / 2);
+  const first = await pushSplitting(transport, clientId, rows.slice(0, half));
+  if (first.expectedSeq !== undefined) return first;
+  const second = await pushSplitting(transport, clientId, rows.slice(half));
+  return { ...second, results: [...first.results, ...second.results] };
 }
 
 /** Stores pulled changes; within one pull, a later change to the same record replaces an earlier one. */

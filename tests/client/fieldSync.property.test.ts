@@ -1,10 +1,12 @@
 /**
  * The field path's promise, tested end to end with the real phone code (Dexie outbox and sync
  * engine on fake-indexeddb) against the real server services on a SQLite file: whatever the
- * network does (requests lost, answers lost, batches sent twice, split or reordered), and
- * whatever happens to the phones (reloads) or the server (restarts), the server ends up with
- * exactly what the writers entered, each change applied once, and every phone converges on the
- * server's cards.
+ * network does (requests lost, answers lost, batches sent twice, split or reordered, batches
+ * refused as too large), whatever happens to the phones (reloads) or the server (restarts), and
+ * whatever a phone sends that this server cannot read (a newer app's kind of change, a time with
+ * an offset, a value out of range), the server ends up with exactly what the writers entered,
+ * each change applied or refused once, no change ever blocks the ones behind it, and every phone
+ * converges on the server's cards.
  */
 import 'fake-indexeddb/auto';
 import fc from 'fast-check';
@@ -36,9 +38,12 @@ const ENDS = 2;
 const VALUES = scoringValues('full-122', 'recurve', 'outdoor');
 
 type Who = 'w1' | 'w2' | 'caller';
-type Fault = 'none' | 'drop-request' | 'drop-response' | 'duplicate' | 'split' | 'reorder';
+type Fault = 'none' | 'drop-request' | 'drop-response' | 'duplicate' | 'split' | 'reorder' | 'too-large';
+/** Changes a phone may hold that this server cannot read. */
+type Unreadable = 'unknown-kind' | 'offset-at' | 'bad-slot';
 type Action =
   | { type: 'write'; writer: 'w1' | 'w2'; archer: number; end: number; arrows: ArrowValue[] }
+  | { type: 'unreadable'; writer: 'w1' | 'w2'; archer: number; end: number; variant: Unreadable }
   | { type: 'settle'; archer: number; end: number; picks: boolean[]; dispute: boolean }
   | { type: 'sync'; who: Who; fault: Fault }
   | { type: 'reload'; who: Who }
@@ -70,7 +75,25 @@ const action: fc.Arbitrary<Action> = fc.oneof(
     arbitrary: fc.record({
       type: fc.constant('sync' as const),
       who: fc.constantFrom<Who>('w1', 'w2', 'caller'),
-      fault: fc.constantFrom<Fault>('none', 'drop-request', 'drop-response', 'duplicate', 'split', 'reorder'),
+      fault: fc.constantFrom<Fault>(
+        'none',
+        'drop-request',
+        'drop-response',
+        'duplicate',
+        'split',
+        'reorder',
+        'too-large',
+      ),
+    }),
+  },
+  {
+    weight: 1,
+    arbitrary: fc.record({
+      type: fc.constant('unreadable' as const),
+      writer: fc.constantFrom('w1' as const, 'w2' as const),
+      archer: fc.nat(ARCHERS - 1),
+      end: fc.nat(ENDS - 1),
+      variant: fc.constantFrom<Unreadable>('unknown-kind', 'offset-at', 'bad-slot'),
     }),
   },
   {
@@ -97,6 +120,9 @@ afterAll(async () => {
 });
 
 const lost = () => new ApiError(0, 'network', 'No connection to the Ringcall server right now.');
+/** What the server answers a batch over its limit (here: more than two changes), holding none of it. */
+const TOO_LARGE_OVER = 2;
+const tooLarge = () => new ApiError(413, 'too_large', 'Send at most 2 changes at once.');
 
 /** Talks to the real server services, as JSON, with the network fault of this sync round. */
 function transportFor(person: TestPerson, fault: Fault): SyncTransport {
@@ -123,6 +149,9 @@ function transportFor(person: TestPerson, fault: Fault): SyncTransport {
         }
         case 'reorder':
           return send({ ...body, mutations: [...body.mutations].reverse() });
+        case 'too-large':
+          if (body.mutations.length > TOO_LARGE_OVER) throw tooLarge();
+          return send(body);
         case 'none':
           return send(body);
       }
@@ -171,6 +200,7 @@ async function runHistory(actions: Action[]): Promise<void> {
   const sessionId = field.sessionId;
   const entryIds = field.targets.get(1)!.archers.map((a) => a.entryId);
   const lastWrite = new Map<string, ArrowValue[]>();
+  const unreadable = new Set<string>();
 
   try {
     for (const a of actions) {
@@ -189,6 +219,23 @@ async function runHistory(actions: Action[]): Promise<void> {
           },
         });
         lastWrite.set(`${entryIds[a.archer]}:${a.end}:${slot}`, a.arrows);
+      } else if (a.type === 'unreadable') {
+        const p = phones.get(a.writer)!;
+        const args = {
+          sessionId,
+          entryId: entryIds[a.archer]!,
+          endIndex: a.end,
+          slot: a.variant === 'bad-slot' ? 3 : a.writer === 'w1' ? 1 : 2,
+          arrows: ['10'],
+          flags: [],
+        };
+        const kind = a.variant === 'unknown-kind' ? 'end.erase' : 'end.write';
+        const row = await recordChange(p.db, p.person.id, { kind, args } as unknown as Parameters<
+          typeof recordChange
+        >[2]);
+        if (a.variant === 'offset-at')
+          await p.db.outbox.update([row.clientId, row.seq], { at: row.at.replace('Z', '+00:00') });
+        unreadable.add(row.id);
       } else if (a.type === 'settle') {
         const p = phones.get('caller')!;
         const key = endKeyOf(sessionId, entryIds[a.archer]!, a.end);
@@ -241,7 +288,7 @@ async function runHistory(actions: Action[]): Promise<void> {
     }
     for (const p of phones.values()) await syncOnce(p.db, p.person.id, transportFor(p.person, 'none'));
 
-    await checkOutcome(phones, sessionId, entryIds, lastWrite);
+    await checkOutcome(phones, sessionId, entryIds, lastWrite, unreadable);
   } finally {
     for (const p of phones.values()) await p.db.delete();
   }
@@ -256,6 +303,7 @@ async function checkOutcome(
   sessionId: number,
   entryIds: number[],
   lastWrite: Map<string, ArrowValue[]>,
+  unreadable: Set<string>,
 ) {
   // Exactly once: the server's log holds each phone change once, with the phone's final status.
   for (const p of phones.values()) {
@@ -268,8 +316,11 @@ async function checkOutcome(
     expect(logged.map((r) => [r.seq, r.mutation_uuid, r.status])).toEqual(
       outbox.map((r) => [r.seq, r.id, r.status]),
     );
-    // Writers' changes are always valid here: none may be refused.
-    if (p.who !== 'caller') expect(outbox.every((r) => r.status === 'applied')).toBe(true);
+    // Writers' readable changes are always valid here: none may be refused; every unreadable one is.
+    for (const r of outbox) {
+      if (unreadable.has(r.id)) expect(r.reason).toMatch(/^This change could not be read: /);
+      else if (p.who !== 'caller') expect(r.status).toBe('applied');
+    }
   }
 
   // No arrow lost: each writer record on the server is that writer's last entry; none counted twice:
@@ -287,6 +338,7 @@ async function checkOutcome(
     const writer = phones.get(slot === 1 ? 'w1' : 'w2')!;
     const writes = (await writer.db.outbox.toArray()).filter(
       (r) =>
+        !unreadable.has(r.id) &&
         r.kind === 'end.write' &&
         r.args.entryId === entryId &&
         (r.args as EndWriteArgs).endIndex === endIndex,

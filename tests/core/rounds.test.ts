@@ -166,11 +166,11 @@ describe('defineCustomRound', () => {
       'The round needs an id.',
       'Venue must be outdoor or indoor.',
       'Distance 1 needs a label.',
-      'Distance 1: distance must be a number of metres above 0.',
+      'Distance 1: distance must be a number of metres above 0 and at most 150.',
       'Distance 1: "full-100" is not a known target face.',
-      'Distance 1: arrows must be a whole number above 0.',
-      'Distance 1: arrows per end must be a whole number from 1 to 12.',
-      'Distance 1: seconds per end must be a whole number above 0.',
+      'Distance 1: arrows must be a whole number from 1 to 216 (at most 36 ends).',
+      'Distance 1: arrows per end must be a whole number from 1 to 6.',
+      'Distance 1: seconds per end must be a whole number from 1 to 600.',
       'Distance 2: 20 arrows do not split into ends of 6.',
       '"longbow" is not a bow style.',
       'A bow style is listed twice.',
@@ -192,6 +192,43 @@ describe('defineCustomRound', () => {
     expect(invalidRoundProblems({ ...valid, distances: [42] })).toEqual([
       'Distance 1 must be an object with label, distanceM, faceId, arrows, arrowsPerEnd and secondsPerEnd.',
     ]);
+  });
+
+  // Common practice (see ROUND_LIMITS): ends of at most 6, 36 ends a distance, a double 1440 at most.
+  it('refuses rounds larger than any the sport shoots', () => {
+    const distance = valid.distances[0]!;
+    expect(invalidRoundProblems({ ...valid, distances: [{ ...distance, arrows: 360_000_000 }] })).toEqual([
+      'Distance 1: arrows must be a whole number from 1 to 216 (at most 36 ends).',
+    ]);
+    expect(
+      invalidRoundProblems({ ...valid, distances: [{ ...distance, arrows: 37 * 3, arrowsPerEnd: 3 }] }),
+    ).toEqual(['Distance 1: arrows must be a whole number from 1 to 108 (at most 36 ends).']);
+    expect(invalidRoundProblems({ ...valid, distances: [{ ...distance, arrowsPerEnd: 12 }] })).toEqual([
+      'Distance 1: arrows per end must be a whole number from 1 to 6.',
+    ]);
+    expect(invalidRoundProblems({ ...valid, distances: Array.from({ length: 9 }, () => distance) })).toEqual([
+      'A round has at most 8 distances.',
+    ]);
+    expect(
+      invalidRoundProblems({
+        ...valid,
+        distances: Array.from({ length: 3 }, () => ({ ...distance, arrows: 120 })),
+      }),
+    ).toEqual(['A round has at most 288 arrows; this one has 360.']);
+    expect(invalidRoundProblems({ ...valid, name: 'x'.repeat(121) })).toEqual([
+      "Use at most 120 characters for the round's name.",
+    ]);
+  });
+
+  it('never calls a value’s own toString when quoting it', () => {
+    const hostile = { toString: 1 };
+    expect(
+      invalidRoundProblems({
+        ...valid,
+        bowStyles: [hostile],
+        distances: [{ ...valid.distances[0]!, faceId: hostile }],
+      }),
+    ).toEqual(['Distance 1: That is not a known target face.', 'That is not a bow style.']);
   });
 
   it('puts a single problem in the message itself', () => {

@@ -503,7 +503,7 @@ describe('bad input is refused with a readable message', () => {
     expect(huge.body.error.message).toMatch(/larger than 5 MB/);
   });
 
-  it('judging changes with missing or wrong arguments refuse the whole push, with words', async () => {
+  it('judging changes with missing or wrong arguments are refused one by one, with words', async () => {
     const base = { id: randomUUID(), seq: 1, at: '2026-12-12T10:00:00.000Z' };
     const where = { sessionId: f.sessionId, entryId: f.entryIds[0] };
     for (const mutation of [
@@ -518,8 +518,9 @@ describe('bad input is refused with a readable message', () => {
         .post('/api/sync/push')
         .set(f.people.judge.auth)
         .send({ clientId: `bad-${randomUUID()}`, mutations: [mutation] });
-      expect(res.status, JSON.stringify(mutation)).toBe(400);
-      expect(res.body.error.message).toMatch(/^The request was not accepted\. .+: .+/);
+      expect(res.status, JSON.stringify(mutation)).toBe(200);
+      expect(res.body.results[0]).toMatchObject({ seq: 1, status: 'rejected' });
+      expect(res.body.results[0].reason).toMatch(/^This change could not be read: .+/);
     }
   });
 

@@ -519,30 +519,7 @@ describe('requests refused as a whole store nothing', () => {
   });
 
   const bad: [string, () => unknown, RegExp][] = [
-    [
-      'an unknown kind of change',
-      () => ({ clientId: 'phone-unknown-kind', mutations: [valid({ kind: 'end.erase' })] }),
-      /Unknown kind of change\. This phone may need the newest version of Ringcall\./,
-    ],
-    [
-      'an arrow value that does not exist',
-      () => ({ clientId: 'phone-bad-arrow', mutations: [valid({}, { arrows: ['11'] })] }),
-      /"11" is not an arrow value\. Use X, 10 to 1, or M\./,
-    ],
-    [
-      'a writer slot 3',
-      () => ({ clientId: 'phone-bad-slot', mutations: [valid({}, { slot: 3 })] }),
-      /mutations\.0\.args\.slot/,
-    ],
     ['no changes at all', () => ({ clientId: 'phone-empty-batch', mutations: [] }), /mutations/],
-    [
-      'too many changes at once',
-      () => ({
-        clientId: 'phone-huge-batch',
-        mutations: Array.from({ length: 501 }, (_, i) => valid({ seq: i + 1 })),
-      }),
-      /Send at most 500 changes at once\./,
-    ],
     ['a missing client id', () => ({ mutations: [valid()] }), /clientId/],
     [
       'a change id that is not a uuid',
@@ -554,11 +531,6 @@ describe('requests refused as a whole store nothing', () => {
       () => ({ clientId: 'phone-seq-zero', mutations: [valid({ seq: 0 })] }),
       /mutations\.0\.seq/,
     ],
-    [
-      'a time that is not a time',
-      () => ({ clientId: 'phone-bad-time', mutations: [valid({ at: 'yesterday' })] }),
-      /mutations\.0\.at/,
-    ],
   ];
 
   it.each(bad)('%s: 400 with a readable message', async (_label, body, message) => {
@@ -568,6 +540,17 @@ describe('requests refused as a whole store nothing', () => {
     expect(res.body.error.code).toBe('bad_request');
     expect(res.body.error.message).toMatch(/^The request was not accepted\. /);
     expect(res.body.error.message).toMatch(message);
+    expect(await fieldTableCounts(server.db)).toEqual(before);
+  });
+
+  it('too many changes at once: 413, so the phone sends its batch in halves; nothing stored', async () => {
+    const before = await fieldTableCounts(server.db);
+    const res = await push({
+      clientId: 'phone-huge-batch',
+      mutations: Array.from({ length: 501 }, (_, i) => valid({ seq: i + 1 })),
+    });
+    expect(res.status).toBe(413);
+    expect(res.body.error).toEqual({ code: 'too_large', message: 'Send at most 500 changes at once.' });
     expect(await fieldTableCounts(server.db)).toEqual(before);
   });
 
@@ -603,6 +586,80 @@ describe('requests refused as a whole store nothing', () => {
     expect(res.status).toBe(401);
     expect(res.body.error.message).toMatch(/sign in/i);
   });
+});
+
+describe('a change the server cannot read is refused on its own', () => {
+  const raw = (seq: number, over: Record<string, unknown> = {}, args: Record<string, unknown> = {}) => ({
+    id: randomUUID(),
+    seq,
+    at: new Date().toISOString(),
+    kind: 'end.write',
+    args: {
+      sessionId: field.sessionId,
+      entryId: field.archer(1, 'B').entryId,
+      endIndex: 11,
+      slot: 1,
+      arrows: ['10'],
+      ...args,
+    },
+    ...over,
+  });
+  const unreadable: [string, Record<string, unknown>, Record<string, unknown>, RegExp][] = [
+    [
+      'a kind this server does not know yet',
+      { kind: 'end.erase' },
+      {},
+      /Unknown kind of change\. This phone may need the newest version of Ringcall\./,
+    ],
+    [
+      'an arrow value that does not exist',
+      {},
+      { arrows: ['11'] },
+      /"11" is not an arrow value\. Use X, 10 to 1, or M\./,
+    ],
+    ['a writer slot 3', {}, { slot: 3 }, /args\.slot/],
+    [
+      'a time with an offset',
+      { at: '2026-12-12T10:00:00+01:00' },
+      {},
+      /^This change could not be read: at: /,
+    ],
+    ['a time that is not a time', { at: 'yesterday' }, {}, /at: /],
+    ['a change too large to be one', { note: 'n'.repeat(9000) }, {}, /too large to be one change/],
+  ];
+
+  it.each(unreadable)(
+    '%s: refused with its reason, logged, and the change behind it applied',
+    async (_label, over, args, reason) => {
+      const clientId = `phone-unreadable-${randomUUID()}`;
+      const bad = raw(1, over, args);
+      const good = raw(2);
+      const res = await request(server.app)
+        .post('/api/sync/push')
+        .set(people.writer1.auth)
+        .send({ clientId, mutations: [bad, good] });
+      expect(res.status).toBe(200);
+      expect(res.body.lastSeq).toBe(2);
+      expect(res.body.results[0]).toMatchObject({ seq: 1, id: bad.id, status: 'rejected' });
+      expect(res.body.results[0].reason).toMatch(reason);
+      expect(res.body.results[1]).toEqual({ seq: 2, id: good.id, status: 'applied' });
+      const logged = await server.db('mutations').where({ mutation_uuid: bad.id }).first();
+      expect(logged).toMatchObject({
+        client_id: clientId,
+        seq: 1,
+        status: 'rejected',
+        reason: res.body.results[0].reason,
+      });
+
+      // Sent again (the phone missed the answer): answered from the log, never a 400.
+      const again = await request(server.app)
+        .post('/api/sync/push')
+        .set(people.writer1.auth)
+        .send({ clientId, mutations: [bad, good] });
+      expect(again.status).toBe(200);
+      expect(again.body.results.map((r: { status: string }) => r.status)).toEqual(['rejected', 'duplicate']);
+    },
+  );
 });
 
 describe('scores outlive setup changes', () => {

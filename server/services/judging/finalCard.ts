@@ -61,7 +61,7 @@ export async function finalCardPdf(card: CardData, baseUrl: string): Promise<Buf
       { label: 'Scorer', name: scorer.name, at: timeInEvent(scorer.signed_at, card.event.timeZone) },
     ],
     judgesLine: `All ${card.ends.length} ends signed by a judge (${listInWords(judges)}).`,
-    verify: { url, qrPng: await qrPng(url, 900) },
+    verify: { url },
   };
   const pdf = new PrintDocument(
     `Final card · ${card.archer.name} · ${card.event.name} · ${card.session.name}`,
@@ -83,7 +83,7 @@ export async function finalCardPdf(card: CardData, baseUrl: string): Promise<Buf
     },
     filled,
   );
-  return pdf.finish();
+  return pdf.toBuffer();
 }
 
 /** Where a final card is mailed: the entry's address, else the linked account's. */

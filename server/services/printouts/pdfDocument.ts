@@ -1,48 +1,29 @@
-import { existsSync } from 'node:fs';
-import { createRequire } from 'node:module';
+import type { Writable } from 'node:stream';
 import PDFDocument from 'pdfkit';
+import QRCode from 'qrcode';
+import { pdfFonts } from './pdfFonts';
 
 export type Pdf = InstanceType<typeof PDFDocument>;
 
 type FontSet = { regular: string[]; bold: string[] };
 
-const require = createRequire(import.meta.url);
-
-function fontFile(name: string): string | undefined {
-  try {
-    const file = require.resolve(`@fontsource/atkinson-hyperlegible/files/${name}`);
-    return existsSync(file) ? file : undefined;
-  } catch {
-    return undefined;
-  }
-}
-
-/**
- * Atkinson Hyperlegible (it keeps 8/B, 0/O and 1/I apart, which matters for join codes). The
- * font ships split into a Latin and a Latin Extended file; text is written in runs, each in the
- * first file that has its letters, so "Łucja Dvořák" prints whole. Without the files, Helvetica.
- */
-const FILES = {
-  regular: ['atkinson-hyperlegible-latin-400-normal.woff', 'atkinson-hyperlegible-latin-ext-400-normal.woff'],
-  bold: ['atkinson-hyperlegible-latin-700-normal.woff', 'atkinson-hyperlegible-latin-ext-700-normal.woff'],
-};
-
 function registerFonts(doc: Pdf): FontSet {
-  const regular = FILES.regular.map(fontFile);
-  const bold = FILES.bold.map(fontFile);
-  if (regular.some((f) => !f) || bold.some((f) => !f))
-    return { regular: ['Helvetica'], bold: ['Helvetica-Bold'] };
+  const files = pdfFonts();
   const set: FontSet = { regular: [], bold: [] };
-  regular.forEach((file, i) => {
-    doc.registerFont(`rc-regular-${i}`, file!);
-    set.regular.push(`rc-regular-${i}`);
-  });
-  bold.forEach((file, i) => {
-    doc.registerFont(`rc-bold-${i}`, file!);
-    set.bold.push(`rc-bold-${i}`);
-  });
+  for (const weight of ['regular', 'bold'] as const)
+    files[weight].forEach((file, i) => {
+      doc.registerFont(`rc-${weight}-${i}`, file);
+      set[weight].push(`rc-${weight}-${i}`);
+    });
   return set;
 }
+
+/** Printed instead of a letter none of the fonts has, with a note at the foot of the page. */
+const MISSING_MARK = '\u25a1';
+const MISSING_NOTE = `${MISSING_MARK} stands for a letter these printouts cannot show; Ringcall shows the name in full.`;
+
+/** Lets other requests be answered between the pages of a long printout. */
+const breathe = () => new Promise<void>((resolve) => setImmediate(resolve));
 
 type GlyphFont = { font?: { hasGlyphForCodePoint?: (cp: number) => boolean } };
 
@@ -58,12 +39,14 @@ export type TextOptions = {
   spacing?: number;
 };
 
-/** A PDF with Ringcall's fonts and single-line text that prints any Latin name. */
+/** A PDF with Ringcall's fonts and single-line text that prints names in most scripts. */
 export class PrintDocument {
   readonly doc: Pdf;
   private readonly fonts: FontSet;
-  private readonly chunks: Buffer[] = [];
-  private readonly finished: Promise<Buffer>;
+  /** By font name: the font's glyph lookup; by code point and weight: the font that prints it. */
+  private readonly glyphs = new Map<string, GlyphFont['font']>();
+  private readonly fontFor = new Map<string, string | null>();
+  private missingOnPage = false;
 
   constructor(title: string) {
     this.doc = new PDFDocument({
@@ -73,29 +56,42 @@ export class PrintDocument {
       info: { Title: title, Author: 'Ringcall', Creator: 'Ringcall' },
     });
     this.fonts = registerFonts(this.doc);
-    this.finished = new Promise((resolve, reject) => {
-      this.doc.on('data', (chunk: Buffer) => this.chunks.push(chunk));
-      this.doc.on('end', () => resolve(Buffer.concat(this.chunks)));
-      this.doc.on('error', reject);
-    });
   }
 
   addPage(): void {
+    this.noteMissing();
     this.doc.addPage({ size: 'A4', margin: 36 });
+  }
+
+  /** The first font of the weight that has the letter, or null when none has it. */
+  private fontOf(cp: number, bold: boolean): string | null {
+    const key = `${bold ? 'b' : 'r'}${cp}`;
+    const known = this.fontFor.get(key);
+    if (known !== undefined) return known;
+    const found =
+      (bold ? this.fonts.bold : this.fonts.regular).find((name) => {
+        if (!this.glyphs.has(name)) {
+          this.doc.font(name);
+          this.glyphs.set(name, (this.doc as unknown as { _font: GlyphFont })._font.font);
+        }
+        const glyphs = this.glyphs.get(name);
+        return !glyphs?.hasGlyphForCodePoint || glyphs.hasGlyphForCodePoint(cp);
+      }) ?? null;
+    this.fontFor.set(key, found);
+    return found;
   }
 
   /** Splits text into runs, each in the first font file that has its characters. */
   private runs(text: string, bold: boolean): { font: string; text: string }[] {
-    const names = bold ? this.fonts.bold : this.fonts.regular;
     const runs: { font: string; text: string }[] = [];
-    for (const char of text) {
-      const cp = char.codePointAt(0)!;
-      const font =
-        names.find((name) => {
-          this.doc.font(name);
-          const glyphs = (this.doc as unknown as { _font: GlyphFont })._font.font;
-          return !glyphs?.hasGlyphForCodePoint || glyphs.hasGlyphForCodePoint(cp);
-        }) ?? names[0]!;
+    for (const letter of text) {
+      let char = letter;
+      let font = this.fontOf(char.codePointAt(0)!, bold);
+      if (font === null) {
+        char = MISSING_MARK;
+        font = this.fontOf(MISSING_MARK.codePointAt(0)!, bold) ?? this.fonts.regular[0]!;
+        this.missingOnPage = true;
+      }
       const last = runs[runs.length - 1];
       if (last && last.font === font) last.text += char;
       else runs.push({ font, text: char });
@@ -157,8 +153,56 @@ export class PrintDocument {
     return this.doc.y;
   }
 
-  async finish(): Promise<Buffer> {
+  /**
+   * A QR code drawn as squares (crisp at any size, and far quicker than making and embedding a
+   * picture of it), with a quiet zone of two modules.
+   */
+  qr(value: string, x: number, y: number, size: number): void {
+    const { modules } = QRCode.create(value, { errorCorrectionLevel: 'M' });
+    const cell = size / (modules.size + 4);
+    for (let row = 0; row < modules.size; row += 1)
+      for (let col = 0; col < modules.size; col += 1)
+        if (modules.get(row, col)) this.doc.rect(x + (col + 2) * cell, y + (row + 2) * cell, cell, cell);
+    this.doc.fill('#000000');
+  }
+
+  /** Says at the foot of the page when a letter was printed as the mark. */
+  private noteMissing(): void {
+    if (!this.missingOnPage) return;
+    this.missingOnPage = false;
+    const { width, height } = this.doc.page;
+    this.text(MISSING_NOTE, 36, height - 24, { size: 7, width: width - 72, minSize: 5, color: '#555555' });
+  }
+
+  /** The whole PDF in memory, for a one-page document such as a final card to mail. */
+  async toBuffer(): Promise<Buffer> {
+    const chunks: Buffer[] = [];
+    const done = new Promise<Buffer>((resolve, reject) => {
+      this.doc.on('data', (chunk: Buffer) => chunks.push(chunk));
+      this.doc.on('end', () => resolve(Buffer.concat(chunks)));
+      this.doc.on('error', reject);
+    });
+    this.noteMissing();
     this.doc.end();
-    return this.finished;
+    return done;
+  }
+
+  /**
+   * Streams a printout of many pages to `out` as they are made, one page per item, pausing
+   * between pages so other requests are answered meanwhile; stops when the reader goes away.
+   */
+  async streamPages<T>(
+    out: Writable,
+    items: Iterable<T>,
+    page: (item: T) => void | Promise<void>,
+  ): Promise<void> {
+    this.doc.pipe(out);
+    for (const item of items) {
+      if (out.destroyed) break;
+      await page(item);
+      await breathe();
+    }
+    this.noteMissing();
+    this.doc.end();
   }
 }

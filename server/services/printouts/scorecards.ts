@@ -1,3 +1,4 @@
+import type { Writable } from 'node:stream';
 import { endsOfRound, getFace, type RoundDefinition } from '../../../src/core';
 import { PrintDocument } from './pdfDocument';
 import type { PrintSession } from './printSession';
@@ -20,7 +21,7 @@ export type FilledCard = {
   signatures: { label: string; name: string; at: string }[];
   /** A line about the judges' signatures on the ends, e.g. "All 12 ends signed by a judge (Tobias Wren)." */
   judgesLine: string;
-  verify: { url: string; qrPng: Buffer };
+  verify: { url: string };
   /** The card's sheet title in the heading band. */
   title: string;
 };
@@ -359,12 +360,12 @@ function signedFooter(pdf: PrintDocument, filled: FilledCard, left: number, y: n
     color: '#333333',
   });
   pdf.text(filled.verify.url, left, y + 82, { size: 6, width: textWidth, minSize: 4, color: '#333333' });
-  doc.image(filled.verify.qrPng, left + width - qrSize, y - 4, { width: qrSize, height: qrSize });
+  pdf.qr(filled.verify.url, left + width - qrSize, y - 4, qrSize);
 }
 
-/** One page per archer on a target, in target and position order. */
-export async function scorecardsPdf(print: PrintSession): Promise<Buffer> {
+/** One page per archer on a target, in target and position order, streamed to `out`. */
+export async function scorecardsPdf(print: PrintSession, out: Writable): Promise<void> {
   const pdf = new PrintDocument(`Scorecards · ${print.event.name} · ${print.session.name}`);
-  for (const target of print.targets) for (const archer of target.archers) scorecardPage(pdf, print, archer);
-  return pdf.finish();
+  const archers = print.targets.flatMap((target) => target.archers);
+  await pdf.streamPages(out, archers, (archer) => scorecardPage(pdf, print, archer));
 }

@@ -1,6 +1,6 @@
+import type { Writable } from 'node:stream';
 import { POSITIONS } from '../../../src/contract/events';
 import { getFace } from '../../../src/core';
-import { qrPng } from '../joinCodes';
 import { faceIsPerPosition } from '../targetFaces';
 import { PrintDocument } from './pdfDocument';
 import type { PrintSession } from './printSession';
@@ -28,11 +28,7 @@ function facesLine(target: PrintSession['targets'][number]): string {
     .join(', then ')}`;
 }
 
-async function targetPage(
-  pdf: PrintDocument,
-  print: PrintSession,
-  target: PrintSession['targets'][number],
-): Promise<void> {
+function targetPage(pdf: PrintDocument, print: PrintSession, target: PrintSession['targets'][number]): void {
   const { doc } = pdf;
   const left = PAGE.margin;
   const width = PAGE.width - PAGE.margin * 2;
@@ -90,10 +86,7 @@ async function targetPage(
   doc.lineWidth(2).rect(left, y, width, boxHeight).stroke(INK);
   if (target.joinCode && target.joinUrl) {
     const qrSize = 210;
-    doc.image(await qrPng(target.joinUrl), left + width - qrSize - 20, y + 20, {
-      width: qrSize,
-      height: qrSize,
-    });
+    pdf.qr(target.joinUrl, left + width - qrSize - 20, y + 20, qrSize);
     const textWidth = width - qrSize - 60;
     pdf.text('Join code', left + 20, y + 24, { size: 14, bold: true });
     pdf.text(target.joinCode, left + 20, y + 50, {
@@ -142,8 +135,7 @@ async function targetPage(
 }
 
 /** One page per target: number, archers A–D, faces to hang, join code with QR, range cautions. */
-export async function targetSheetsPdf(print: PrintSession): Promise<Buffer> {
+export async function targetSheetsPdf(print: PrintSession, out: Writable): Promise<void> {
   const pdf = new PrintDocument(`Target sheets · ${print.event.name} · ${print.session.name}`);
-  for (const target of print.targets) await targetPage(pdf, print, target);
-  return pdf.finish();
+  await pdf.streamPages(out, print.targets, (target) => targetPage(pdf, print, target));
 }

@@ -1,4 +1,9 @@
-import type { MutationResult, PushRequest, PushResponse } from '../../../src/contract/sync';
+import {
+  isUnreadable,
+  type MutationResult,
+  type PushResponse,
+  type ReceivedPush,
+} from '../../../src/contract/sync';
 import type { Db } from '../../db';
 import type { Outcome } from '../../groupCommit';
 import { forbidden } from '../../http/httpError';
@@ -9,7 +14,7 @@ import { FieldBatch } from './fieldBatch';
 import { KnownMutations, answerFromStore, type Sequenced, type Step } from './pushSequence';
 
 /** One phone's push as one commit takes it in. */
-export type Push = { userId: number; request: PushRequest; signingKeys?: SigningKeys };
+export type Push = { userId: number; request: ReceivedPush; signingKeys?: SigningKeys };
 
 export type CardRef = { sessionId: number; entryId: number };
 
@@ -53,7 +58,7 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
 
   const batch = await FieldBatch.load(
     trx,
-    plans.flatMap((p) => p.steps.flatMap((s) => ('apply' in s ? [s.m] : []))),
+    plans.flatMap((p) => p.steps.flatMap((s) => ('apply' in s && !isUnreadable(s.m) ? [s.m] : []))),
     [...new Set(plans.map((p) => p.push.userId))],
   );
   const receivedAt = nowIso();
@@ -70,17 +75,20 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
     const { m } = step;
     if ('answer' in step) return step.answer;
     if ('sameAs' in step) return answerFromStore(m, step.sameAs.outcome!);
-    const by = { userId: push.userId, at: m.at, mutationId: m.id };
-    const reason = await applyMutation(batch, m, by, push.signingKeys);
+    // An unreadable change is logged as refused with its reason, like a broken rule: the phone's
+    // sequence moves past it and the changes behind it go on.
+    const reason = isUnreadable(m)
+      ? m.unreadable.reason
+      : await applyMutation(batch, m, { userId: push.userId, at: m.at, mutationId: m.id }, push.signingKeys);
     step.apply.outcome = { mutation_uuid: m.id, status: reason === null ? 'applied' : 'rejected', reason };
     logRows.push({
       ...step.apply.outcome,
       client_id: push.request.clientId,
       seq: m.seq,
       user_id: push.userId,
-      kind: m.kind,
-      args_json: JSON.stringify(m.args),
-      at: m.at,
+      ...(isUnreadable(m)
+        ? { kind: m.unreadable.kind, args_json: m.unreadable.argsJson, at: m.unreadable.at }
+        : { kind: m.kind, args_json: JSON.stringify(m.args), at: m.at }),
       received_at: receivedAt,
     });
     return reason === null

@@ -1,4 +1,5 @@
 import type { WaitingChangesFile, WaitingChangesImport } from '../../../src/contract/waitingChanges';
+import { understood } from '../../../src/contract/sync';
 import type { Db } from '../../db';
 import { badRequest } from '../../http/httpError';
 import { audit } from '../audit';
@@ -18,7 +19,9 @@ export async function importWaitingChanges(
   const sessionIds = new Set(
     (await db('event_sessions').where({ event_id: eventId }).select('id')).map((r) => Number(r.id)),
   );
-  const foreign = file.clients.flatMap((c) => c.mutations).find((m) => !sessionIds.has(m.args.sessionId));
+  const foreign = file.clients
+    .flatMap((c) => understood(c.mutations))
+    .find((m) => !sessionIds.has(m.args.sessionId));
   if (foreign)
     throw badRequest('This file holds changes of another event. Import it at that event’s judge desk.');
 

@@ -1,4 +1,4 @@
-import type { PushRequest, PushResponse } from '../../../src/contract/sync';
+import type { PushResponse, ReceivedPush } from '../../../src/contract/sync';
 import type { Db } from '../../db';
 import { GroupCommit } from '../../groupCommit';
 import type { SigningKeys } from '../../signing/serverKeys';
@@ -48,7 +48,7 @@ function commitsOf(db: Db): GroupCommit<Push, PushDone> {
 export async function pushBatch(
   db: Db,
   userId: number,
-  request: PushRequest,
+  request: ReceivedPush,
   options: PushOptions = {},
 ): Promise<PushResponse> {
   const done = await commitsOf(db).run({ userId, request, signingKeys: options.signingKeys });

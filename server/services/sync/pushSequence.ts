@@ -1,4 +1,4 @@
-import type { Mutation, MutationResult } from '../../../src/contract/sync';
+import type { MutationResult, ReceivedChange } from '../../../src/contract/sync';
 import type { Db } from '../../db';
 
 export type StoredOutcome = { mutation_uuid: string; status: 'applied' | 'rejected'; reason: string | null };
@@ -8,13 +8,16 @@ export type OutcomeRef = { uuid: string; outcome?: StoredOutcome };
 
 /** What the sequence decided for one mutation: apply it, answer it as one already held, or answer it now. */
 export type Step =
-  | { m: Mutation; apply: OutcomeRef }
-  | { m: Mutation; sameAs: OutcomeRef }
-  | { m: Mutation; answer: MutationResult };
+  | { m: ReceivedChange; apply: OutcomeRef }
+  | { m: ReceivedChange; sameAs: OutcomeRef }
+  | { m: ReceivedChange; answer: MutationResult };
+
+/** What the sequence looks at of a change: its id and number (an unreadable change has them too). */
+type Numbered = { id: string; seq: number };
 
 export type Sequenced = { steps: Step[]; lastSeq: number; expectedSeq?: number };
 
-const numberReused = (m: Mutation): MutationResult => ({
+const numberReused = (m: Numbered): MutationResult => ({
   seq: m.seq,
   id: m.id,
   status: 'rejected',
@@ -40,7 +43,7 @@ export class KnownMutations {
   /** `lastSeq` gives each phone's stored last seq: only numbers up to it can already be held. */
   static async load(
     trx: Db,
-    pushes: readonly { clientId: string; mutations: readonly Mutation[] }[],
+    pushes: readonly { clientId: string; mutations: readonly Numbered[] }[],
     lastSeq: (clientId: string) => number,
   ): Promise<KnownMutations> {
     const known = new KnownMutations();
@@ -73,7 +76,7 @@ export class KnownMutations {
    * what is held (or a number reused for another change); beyond the next number, a gap that
    * stops the batch; the same mutation under a new number, a duplicate; otherwise applied.
    */
-  sequence(clientId: string, mutations: readonly Mutation[], startSeq: number): Sequenced {
+  sequence(clientId: string, mutations: readonly ReceivedChange[], startSeq: number): Sequenced {
     const steps: Step[] = [];
     let lastSeq = startSeq;
     for (const m of mutations) {
@@ -99,7 +102,7 @@ export class KnownMutations {
 }
 
 /** What a phone is told about a mutation the server already holds: its stored outcome, never a second application. */
-export function answerFromStore(m: Mutation, stored: StoredOutcome): MutationResult {
+export function answerFromStore(m: Numbered, stored: StoredOutcome): MutationResult {
   return stored.status === 'rejected'
     ? { seq: m.seq, id: m.id, status: 'rejected', reason: stored.reason ?? 'This change was refused.' }
     : { seq: m.seq, id: m.id, status: 'duplicate' };
