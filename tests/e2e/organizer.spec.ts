@@ -59,7 +59,7 @@ test('an organizer builds an event from nothing to printed scorecards and an inv
   await page.getByLabel('Venue').fill('Tregear meadow');
   await page.getByLabel('First day').fill('2027-05-08');
   await page.getByLabel('Last day').fill('2027-05-08');
-  await page.getByLabel('Time zone').fill('Europe/London');
+  await page.getByLabel('Time zone').selectOption('Europe/London');
   await page.getByRole('button', { name: 'Create event' }).click();
   await expect(page.getByRole('heading', { level: 1, name: eventName })).toBeVisible();
   await expect(page.getByTestId('no-divisions')).toBeVisible();

@@ -10,6 +10,7 @@ import { useCloseSession } from '../api/closeSession';
 import { useReopenSession } from '../api/reopenSession';
 import { ConfirmButton } from '../components/ConfirmButton';
 import { GoToPart } from '../components/GoToPart';
+import { archersOnTargets } from '../components/archersOnTargets';
 import { keepUnits, localStart } from '../components/formProblems';
 import { SessionForm } from './SessionForm';
 
@@ -57,7 +58,7 @@ function SessionCard({ summary, session }: { summary: EventSummary; session: Eve
         <p className="text-base text-ink-soft">
           {session.assignedCount === 0
             ? 'No archers on targets yet'
-            : `${session.assignedCount} archers on ${session.targetCount} targets`}
+            : archersOnTargets(session.assignedCount, session.targetCount)}
         </p>
       </div>
       {session.rounds.length === 0 ? (
