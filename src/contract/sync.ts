@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { ARROW_FLAGS, TASKS, type ArrowFlag, type Task, type WriterSlot } from './fieldTerms';
 import type { ArrowValue, EndView, RoundDefinition } from '../core';
 import { arrowValueSchema } from './arrowValueSchema';
+import type { LateDecisionDto } from './lateValues';
 import {
   cardSignArgsSchema,
   endRuleArgsSchema,
@@ -76,9 +77,13 @@ export const pushRequestSchema = z.object({
 });
 export type PushRequest = z.infer<typeof pushRequestSchema>;
 
+/**
+ * `held`: the session was closed when it arrived; the server keeps it for a judge to accept or
+ * reject (see lateValues.ts), and the decision comes back as a `late-value` change.
+ */
 export type MutationResult =
   | { seq: number; id: string; status: 'applied' | 'duplicate' }
-  | { seq: number; id: string; status: 'rejected'; reason: string };
+  | { seq: number; id: string; status: 'rejected' | 'held'; reason: string };
 
 export type PushResponse = {
   results: MutationResult[];
@@ -121,7 +126,8 @@ export type ChangeDto =
   | { version: number; type: 'settlement'; record: SettlementDto }
   | { version: number; type: 'ruling'; record: RulingDto }
   | { version: number; type: 'signature'; record: EndSignatureDto }
-  | { version: number; type: 'card-signature'; record: CardSignatureDto };
+  | { version: number; type: 'card-signature'; record: CardSignatureDto }
+  | { version: number; type: 'late-value'; record: LateDecisionDto };
 
 export type PullResponse = { changes: ChangeDto[]; cursor: number; hasMore: boolean };
 

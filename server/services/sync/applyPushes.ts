@@ -6,6 +6,8 @@ import type { SigningKeys } from '../../signing/serverKeys';
 import { nowIso } from '../../time';
 import { applyMutation } from './applyMutation';
 import { FieldBatch } from './fieldBatch';
+import { LateArrival } from './lateArrival';
+import { heldRow } from './lateValues';
 import { KnownMutations, answerFromStore, type Sequenced, type Step } from './pushSequence';
 
 /** One phone's push as one commit takes it in. */
@@ -58,6 +60,8 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
   );
   const receivedAt = nowIso();
   const logRows: object[] = [];
+  /** Changes that reached a closed session, held for a judge (lateValues.ts). */
+  const lateRows: object[] = [];
   for (const { push, done, steps, lastSeq, expectedSeq } of plans) {
     const finalBefore = batch.finalCards.length;
     const results: MutationResult[] = [];
@@ -71,8 +75,18 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
     if ('answer' in step) return step.answer;
     if ('sameAs' in step) return answerFromStore(m, step.sameAs.outcome!);
     const by = { userId: push.userId, at: m.at, mutationId: m.id };
-    const reason = await applyMutation(batch, m, by, push.signingKeys);
-    step.apply.outcome = { mutation_uuid: m.id, status: reason === null ? 'applied' : 'rejected', reason };
+    let reason: string | null;
+    let status: 'applied' | 'rejected' | 'held';
+    try {
+      reason = await applyMutation(batch, m, by, push.signingKeys);
+      status = reason === null ? 'applied' : 'rejected';
+    } catch (error) {
+      if (!(error instanceof LateArrival)) throw error;
+      reason = error.message;
+      status = 'held';
+      lateRows.push(heldRow(m, push.userId, error.placement, receivedAt));
+    }
+    step.apply.outcome = { mutation_uuid: m.id, status, reason };
     logRows.push({
       ...step.apply.outcome,
       client_id: push.request.clientId,
@@ -85,11 +99,12 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
     });
     return reason === null
       ? { seq: m.seq, id: m.id, status: 'applied' }
-      : { seq: m.seq, id: m.id, status: 'rejected', reason };
+      : { seq: m.seq, id: m.id, status: status === 'held' ? 'held' : 'rejected', reason };
   }
 
   await batch.flush(trx);
   for (let i = 0; i < logRows.length; i += 200) await trx('mutations').insert(logRows.slice(i, i + 200));
+  for (let i = 0; i < lateRows.length; i += 200) await trx('late_values').insert(lateRows.slice(i, i + 200));
   await writeClients(trx, clients, receivedAt);
   return outcomes;
 }
