@@ -16,8 +16,12 @@ export async function up(knex: Knex): Promise<void> {
     t.integer('entry_id').unsigned().notNullable().references('entries.id');
     t.integer('end_index').unsigned().notNullable();
     t.integer('user_id').unsigned().notNullable().references('users.id');
+    // What it is: a writer's record (its slot) or the caller's settlement (slot 0). A later late
+    // value of the same end, kind and slot from the same person replaces a waiting one.
+    t.string('kind', 40).notNullable();
+    t.integer('slot').unsigned().notNullable();
     t.string('received_at', 30).notNullable();
-    t.string('status', 10).notNullable(); // waiting | accepted | rejected
+    t.string('status', 10).notNullable(); // waiting | accepted | rejected | replaced
     t.text('reason').nullable();
     t.integer('decided_by').unsigned().nullable().references('users.id');
     t.string('decided_at', 30).nullable();

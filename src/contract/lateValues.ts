@@ -12,7 +12,8 @@ import type { ArrowFlag, WriterSlot } from './fieldTerms';
 export const LATE_HELD_REASON =
   'The session was closed before this reached the event server. It is kept for a judge, who will accept or reject it.';
 
-export type LateValueStatus = 'waiting' | 'accepted' | 'rejected';
+/** `replaced`: a later value of the same end from the same phone took its place (each tap sends the whole end). */
+export type LateValueStatus = 'waiting' | 'accepted' | 'rejected' | 'replaced';
 
 /** `GET /api/events/:eventId/sessions/:sessionId/late-values`: one held change, as the judge desk shows it. */
 export type LateValueDto = {
@@ -44,9 +45,10 @@ export type LateDecisionDto = {
   sessionId: number;
   entryId: number;
   endIndex: number;
-  status: 'accepted' | 'rejected';
+  status: 'accepted' | 'rejected' | 'replaced';
   reason: string | null;
-  decidedByName: string;
+  /** The judge who decided; null when a later value from the same phone replaced this one. */
+  decidedByName: string | null;
   decidedAt: string;
 };
 

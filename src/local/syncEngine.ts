@@ -124,12 +124,13 @@ async function applyLateDecisions(db: LocalDb, changes: ChangeDto[]): Promise<vo
   const decided = rows.flatMap((row): OutboxRow[] => {
     const d = decisions.find((x) => x.mutationId === row.id);
     if (!d || row.status !== 'held') return [];
-    if (d.status === 'accepted') return [{ ...row, status: 'applied' }];
+    // A replaced value is no longer waiting: a later one of the same end from this phone speaks for it.
+    if (d.status !== 'rejected') return [{ ...row, status: 'applied' }];
     return [
       {
         ...row,
         status: 'rejected',
-        reason: `${d.decidedByName} (judge) rejected this value: ${d.reason ?? ''}`,
+        reason: `${d.decidedByName ?? 'A judge'} (judge) rejected this value: ${d.reason ?? ''}`,
       },
     ];
   });

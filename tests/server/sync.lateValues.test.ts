@@ -63,7 +63,31 @@ describe('values that arrive after the session is closed', () => {
     expect(await server.db('end_entries').where({ mutation_id: m.id }).first()).toBeUndefined();
     expect((await phone.push([m])).results[0]).toMatchObject({ status: 'held' });
 
-    const held = (await lateValues()).find((l) => l.mutationId === m.id);
+    // The phone sends the whole end at each tap: a later value of the end replaces the waiting one.
+    const again = phone.write({
+      sessionId: j.sessionId,
+      entryId: j.ada.entryId,
+      endIndex: 0,
+      slot: 1,
+      arrows: SIX.slice(0, 5),
+    });
+    const last = phone.write({
+      sessionId: j.sessionId,
+      entryId: j.ada.entryId,
+      endIndex: 0,
+      slot: 1,
+      arrows: SIX,
+    });
+    expect((await phone.push([again, last])).results.map((r) => r.status)).toEqual(['held', 'held']);
+    const listed = (await lateValues()).filter((l) => l.endIndex === 0 && l.slot === 1);
+    expect(listed.map((l) => l.mutationId)).toEqual([last.id]);
+    const { changes } = await phone.pull(0);
+    for (const replaced of [m, again])
+      expect(await lateChanges(changes, replaced.id)).toEqual([
+        expect.objectContaining({ record: expect.objectContaining({ status: 'replaced' }) }),
+      ]);
+
+    const held = (await lateValues()).find((l) => l.mutationId === last.id);
     expect(held).toMatchObject({
       status: 'waiting',
       targetNumber: 1,

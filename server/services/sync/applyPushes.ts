@@ -7,7 +7,7 @@ import { nowIso } from '../../time';
 import { applyMutation } from './applyMutation';
 import { FieldBatch } from './fieldBatch';
 import { LateArrival } from './lateArrival';
-import { heldRow } from './lateValues';
+import { storeHeld, type Held } from './lateValues';
 import { KnownMutations, answerFromStore, type Sequenced, type Step } from './pushSequence';
 
 /** One phone's push as one commit takes it in. */
@@ -61,7 +61,7 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
   const receivedAt = nowIso();
   const logRows: object[] = [];
   /** Changes that reached a closed session, held for a judge (lateValues.ts). */
-  const lateRows: object[] = [];
+  const held: Held[] = [];
   for (const { push, done, steps, lastSeq, expectedSeq } of plans) {
     const finalBefore = batch.finalCards.length;
     const results: MutationResult[] = [];
@@ -84,7 +84,7 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
       if (!(error instanceof LateArrival)) throw error;
       reason = error.message;
       status = 'held';
-      lateRows.push(heldRow(m, push.userId, error.placement, receivedAt));
+      held.push({ m, userId: push.userId, placement: error.placement, receivedAt });
     }
     step.apply.outcome = { mutation_uuid: m.id, status, reason };
     logRows.push({
@@ -104,7 +104,7 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
 
   await batch.flush(trx);
   for (let i = 0; i < logRows.length; i += 200) await trx('mutations').insert(logRows.slice(i, i + 200));
-  for (let i = 0; i < lateRows.length; i += 200) await trx('late_values').insert(lateRows.slice(i, i + 200));
+  await storeHeld(trx, held);
   await writeClients(trx, clients, receivedAt);
   return outcomes;
 }

@@ -15,20 +15,86 @@ import type { Placement } from './fieldPlacements';
  * rules as any push, as if the session were open) or rejects it with a reason for the phone.
  */
 
-/** The `late_values` row of a change the push held. */
-export function heldRow(m: Mutation, userId: number, placement: Placement, receivedAt: string): object {
-  const args = m.args as EndWriteArgs | EndSettleArgs;
-  return {
-    mutation_uuid: m.id,
-    event_id: placement.session.eventId,
-    session_id: placement.session.id,
-    target_number: placement.targetNumber,
-    entry_id: placement.entryId,
-    end_index: args.endIndex,
-    user_id: userId,
-    received_at: receivedAt,
-    status: 'waiting',
-  };
+/** A change the push held (its `late_values` row is written by storeHeld). */
+export type Held = { m: Mutation; userId: number; placement: Placement; receivedAt: string };
+
+const sameEnd = (h: {
+  session_id: number;
+  entry_id: number;
+  end_index: number;
+  user_id: number;
+  kind: string;
+  slot: number;
+}) => `${h.session_id}:${h.entry_id}:${h.end_index}:${h.user_id}:${h.kind}:${h.slot}`;
+
+/**
+ * Stores the late values of one commit. A phone sends the whole end at every tap, so a later
+ * value of the same end, kind and slot from the same person replaces a waiting one: only the
+ * latest waits for a judge, and the phone hears that the others were replaced.
+ */
+export async function storeHeld(trx: Db, held: readonly Held[]): Promise<void> {
+  if (held.length === 0) return;
+  const rows = held.map(({ m, userId, placement, receivedAt }) => {
+    const args = m.args as EndWriteArgs | EndSettleArgs;
+    return {
+      mutation_uuid: m.id,
+      event_id: placement.session.eventId,
+      session_id: placement.session.id,
+      target_number: placement.targetNumber,
+      entry_id: placement.entryId,
+      end_index: args.endIndex,
+      user_id: userId,
+      kind: m.kind,
+      slot: 'slot' in args ? args.slot : 0,
+      received_at: receivedAt,
+      status: 'waiting' as LateValueDto['status'],
+    };
+  });
+  const latest = new Map(rows.map((r) => [sameEnd(r), r]));
+  for (const r of rows) if (latest.get(sameEnd(r)) !== r) r.status = 'replaced';
+  const earlier = (await trx('late_values')
+    .where({ status: 'waiting' })
+    .whereIn('session_id', [...new Set(rows.map((r) => r.session_id))])
+    .whereIn('entry_id', [...new Set(rows.map((r) => r.entry_id))])
+    .select(
+      'id',
+      'mutation_uuid',
+      'event_id',
+      'session_id',
+      'target_number',
+      'entry_id',
+      'end_index',
+      'user_id',
+      'kind',
+      'slot',
+    )) as ((typeof rows)[number] & { id: number })[];
+  const replacedEarlier = earlier.filter((r) => latest.has(sameEnd(r)));
+  if (replacedEarlier.length > 0)
+    await trx('late_values')
+      .whereIn(
+        'id',
+        replacedEarlier.map((r) => r.id),
+      )
+      .update({ status: 'replaced' });
+  for (let i = 0; i < rows.length; i += 200) await trx('late_values').insert(rows.slice(i, i + 200));
+  const replaced = [...replacedEarlier, ...rows.filter((r) => r.status === 'replaced')];
+  const changes = replaced.map((r) => ({
+    event_id: r.event_id,
+    session_id: r.session_id,
+    target_number: r.target_number,
+    type: 'late-value',
+    record_json: JSON.stringify({
+      mutationId: r.mutation_uuid,
+      sessionId: r.session_id,
+      entryId: r.entry_id,
+      endIndex: r.end_index,
+      status: 'replaced',
+      reason: null,
+      decidedByName: null,
+      decidedAt: held[0]!.receivedAt,
+    } satisfies LateDecisionDto),
+  }));
+  for (let i = 0; i < changes.length; i += 200) await trx('changes').insert(changes.slice(i, i + 200));
 }
 
 type LateRow = {
@@ -95,10 +161,11 @@ function toDto(r: LateRow): LateValueDto {
   };
 }
 
-/** The session's late values: those waiting first, then the decided ones, oldest first. */
+/** The session's late values (not those replaced): those waiting first, then the decided ones, oldest first. */
 export async function listLateValues(db: Db, sessionId: number): Promise<LateValueDto[]> {
   const rows = (await lateRows(db)
     .where('l.session_id', sessionId)
+    .whereNot('l.status', 'replaced')
     .orderByRaw("case when l.status = 'waiting' then 0 else 1 end")
     .orderBy('l.id')) as LateRow[];
   return rows.map(toDto);

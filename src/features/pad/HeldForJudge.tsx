@@ -6,7 +6,15 @@ import type { JoinedTarget, OutboxRow } from '../../local/db';
  * reason then shows as a refusal). Shown for as long as they wait.
  */
 export function HeldForJudge({ rows, target }: { rows: OutboxRow[]; target: JoinedTarget }) {
-  if (rows.length === 0) return null;
+  // Each tap sends the whole end: only the latest of an end (and slot) is what waits.
+  const latest = [
+    ...new Map(
+      [...rows]
+        .sort((a, b) => a.seq - b.seq)
+        .map((r) => [`${r.endKey}:${r.kind}:${'slot' in r.args ? r.args.slot : 0}`, r]),
+    ).values(),
+  ];
+  if (latest.length === 0) return null;
   const nameOf = (entryId: number) => target.archers.find((a) => a.entryId === entryId)?.name ?? 'an archer';
   return (
     <section
@@ -22,7 +30,7 @@ export function HeldForJudge({ rows, target }: { rows: OutboxRow[]; target: Join
         or reject them.
       </p>
       <ul className="list-disc space-y-1 pl-5">
-        {rows.map((r) => (
+        {latest.map((r) => (
           <li key={r.id}>
             {'endIndex' in r.args ? `End ${r.args.endIndex + 1}` : 'Card'}, {nameOf(r.args.entryId)}
             {'arrows' in r.args && r.args.arrows.length > 0 ? `: ${r.args.arrows.join(' ')}` : ''}
