@@ -1,4 +1,5 @@
 import { expect, test } from '@playwright/test';
+import { checkA11y } from './support/a11y';
 
 test('a person creates an account, sees it on the home screen, signs out and back in', async ({ page }) => {
   const email = `new.archer.${Date.now()}@example.org`;
@@ -9,10 +10,12 @@ test('a person creates an account, sees it on the home screen, signs out and bac
   await page.getByLabel('Password').fill('password');
   await page.getByRole('button', { name: 'Create account' }).click();
   await expect(page.getByRole('alert')).toContainText('most common');
+  await checkA11y(page, 'sign-up with a problem');
   await page.getByLabel('Password').fill('a steady anchor point');
   await page.getByRole('button', { name: 'Create account' }).click();
   await expect(page.getByTestId('signed-in-name')).toHaveText('Noor Pennock');
   await expect(page.getByText('Confirm your e-mail address')).toBeVisible();
+  await checkA11y(page);
   await page.screenshot({ path: '.tmp/screens/home-signed-in.png', fullPage: true });
 
   // A reload keeps the person signed in (refresh cookie), with no password typed again.
@@ -35,6 +38,7 @@ test('a person creates an account, sees it on the home screen, signs out and bac
   await page.getByLabel('Password').fill('not my password');
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page.getByRole('alert')).toContainText('not right');
+  await checkA11y(page, 'sign-in with a problem');
   await page.getByLabel('Password').fill('a steady anchor point');
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page.getByTestId('signed-in-name')).toHaveText('Noor Pennock');
@@ -60,6 +64,7 @@ test('the confirmation mail reaches the catcher and its link confirms the addres
     .click();
   const link = page.getByRole('link', { name: /verify-email\?token=/ });
   await expect(link).toBeVisible();
+  await checkA11y(page);
   await page.screenshot({ path: '.tmp/screens/caught-mail.png', fullPage: true });
   await link.click();
   await expect(page.getByText('Your address is confirmed')).toBeVisible();

@@ -2,6 +2,7 @@ import { expect, test, type APIRequestContext, type Browser, type Page } from '@
 import { devices } from '@playwright/test';
 import { DEMO_JUDGES, DEMO_ORGANIZER, DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
 import { readDemoDb, readDemoRows } from './support/demoDb';
+import { checkA11y } from './support/a11y';
 
 /** A demo target nobody scores in the seeded demo field: four barebow archers, 122 cm face, 12 ends of 6. */
 const TARGET = 11;
@@ -117,6 +118,7 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   await judge.context().setOffline(true);
   await judge.getByRole('button', { name: /Sign all 47 ready ends/ }).click();
   await expect(judge.getByTestId('waiting-count')).toContainText('47 waiting');
+  await checkA11y(judge);
   await judge.screenshot({ path: '.tmp/screens/desk-offline.png', fullPage: true });
 
   // Back online: the signatures go, and the ruling with a photo follows.
@@ -129,6 +131,7 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   await dispute
     .locator('input[type=file]')
     .setInputFiles({ name: 'target.png', mimeType: 'image/png', buffer: TINY_PNG });
+  await checkA11y(judge);
   await judge.screenshot({ path: '.tmp/screens/desk-ruling.png', fullPage: true });
   await dispute.getByRole('button', { name: 'Record ruling' }).click();
   const toSign = judge.getByTestId(`desk-to-sign-${TARGET}A-1`);
@@ -151,6 +154,7 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   await scorer.goto(`/card/${sessionId}/${archerA.entry_id}`);
   await scorer.getByRole('button', { name: 'Sign as scorer' }).click();
   await expect(scorer.getByTestId('card-state')).toContainText('Final', { timeout: 30_000 });
+  await checkA11y(scorer);
   await scorer.screenshot({ path: '.tmp/screens/card-final.png', fullPage: true });
 
   // The final card arrives by mail with its PDF, and its link verifies as unchanged.
@@ -176,5 +180,6 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   const link = /https?:\/\/\S+\/verify\?sig=\S+/.exec(mail!.text)![0];
   await archer.goto(link.replace(/^https?:\/\/[^/]+/, ''));
   await expect(archer.getByTestId('verify-result')).toContainText('Unchanged since it was signed');
+  await checkA11y(archer);
   await archer.screenshot({ path: '.tmp/screens/verify.png', fullPage: true });
 });

@@ -1,9 +1,13 @@
 import { readFileSync } from 'node:fs';
 import { expect, test, type Page } from '@playwright/test';
 import { DEMO_ARCHER_EMAIL, DEMO_ORGANIZER, DEMO_PASSWORD } from '../../server/demo/demoPeople';
+import { checkA11y } from './support/a11y';
 
-const shot = (page: Page, name: string) =>
-  page.screenshot({ path: `.tmp/screens/organizer-${name}.png`, fullPage: true });
+/** Every screen the walk looks at is also checked with axe-core. */
+const shot = async (page: Page, name: string) => {
+  await checkA11y(page, name);
+  await page.screenshot({ path: `.tmp/screens/organizer-${name}.png`, fullPage: true });
+};
 
 /** Pages of a PDF: pdfkit writes each page object uncompressed as `/Type /Page`. */
 const pdfPages = (file: string) =>
@@ -19,7 +23,10 @@ async function signIn(page: Page, email: string, next: string) {
   await page.getByLabel('Password').fill(DEMO_PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
   // Signed in once the phone has saved who it is (a reload reads it from there).
-  await page.waitForFunction((address) => (localStorage.getItem('ringcall.me') ?? '').includes(address), email);
+  await page.waitForFunction(
+    (address) => (localStorage.getItem('ringcall.me') ?? '').includes(address),
+    email,
+  );
 }
 
 const csv = (rows: string[]) => ({
