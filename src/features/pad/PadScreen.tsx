@@ -9,6 +9,7 @@ import { CallerView } from './CallerView';
 import { END_STATE_LABELS } from './endStateLabel';
 import { Rejections } from './Rejections';
 import { HeldForJudge } from './HeldForJudge';
+import { LeaveTask } from './LeaveTask';
 import { SyncLine } from './SyncLine';
 import { TASK_LABELS } from './taskNames';
 import { usePadData } from './usePadData';
@@ -139,6 +140,7 @@ function Pad({
         <CallerView target={target} ends={ends} endIndex={endIndex} />
       )}
       <SyncLine />
+      <LeaveTask target={target} />
     </div>
   );
 }
