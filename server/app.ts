@@ -28,6 +28,8 @@ import { joinRoutes } from './routes/join';
 import { wellKnownRoutes } from './routes/wellKnown';
 import { judgingRoutes } from './routes/judging';
 import { myCardsRoutes } from './routes/myCards';
+import { lateValueRoutes } from './routes/lateValues';
+import { targetTaskRoutes } from './routes/targetTasks';
 
 export type AppDeps = {
   db: Db;
@@ -88,6 +90,8 @@ export function createApp(deps: AppDeps): Express {
   api.use(printoutRoutes(ctx));
   api.use(joinRoutes(ctx));
   api.use(judgingRoutes(ctx));
+  api.use(lateValueRoutes(ctx));
+  api.use(targetTaskRoutes(ctx));
   api.use(routeNotFound);
   app.use('/api', api);
   // Public and outside /api: the key that checks printed and mailed signatures.

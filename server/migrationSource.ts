@@ -4,6 +4,7 @@ import * as m0002 from '../migrations/0002_accounts_and_setup';
 import * as m0004 from '../migrations/0004_field_loop';
 import * as m0005 from '../migrations/0005_judging_and_signatures';
 import * as m0006 from '../migrations/0006_mail_limits';
+import * as m0007 from '../migrations/0007_late_values';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
 
@@ -17,6 +18,7 @@ const migrations: [string, Migration][] = [
   ['0004_field_loop', m0004],
   ['0005_judging_and_signatures', m0005],
   ['0006_mail_limits', m0006],
+  ['0007_late_values', m0007],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {

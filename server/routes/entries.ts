@@ -24,10 +24,10 @@ export function entryRoutes(ctx: AppContext): Router {
     },
   );
 
-  router.get('/events/:eventId/entries/template.csv', ...organizer, (_req, res) => {
+  router.get('/events/:eventId/entries/template.csv', ...organizer, async (req, res) => {
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', 'attachment; filename="ringcall-entries.csv"');
-    res.send(entryTemplateCsv());
+    res.send(await entryTemplateCsv(db, Number(req.params.eventId)));
   });
 
   router.post('/events/:eventId/entries', ...organizer, validateBody(entryInputSchema), async (req, res) => {

@@ -178,5 +178,21 @@ export async function importEntries(
   });
 }
 
-/** The template: the column names, then one archer per row. */
-export const entryTemplateCsv = (): string => `${ENTRY_CSV_COLUMNS.join(',')}\r\n`;
+/**
+ * The template: the column names, then two invented archers showing how a row is filled in, in
+ * the event's own divisions when it has some (replace them with the real archers).
+ */
+export async function entryTemplateCsv(db: Db, eventId: number): Promise<string> {
+  const divisions = (await db('divisions')
+    .where({ event_id: eventId })
+    .orderBy('id')
+    .pluck('name')) as string[];
+  const [first = 'Recurve Women', second = first] = divisions;
+  const quote = (v: string) => (/[",\r\n]/.test(v) ? `"${v.replaceAll('"', '""')}"` : v);
+  const rows = [
+    [...ENTRY_CSV_COLUMNS],
+    ['Example Archer One', 'Example Bowmen', 'archer.one@example.org', first],
+    ['Example Archer Two', 'Example Bowmen', '', second],
+  ];
+  return rows.map((r) => r.map(quote).join(',')).join('\r\n') + '\r\n';
+}

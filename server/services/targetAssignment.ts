@@ -18,11 +18,13 @@ export type Placement = { entryId: number; targetNumber: number; position: Posit
 /**
  * Automatic layout: archers are grouped by round (distances and faces) and division, each group
  * starts on a new target, up to four per target in positions A–D (details AB and CD), and targets
- * are numbered from 1 straight through the groups. Within a group archers go in name order.
- * Pure, so it can be tested without a database.
+ * are numbered from 1 straight through the groups. Within a group archers go in name order, then
+ * archers of one club who would share a target are spread over the group's targets where they
+ * can be (clubmates on one target score each other's arrows). Pure, so it can be tested without
+ * a database.
  */
 export function planTargets(
-  entries: readonly Pick<LayoutEntry, 'entryId' | 'name' | 'divisionId' | 'setupKey'>[],
+  entries: readonly Pick<LayoutEntry, 'entryId' | 'name' | 'divisionId' | 'setupKey' | 'club'>[],
 ): Placement[] {
   const groups = new Map<string, (typeof entries)[number][]>();
   const setupOrder: string[] = [];
@@ -41,16 +43,56 @@ export function planTargets(
   let nextTarget = 1;
   for (const [, group] of ordered) {
     const archers = [...group].sort((x, y) => x.name.localeCompare(y.name) || x.entryId - y.entryId);
-    archers.forEach((a, i) => {
-      placements.push({
-        entryId: a.entryId,
-        targetNumber: nextTarget + Math.floor(i / ARCHERS_PER_TARGET),
-        position: POSITIONS[i % ARCHERS_PER_TARGET]!,
-      });
+    const targets = Array.from({ length: Math.ceil(archers.length / ARCHERS_PER_TARGET) }, (_, t) =>
+      archers.slice(t * ARCHERS_PER_TARGET, (t + 1) * ARCHERS_PER_TARGET),
+    );
+    spreadClubs(targets);
+    targets.forEach((onTarget, t) => {
+      [...onTarget]
+        .sort((x, y) => x.name.localeCompare(y.name) || x.entryId - y.entryId)
+        .forEach((a, i) =>
+          placements.push({ entryId: a.entryId, targetNumber: nextTarget + t, position: POSITIONS[i]! }),
+        );
     });
-    nextTarget += Math.ceil(archers.length / ARCHERS_PER_TARGET);
+    nextTarget += targets.length;
   }
   return placements;
+}
+
+/** Pairs of archers of one club on one target (an empty club is no club). */
+function clubPairs(onTarget: readonly { club: string }[]): number {
+  let pairs = 0;
+  onTarget.forEach((a, i) => {
+    for (const b of onTarget.slice(i + 1)) if (a.club && a.club === b.club) pairs += 1;
+  });
+  return pairs;
+}
+
+/**
+ * Swaps archers between the targets (in place) while a swap leaves fewer clubmates sharing a
+ * target; each swap lowers that count, so it ends. Without such pairs nothing moves.
+ */
+function spreadClubs<T extends { club: string }>(targets: T[][]): void {
+  const trySwap = (): boolean => {
+    for (const here of targets) {
+      for (const [i, a] of here.entries()) {
+        if (!here.some((b) => b !== a && a.club && b.club === a.club)) continue;
+        for (const there of targets) {
+          if (there === here) continue;
+          for (const [j, b] of there.entries()) {
+            const before = clubPairs(here) + clubPairs(there);
+            here[i] = b;
+            there[j] = a;
+            if (clubPairs(here) + clubPairs(there) < before) return true;
+            here[i] = a;
+            there[j] = b;
+          }
+        }
+      }
+    }
+    return false;
+  };
+  while (trySwap());
 }
 
 /** Replaces the session's layout with the automatic one and gives every target a join code. */

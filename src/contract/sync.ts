@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { ARROW_FLAGS, TASKS, type ArrowFlag, type Task, type WriterSlot } from './fieldTerms';
 import type { ArrowValue, EndView, RoundDefinition } from '../core';
 import { arrowValueSchema } from './arrowValueSchema';
+import type { LateDecisionDto } from './lateValues';
 import {
   cardSignArgsSchema,
   endRuleArgsSchema,
@@ -139,9 +140,13 @@ export type PushRequest = { clientId: string; mutations: Mutation[] };
 /** A push as the server reads it: each change understood or refused on its own. */
 export type ReceivedPush = z.output<typeof pushRequestSchema>;
 
+/**
+ * `held`: the session was closed when it arrived; the server keeps it for a judge to accept or
+ * reject (see lateValues.ts), and the decision comes back as a `late-value` change.
+ */
 export type MutationResult =
   | { seq: number; id: string; status: 'applied' | 'duplicate' }
-  | { seq: number; id: string; status: 'rejected'; reason: string };
+  | { seq: number; id: string; status: 'rejected' | 'held'; reason: string };
 
 export type PushResponse = {
   results: MutationResult[];
@@ -184,7 +189,8 @@ export type ChangeDto =
   | { version: number; type: 'settlement'; record: SettlementDto }
   | { version: number; type: 'ruling'; record: RulingDto }
   | { version: number; type: 'signature'; record: EndSignatureDto }
-  | { version: number; type: 'card-signature'; record: CardSignatureDto };
+  | { version: number; type: 'card-signature'; record: CardSignatureDto }
+  | { version: number; type: 'late-value'; record: LateDecisionDto };
 
 export type PullResponse = { changes: ChangeDto[]; cursor: number; hasMore: boolean };
 

@@ -31,7 +31,8 @@ export type RulingRow = RulingDto & { endKey: string };
 export type EndSignatureRow = EndSignatureDto & { endKey: string };
 export type CardSignatureRow = CardSignatureDto & { cardKey: string };
 
-export type OutboxStatus = 'pending' | 'applied' | 'rejected';
+/** `held`: it reached the server after its session closed and waits for a judge's decision. */
+export type OutboxStatus = 'pending' | 'applied' | 'rejected' | 'held';
 
 /** A change made on this phone. Pending rows are the phone's own view on top of the server's. */
 export type OutboxRow = {

@@ -7,7 +7,7 @@ export type SlotView = {
   arrows: EndRecordRow['arrows'];
   flags: { index: number; flag: ArrowFlag }[];
   revision: number;
-  /** True while this phone's change has not reached the server. */
+  /** True while this phone's change has not taken effect on the server (not sent, or held for a judge). */
   pending: boolean;
 };
 
@@ -24,7 +24,8 @@ export type JudgeRecords = { rulings?: RulingRow[]; signatures?: EndSignatureRow
 
 /**
  * What the phone shows for one end: the server's records, with this person's changes that are
- * still waiting laid over them (latest first wins). Rejected changes are not laid over.
+ * still waiting laid over them (latest first wins), including those held for a judge after the
+ * session closed. Rejected changes are not laid over.
  */
 export function localEnd(
   records: EndRecordRow[],
@@ -54,7 +55,7 @@ export function localEnd(
   let signedArrows = current?.arrows;
 
   for (const row of [...waiting].sort((a, b) => a.seq - b.seq)) {
-    if (row.status !== 'pending') continue;
+    if (row.status !== 'pending' && row.status !== 'held') continue;
     if (row.kind === 'end.write') {
       const args = row.args as EndWriteArgs;
       const server = records.find((r) => r.slot === args.slot);

@@ -11,14 +11,15 @@ function groupBy<T>(rows: T[], key: (row: T) => string): Map<string, T[]> {
 
 /**
  * Every end of the given targets' archers as this phone knows it: the server's records, the
- * judges' records, and this person's waiting changes on top. Also this person's refused changes.
+ * judges' records, and this person's waiting changes on top. Also this person's refused changes,
+ * and those the server holds for a judge (they arrived after the session closed).
  */
 export async function loadSessionEnds(
   db: LocalDb,
   sessionId: number,
   userId: number,
   targets: JoinedTarget[],
-): Promise<{ ends: Map<string, LocalEnd>; rejected: OutboxRow[] }> {
+): Promise<{ ends: Map<string, LocalEnd>; rejected: OutboxRow[]; held: OutboxRow[] }> {
   // Only these targets' ends are read: a writer's pad must not slow down as the whole field fills up.
   const endKeys = targets.flatMap((target) =>
     target.archers.flatMap((archer) => {
@@ -43,7 +44,7 @@ export async function loadSessionEnds(
       .equals(status)
       .toArray()
       .then((rows) => rows.filter((r) => r.userId === userId && wanted.has(r.endKey)));
-  const [records, settlements, pending, rejected, rulings, signatures] = await db.transaction(
+  const [records, settlements, pending, held, rejected, rulings, signatures] = await db.transaction(
     'r',
     [db.endRecords, db.settlements, db.outbox, db.rulings, db.endSignatures],
     () =>
@@ -51,6 +52,7 @@ export async function loadSessionEnds(
         byArcher(db.endRecords),
         byArcher(db.settlements),
         unsynced('pending'),
+        unsynced('held'),
         unsynced('rejected'),
         byArcher(db.rulings),
         byArcher(db.endSignatures),
@@ -60,7 +62,7 @@ export async function loadSessionEnds(
   const settlementByEnd = new Map(settlements.map((s) => [s.endKey, s]));
   const rulingsByEnd = groupBy(rulings, (r) => r.endKey);
   const signaturesByEnd = groupBy(signatures, (r) => r.endKey);
-  const waitingByEnd = groupBy(pending, (m) => m.endKey);
+  const waitingByEnd = groupBy([...pending, ...held], (m) => m.endKey);
   const ends = new Map<string, LocalEnd>();
   for (const key of endKeys) {
     ends.set(
@@ -71,5 +73,5 @@ export async function loadSessionEnds(
       }),
     );
   }
-  return { ends, rejected };
+  return { ends, rejected, held };
 }

@@ -75,10 +75,12 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
           rejected += 1;
           return [{ ...row, status: 'rejected' as const, reason: result.reason }];
         }
+        if (result.status === 'held') return [{ ...row, status: 'held' as const, reason: result.reason }];
         applied += 1;
         return [{ ...row, status: 'applied' as const }];
       });
       await db.outbox.bulkPut(answered);
+      await applyLateDecisions(db, changes);
       await applyChanges(db, changes);
       await db.meta.put({ key: cursorKey(userId), value: cursor });
     },
@@ -129,6 +131,33 @@ async function pushSplitting(
   return { ...second, results: [...first.results, ...second.results] };
 }
 
+/**
+ * A judge's decision on changes this phone sent after their session closed: accepted ones are
+ * delivered (their effect comes as ordinary records), rejected ones are shown with the reason.
+ */
+async function applyLateDecisions(db: LocalDb, changes: ChangeDto[]): Promise<void> {
+  const decisions = changes.flatMap((c) => (c.type === 'late-value' ? [c.record] : []));
+  if (decisions.length === 0) return;
+  const rows = await db.outbox
+    .where('id')
+    .anyOf(decisions.map((d) => d.mutationId))
+    .toArray();
+  const decided = rows.flatMap((row): OutboxRow[] => {
+    const d = decisions.find((x) => x.mutationId === row.id);
+    if (!d || row.status !== 'held') return [];
+    // A replaced value is no longer waiting: a later one of the same end from this phone speaks for it.
+    if (d.status !== 'rejected') return [{ ...row, status: 'applied' }];
+    return [
+      {
+        ...row,
+        status: 'rejected',
+        reason: `${d.decidedByName ?? 'A judge'} (judge) rejected this value: ${d.reason ?? ''}`,
+      },
+    ];
+  });
+  await db.outbox.bulkPut(decided);
+}
+
 /** Stores pulled changes; within one pull, a later change to the same record replaces an earlier one. */
 async function applyChanges(db: LocalDb, changes: ChangeDto[]): Promise<void> {
   const cards = new Map<number, CardSignatureRow>();
@@ -137,6 +166,7 @@ async function applyChanges(db: LocalDb, changes: ChangeDto[]): Promise<void> {
   const settlements = new Map<string, SettlementRow>();
   const records = new Map<string, EndRecordRow>();
   for (const change of changes) {
+    if (change.type === 'late-value') continue; // see applyLateDecisions
     if (change.type === 'card-signature') {
       const r = change.record;
       cards.set(r.id, { ...r, cardKey: cardKeyOf(r.sessionId, r.entryId) });

@@ -14,9 +14,12 @@ export function ThemeToggle() {
       type="button"
       aria-pressed={sun}
       onClick={() => setSun((s) => !s)}
-      className="min-h-12 whitespace-nowrap rounded-lg border-2 border-white/70 px-3 text-base font-bold text-white"
+      // The same width either way, so switching never wraps the header: "on" is the filled look and ✓.
+      className={`min-h-12 whitespace-nowrap rounded-lg border-2 border-white/70 px-3 text-base font-bold ${
+        sun ? 'bg-white text-ink' : 'text-white'
+      }`}
     >
-      {sun ? '☀ Sun: on' : '☀ Sun'}
+      <span aria-hidden="true">{sun ? '✓' : '☀'}</span> Sun
     </button>
   );
 }

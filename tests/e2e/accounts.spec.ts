@@ -11,10 +11,12 @@ test('a person creates an account, sees it on the home screen, signs out and bac
   await page.getByLabel('Password').fill('password');
   await page.getByRole('button', { name: 'Create account' }).click();
   await expect(page.getByRole('alert')).toContainText('most common');
+  await checkA11y(page, 'sign-up with a problem');
   await page.getByLabel('Password').fill('a steady anchor point');
   await page.getByRole('button', { name: 'Create account' }).click();
   await expect(page.getByTestId('signed-in-name')).toHaveText('Noor Pennock');
   await expect(page.getByText('Confirm your e-mail address')).toBeVisible();
+  await checkA11y(page);
   await page.screenshot({ path: '.tmp/screens/home-signed-in.png', fullPage: true });
 
   // A reload keeps the person signed in (refresh cookie), with no password typed again.
@@ -37,6 +39,7 @@ test('a person creates an account, sees it on the home screen, signs out and bac
   await page.getByLabel('Password').fill('not my password');
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page.getByRole('alert')).toContainText('not right');
+  await checkA11y(page, 'sign-in with a problem');
   await page.getByLabel('Password').fill('a steady anchor point');
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page.getByTestId('signed-in-name')).toHaveText('Noor Pennock');

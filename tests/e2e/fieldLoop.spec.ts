@@ -2,6 +2,7 @@ import { expect, test, type Browser, type Page } from '@playwright/test';
 import { devices } from '@playwright/test';
 import { demoArchers, DEMO_PASSWORD } from '../../server/demo/demoPeople';
 import { readDemoDb } from './support/demoDb';
+import { checkA11y } from './support/a11y';
 
 const phone = devices['Pixel 7'];
 /** A demo target nobody scores in the seeded demo field (that uses targets 1–3). */
@@ -56,6 +57,7 @@ test('two writers score an end offline, the cross-check finds the one difference
   await join(writer1, code, /Writer 1/);
   await join(writer2, code, /Writer 2/);
   await join(caller, code, /Caller/);
+  await checkA11y(writer1);
   await writer1.screenshot({ path: '.tmp/screens/pad-empty.png', fullPage: true });
 
   for (const page of [writer1, writer2]) await page.context().setOffline(true);
@@ -65,6 +67,7 @@ test('two writers score an end offline, the cross-check finds the one difference
     await enterEnd(writer2, position, position === 'B' ? ['10', '9', '8', '8', '7', '6'] : CALLED[position]!);
   }
   await expect(writer1.getByTestId('waiting-count')).toHaveText('· 24 waiting');
+  await checkA11y(writer1);
   await writer1.screenshot({ path: '.tmp/screens/pad-offline.png', fullPage: true });
 
   // Reload with no signal: the entries are still there, on the end the writer was on.
@@ -92,11 +95,13 @@ test('two writers score an end offline, the cross-check finds the one difference
     await page.getByRole('tab', { name: /^B/ }).click();
     await expect(page.getByTestId('cross-check')).toContainText('differ at arrow 3', { timeout: 20_000 });
   }
+  await checkA11y(writer2);
   await writer2.screenshot({ path: '.tmp/screens/pad-mismatch.png', fullPage: true });
 
   await caller.reload();
   const mismatch = caller.getByTestId('mismatch-B');
   await expect(mismatch).toBeVisible({ timeout: 20_000 });
+  await checkA11y(caller);
   await caller.screenshot({ path: '.tmp/screens/caller-mismatch.png', fullPage: true });
   await mismatch.getByRole('button', { name: '9', exact: true }).click();
   await mismatch.getByRole('button', { name: 'Settle this end' }).click();
@@ -114,6 +119,7 @@ test('two writers score an end offline, the cross-check finds the one difference
       timeout: 20_000,
     });
   }
+  await checkA11y(writer2);
   await writer2.screenshot({ path: '.tmp/screens/pad-settled.png', fullPage: true });
 
   // The server's card says the same.
@@ -148,6 +154,7 @@ test('a value the phone could not save is not shown as entered, and the writer i
   await expect(writer.getByRole('alert')).toContainText(
     'The last value was not saved on this phone (The storage on this phone is full.)',
   );
+  await checkA11y(writer);
   await writer.screenshot({ path: '.tmp/screens/pad-not-saved.png', fullPage: true });
   await expect(writer.getByTestId('end-total')).toHaveText('10');
   await writer.context().close();

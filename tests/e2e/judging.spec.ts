@@ -3,6 +3,7 @@ import { devices } from '@playwright/test';
 import { DEMO_JUDGES, DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
 import { readDemoDb, readDemoRows } from './support/demoDb';
 import { operatorMailTo } from './support/operatorMail';
+import { checkA11y } from './support/a11y';
 
 /** A demo target nobody scores in the seeded demo field: four barebow archers, 122 cm face, 12 ends of 6. */
 const TARGET = 11;
@@ -117,7 +118,9 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   await expect(judge.getByTestId(`desk-dispute-${TARGET}A-1`)).toBeVisible({ timeout: 30_000 });
   await judge.context().setOffline(true);
   await judge.getByRole('button', { name: /Sign all 47 ready ends/ }).click();
-  await expect(judge.getByTestId('waiting-count')).toContainText('47 waiting');
+  // 47 signatures are stored one after another: give a busy machine time.
+  await expect(judge.getByTestId('waiting-count')).toContainText('47 waiting', { timeout: 30_000 });
+  await checkA11y(judge);
   await judge.screenshot({ path: '.tmp/screens/desk-offline.png', fullPage: true });
 
   // Back online: the signatures go, and the ruling with a photo follows.
@@ -130,6 +133,7 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   await dispute
     .locator('input[type=file]')
     .setInputFiles({ name: 'target.png', mimeType: 'image/png', buffer: TINY_PNG });
+  await checkA11y(judge);
   await judge.screenshot({ path: '.tmp/screens/desk-ruling.png', fullPage: true });
   await dispute.getByRole('button', { name: 'Record ruling' }).click();
   const toSign = judge.getByTestId(`desk-to-sign-${TARGET}A-1`);
@@ -152,6 +156,7 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   await scorer.goto(`/card/${sessionId}/${archerA.entry_id}`);
   await scorer.getByRole('button', { name: 'Sign as scorer' }).click();
   await expect(scorer.getByTestId('card-state')).toContainText('Final', { timeout: 30_000 });
+  await checkA11y(scorer);
   await scorer.screenshot({ path: '.tmp/screens/card-final.png', fullPage: true });
 
   // The final card arrives by mail with its PDF, and its link verifies as unchanged.
@@ -160,5 +165,6 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   const link = /https?:\/\/\S+\/verify\?sig=\S+/.exec(mail.text)![0];
   await archer.goto(link.replace(/^https?:\/\/[^/]+/, ''));
   await expect(archer.getByTestId('verify-result')).toContainText('Unchanged since it was signed');
+  await checkA11y(archer);
   await archer.screenshot({ path: '.tmp/screens/verify.png', fullPage: true });
 });

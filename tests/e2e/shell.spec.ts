@@ -1,4 +1,5 @@
 import { expect, test } from '@playwright/test';
+import { checkA11y } from './support/a11y';
 
 test('home screen renders on a phone, and again after going offline and reloading', async ({
   page,
@@ -10,6 +11,7 @@ test('home screen renders on a phone, and again after going offline and reloadin
   await expect(page.getByTestId('server-line')).toContainText('version');
   // Wait until the service worker controls the page, so the shell is precached.
   await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
+  await checkA11y(page);
   await page.screenshot({ path: '.tmp/screens/home-online.png', fullPage: true });
 
   await context.setOffline(true);
@@ -18,6 +20,7 @@ test('home screen renders on a phone, and again after going offline and reloadin
   await expect(page.getByTestId('connection-badge')).toHaveText(/Offline/);
   // The persisted query cache still knows the server version it saw.
   await expect(page.getByTestId('server-line')).toContainText('No signal');
+  await checkA11y(page);
   await page.screenshot({ path: '.tmp/screens/home-offline.png', fullPage: true });
   // Signal back: the app notices by itself (it asks the server now and then while cut off).
   await context.setOffline(false);
@@ -67,6 +70,7 @@ test('an unknown API address answers the JSON error shape, not the app page', as
 test('an unknown screen shows the not-found page inside the app', async ({ page }) => {
   await page.goto('/no-such-screen');
   await expect(page.getByRole('heading', { name: 'Nothing here' })).toBeVisible();
+  await checkA11y(page, 'not found');
   await page.getByRole('link', { name: 'Go to start' }).click();
   await expect(page.getByRole('heading', { level: 1 })).toContainText('scorecard');
 });

@@ -38,7 +38,7 @@ const clean = [
 ].join('\n');
 
 describe('CSV template', () => {
-  it('downloads the column names as a CSV file', async () => {
+  it('downloads the column names and two invented example rows in the event’s divisions', async () => {
     const res = await request(server.app)
       .get(`/api/events/${setup.eventId}/entries/template.csv`)
       .set(setup.organizer.auth)
@@ -47,7 +47,16 @@ describe('CSV template', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     expect(res.headers['content-disposition']).toMatch(/attachment; filename=".*\.csv"/);
-    expect((res.body as Buffer).toString('utf8').trim()).toBe('name,club,email,division');
+    const lines = (res.body as Buffer).toString('utf8').trim().split('\r\n');
+    expect(lines[0]).toBe('name,club,email,division');
+    expect(lines).toHaveLength(3);
+    const divisions = (await server
+      .db('divisions')
+      .where({ event_id: setup.eventId })
+      .orderBy('id')
+      .pluck('name')) as string[];
+    expect(lines[1]).toBe(`Example Archer One,Example Bowmen,archer.one@example.org,${divisions[0]}`);
+    expect(lines[2]!.split(',')[0]).toBe('Example Archer Two');
   });
 });
 

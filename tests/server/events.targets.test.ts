@@ -122,15 +122,22 @@ describe('automatic assignment', () => {
     const a = 'setup-a';
     const b = 'setup-b';
     const entries = [
-      ...Array.from({ length: 9 }, (_, i) => ({ entryId: i + 1, name: `A${i}`, divisionId: 1, setupKey: a })),
+      ...Array.from({ length: 9 }, (_, i) => ({
+        entryId: i + 1,
+        name: `A${i}`,
+        divisionId: 1,
+        setupKey: a,
+        club: '',
+      })),
       ...Array.from({ length: 2 }, (_, i) => ({
         entryId: 20 + i,
         name: `B${i}`,
         divisionId: 2,
         setupKey: b,
+        club: '',
       })),
-      { entryId: 30, name: 'C', divisionId: 3, setupKey: a },
-      { entryId: 40, name: 'None', divisionId: 4, setupKey: null },
+      { entryId: 30, name: 'C', divisionId: 3, setupKey: a, club: '' },
+      { entryId: 40, name: 'None', divisionId: 4, setupKey: null, club: '' },
     ];
     const plan = planTargets(entries);
     const at = (id: number) => plan.find((p) => p.entryId === id);
@@ -144,6 +151,49 @@ describe('automatic assignment', () => {
     const perTarget = new Map<number, number>();
     for (const p of plan) perTarget.set(p.targetNumber, (perTarget.get(p.targetNumber) ?? 0) + 1);
     expect(Math.max(...perTarget.values())).toBeLessThanOrEqual(4);
+  });
+});
+
+describe('clubmates on targets', () => {
+  const archer = (entryId: number, name: string, club: string) => ({
+    entryId,
+    name,
+    divisionId: 1,
+    setupKey: 'a',
+    club,
+  });
+  const targetsOf = (plan: { entryId: number; targetNumber: number }[], ids: number[]) =>
+    ids.map((id) => plan.find((p) => p.entryId === id)!.targetNumber);
+
+  it('spreads two archers of one club over two targets when name order would put them together', () => {
+    // In name order Ada and Bea (one club) would both be on target 1.
+    const plan = planTargets([
+      archer(1, 'Ada', 'Heron'),
+      archer(2, 'Bea', 'Heron'),
+      archer(3, 'Cal', 'Lark'),
+      archer(4, 'Dot', 'Wren'),
+      archer(5, 'Eve', 'Finch'),
+      archer(6, 'Fay', 'Rook'),
+    ]);
+    const [ada, bea] = targetsOf(plan, [1, 2]);
+    expect(ada).not.toBe(bea);
+    // Still four on the first target, and positions in name order on each target.
+    expect(plan.filter((p) => p.targetNumber === 1)).toHaveLength(4);
+    const first = plan
+      .filter((p) => p.targetNumber === 1)
+      .sort((x, y) => x.position.localeCompare(y.position));
+    expect(first.map((p) => p.entryId)).toEqual([...first.map((p) => p.entryId)].sort((x, y) => x - y));
+  });
+
+  it('keeps name order when no club shares a target, and clubmates together when there is no other room', () => {
+    const apart = planTargets([
+      archer(1, 'Ada', 'Heron'),
+      archer(2, 'Bea', 'Lark'),
+      archer(3, 'Cal', 'Heron'),
+    ]);
+    expect(apart.map((p) => `${p.targetNumber}${p.position}`)).toEqual(['1A', '1B', '1C']);
+    const together = planTargets([archer(1, 'Ada', 'Heron'), archer(2, 'Bea', 'Heron')]);
+    expect(targetsOf(together, [1, 2])).toEqual([1, 1]);
   });
 });
 

@@ -170,7 +170,7 @@ describe('joining', () => {
     const taken = await join(second, code, 'writer1');
     expect(taken.status).toBe(409);
     expect(taken.body.error.message).toBe(
-      'Writer 1 on target 1 is already kept by Ida Early. Choose another task, or ask them to leave it.',
+      'Writer 1 on target 1 is already kept by Ida Early. Choose another task, ask them to leave it on their phone, or ask a judge or the organizer to free it.',
     );
 
     expect((await join(first, code, 'writer1')).status).toBe(200);

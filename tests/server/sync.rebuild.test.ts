@@ -62,7 +62,7 @@ async function randomRun(seed: number, steps: number) {
     }
   }
   const arrowsFor = (n: number): ArrowValue[] => Array.from({ length: n }, () => rnd.pick(ARROW_VALUES));
-  const outcomes = { applied: 0, rejected: 0, duplicate: 0, settled: 0 };
+  const outcomes = { applied: 0, rejected: 0, duplicate: 0, held: 0, settled: 0 };
 
   for (let step = 0; step < steps; step += 1) {
     const seat = rnd.pick(seats);

@@ -11,6 +11,8 @@ import type { SigningKeys } from '../../signing/serverKeys';
 import { nowIso } from '../../time';
 import { applyMutation } from './applyMutation';
 import { FieldBatch } from './fieldBatch';
+import { LateArrival } from './lateArrival';
+import { storeHeld, type Held } from './lateValues';
 import { KnownMutations, answerFromStore, type Sequenced, type Step } from './pushSequence';
 
 /** One phone's push as one commit takes it in. */
@@ -63,6 +65,8 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
   );
   const receivedAt = nowIso();
   const logRows: object[] = [];
+  /** Changes that reached a closed session, held for a judge (lateValues.ts). */
+  const held: Held[] = [];
   for (const { push, done, steps, lastSeq, expectedSeq } of plans) {
     const finalBefore = batch.finalCards.length;
     const results: MutationResult[] = [];
@@ -77,10 +81,24 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
     if ('sameAs' in step) return answerFromStore(m, step.sameAs.outcome!);
     // An unreadable change is logged as refused with its reason, like a broken rule: the phone's
     // sequence moves past it and the changes behind it go on.
-    const reason = isUnreadable(m)
-      ? m.unreadable.reason
-      : await applyMutation(batch, m, { userId: push.userId, at: m.at, mutationId: m.id }, push.signingKeys);
-    step.apply.outcome = { mutation_uuid: m.id, status: reason === null ? 'applied' : 'rejected', reason };
+    let reason: string | null;
+    let status: 'applied' | 'rejected' | 'held';
+    if (isUnreadable(m)) {
+      reason = m.unreadable.reason;
+      status = 'rejected';
+    } else {
+      try {
+        const by = { userId: push.userId, at: m.at, mutationId: m.id };
+        reason = await applyMutation(batch, m, by, push.signingKeys);
+        status = reason === null ? 'applied' : 'rejected';
+      } catch (error) {
+        if (!(error instanceof LateArrival)) throw error;
+        reason = error.message;
+        status = 'held';
+        held.push({ m, userId: push.userId, placement: error.placement, receivedAt });
+      }
+    }
+    step.apply.outcome = { mutation_uuid: m.id, status, reason };
     logRows.push({
       ...step.apply.outcome,
       client_id: push.request.clientId,
@@ -93,11 +111,12 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
     });
     return reason === null
       ? { seq: m.seq, id: m.id, status: 'applied' }
-      : { seq: m.seq, id: m.id, status: 'rejected', reason };
+      : { seq: m.seq, id: m.id, status: status === 'held' ? 'held' : 'rejected', reason };
   }
 
   await batch.flush(trx);
   for (let i = 0; i < logRows.length; i += 200) await trx('mutations').insert(logRows.slice(i, i + 200));
+  await storeHeld(trx, held);
   await writeClients(trx, clients, receivedAt);
   return outcomes;
 }

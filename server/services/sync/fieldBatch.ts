@@ -86,6 +86,8 @@ export class FieldBatch {
   private readonly ops: JudgeOp[] = [];
   /** Applied effects in order, for the change log. */
   readonly changes: { placement: Placement; change: ChangeRecord }[] = [];
+  /** Set while a judge's acceptance of a late value is applied: the closed session then takes it. */
+  acceptingLate = false;
   /** Cards that became final (both signatures) in this batch, to mail once it is committed. */
   readonly finalCards: { sessionId: number; entryId: number }[] = [];
 

@@ -8,6 +8,7 @@ import {
 import type { Task } from '../../../src/contract/sync';
 import type { FieldBatch } from './fieldBatch';
 import type { FieldSession, Placement } from './fieldPlacements';
+import { holdIfClosed } from './lateArrival';
 import { taskInSentence } from './tasks';
 
 /**
@@ -72,9 +73,9 @@ function endOf(placement: Placement, endIndex: number): CheckedEnd {
 }
 
 /**
- * The checks every writer's and caller's mutation shares: the session exists and is open, the
- * archer is on a target in it, the person `userId` keeps `task` on that target, and the end is
- * one of the archer's round.
+ * The checks every writer's and caller's mutation shares: the session exists, the archer is on a
+ * target in it, the person `userId` keeps `task` on that target, and the end is one of the
+ * archer's round. When the session is closed, the change is then held for a judge (LateArrival).
  */
 export function checkEnd(
   batch: FieldBatch,
@@ -84,16 +85,17 @@ export function checkEnd(
   doing: string,
 ): CheckedEnd {
   const placement = findPlacement(batch, where);
-  const { session, targetNumber: target } = placement;
-  if (session.closed)
-    refuse(`The session "${session.name}" is closed, so its ends can no longer change. Ask a judge.`);
+  const { targetNumber: target } = placement;
 
   const held = placement.tasks.get(userId);
   if (!held)
     refuse(`You are not in the group of target ${target}. Join it with the code on the target sheet.`);
   if (held !== task)
     refuse(`Only ${taskInSentence(task)} of target ${target} can ${doing}; you are ${taskInSentence(held)}.`);
-  return endOf(placement, where.endIndex);
+  const checked = endOf(placement, where.endIndex);
+  // A closed session does not refuse the person's values: they are held for a judge.
+  holdIfClosed(batch, placement);
+  return checked;
 }
 
 /**

@@ -1,7 +1,11 @@
 import type { MutationResult, ReceivedChange } from '../../../src/contract/sync';
 import type { Db } from '../../db';
 
-export type StoredOutcome = { mutation_uuid: string; status: 'applied' | 'rejected'; reason: string | null };
+export type StoredOutcome = {
+  mutation_uuid: string;
+  status: 'applied' | 'rejected' | 'held';
+  reason: string | null;
+};
 
 /** A reference to a mutation's outcome: stored earlier, or filled in when this commit applies it. */
 export type OutcomeRef = { uuid: string; outcome?: StoredOutcome };
@@ -103,7 +107,6 @@ export class KnownMutations {
 
 /** What a phone is told about a mutation the server already holds: its stored outcome, never a second application. */
 export function answerFromStore(m: Numbered, stored: StoredOutcome): MutationResult {
-  return stored.status === 'rejected'
-    ? { seq: m.seq, id: m.id, status: 'rejected', reason: stored.reason ?? 'This change was refused.' }
-    : { seq: m.seq, id: m.id, status: 'duplicate' };
+  if (stored.status === 'applied') return { seq: m.seq, id: m.id, status: 'duplicate' };
+  return { seq: m.seq, id: m.id, status: stored.status, reason: stored.reason ?? 'This change was refused.' };
 }

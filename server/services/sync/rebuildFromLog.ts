@@ -29,17 +29,27 @@ const rulingKey = (r: RulingRow) => `${settlementKey(r)}:${r.judged_at}:${r.muta
 /**
  * Recomputes the current writer records, settlements and rulings purely from the applied
  * mutations in the log, in the order they were applied, with the same effect functions the live
- * push uses. Signing mutations have no effect here (see FieldState).
+ * push uses; a late change held for a judge counts where the judge accepted it. Signing
+ * mutations have no effect here (see FieldState).
  */
 export async function replayLog(db: Db): Promise<FieldState> {
   const log = (await db('mutations')
-    .where({ status: 'applied' })
+    .whereIn('status', ['applied', 'held'])
     .orderBy('id')
-    .select('mutation_uuid', 'user_id', 'kind', 'args_json', 'at')) as LogRow[];
+    .select('mutation_uuid', 'user_id', 'kind', 'args_json', 'at', 'status')) as (LogRow & {
+    status: string;
+  })[];
+  // A held change (late for a closed session) takes effect where a judge accepted it.
+  const held = new Map(log.filter((m) => m.status === 'held').map((m) => [m.mutation_uuid, m]));
   const endEntries = new Map<string, EndEntryRow>();
   const settlements = new Map<string, SettlementRow>();
   const rulings: RulingRow[] = [];
-  for (const m of log) {
+  for (const entry of log) {
+    if (entry.status === 'held' || entry.kind === 'late.reject') continue;
+    const m =
+      entry.kind === 'late.accept'
+        ? held.get((JSON.parse(entry.args_json) as { mutationId: string }).mutationId)!
+        : entry;
     const by = { userId: m.user_id, at: m.at, mutationId: m.mutation_uuid };
     if (m.kind === 'end.write') {
       const args = JSON.parse(m.args_json) as EndWriteArgs;

@@ -42,7 +42,7 @@ export async function joinTarget(db: Db, userId: number, input: JoinRequest): Pr
         .first('u.display_name');
       if (holder) {
         throw conflict(
-          `${TASK_LABELS[input.task]} on target ${target} is already kept by ${holder.display_name}. Choose another task, or ask them to leave it.`,
+          `${TASK_LABELS[input.task]} on target ${target} is already kept by ${holder.display_name}. Choose another task, ask them to leave it on their phone, or ask a judge or the organizer to free it.`,
         );
       }
     }

@@ -1,3 +1,4 @@
+import { useId } from 'react';
 import { useMutation } from '@tanstack/react-query';
 import { apiRequest } from '../../api/request';
 import type { WaitingChangesImport } from '../../contract/waitingChanges';
@@ -7,6 +8,7 @@ import { Notice } from '../../ui/Notice';
 /** Brings in the file a phone saved when it could not sync ("Save waiting changes as a file"). */
 export function ImportWaiting({ eventId }: { eventId: number }) {
   const online = useOnline();
+  const fileId = useId();
   const upload = useMutation({
     mutationFn: async (file: File) => {
       let body: unknown;
@@ -39,7 +41,11 @@ export function ImportWaiting({ eventId }: { eventId: number }) {
         Load the file its writer saved with "Save waiting changes as a file". Each change counts once, even if
         the phone syncs later.
       </p>
+      <label htmlFor={fileId} className="block font-bold">
+        File of waiting changes
+      </label>
       <input
+        id={fileId}
         type="file"
         accept="application/json,.json"
         disabled={!online || upload.isPending}

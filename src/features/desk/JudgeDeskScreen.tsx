@@ -17,6 +17,8 @@ import { useEventSummary } from '../events/api/eventSummary';
 import { DESK_KIND_LABELS, deskItems, type DeskItem } from './deskItems';
 import { RuleForm } from './RuleForm';
 import { ImportWaiting } from './ImportWaiting';
+import { LateValues } from './LateValues';
+import { TargetGroup } from './TargetGroup';
 import { usePrepareDesk } from './api/prepareDesk';
 
 async function sign(userId: number, items: DeskItem[]) {
@@ -152,6 +154,9 @@ function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: numb
         </select>
       </label>
 
+      {targetFilter !== 'all' && (
+        <TargetGroup eventId={eventId} sessionId={sessionId} targetNumber={targetFilter} />
+      )}
       {ready.length > 1 && (
         <Button className="w-full" onClick={() => save(() => sign(userId, ready))}>
           ✍ Sign all {ready.length} ready ends{targetFilter === 'all' ? '' : ` of target ${targetFilter}`}
@@ -175,6 +180,7 @@ function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: numb
           ))}
         </ul>
       )}
+      <LateValues eventId={eventId} sessionId={sessionId} />
       <ImportWaiting eventId={eventId} />
       <SyncLine />
     </div>

@@ -75,7 +75,7 @@ function CreateEventForm() {
       <h2 id="create-event" className="text-2xl font-bold">
         Create an event
       </h2>
-      <EventFields draft={form} onChange={setForm} problems={problems} idPrefix="create" />
+      <EventFields draft={form} onChange={setForm} problems={problems} />
       {create.error && <Notice tone="error">{create.error.message}</Notice>}
       <Button type="submit" className="w-full sm:w-auto" disabled={create.isPending}>
         {create.isPending ? 'Creating…' : 'Create event'}

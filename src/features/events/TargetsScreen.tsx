@@ -4,6 +4,7 @@ import type { EventSummary, Position } from '../../contract/events';
 import { RequireSignIn } from '../auth/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
+import { archersOnTargets } from './components/archersOnTargets';
 import { useSessionTargets } from './api/sessionTargets';
 import { useAssignTargets } from './api/assignTargets';
 import { useMoveArcher } from './api/moveArcher';
@@ -75,7 +76,10 @@ function Targets({ summary, sessionId }: { summary: EventSummary; sessionId: num
         <p>
           {localStart(list.session.startsAt)}
           {hasTargets &&
-            ` · ${list.targets.reduce((n, t) => n + t.archers.length, 0)} archers on ${list.targets.length} targets`}
+            ` · ${archersOnTargets(
+              list.targets.reduce((n, t) => n + t.archers.length, 0),
+              list.targets.length,
+            )}`}
         </p>
       </header>
 

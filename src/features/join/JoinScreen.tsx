@@ -48,7 +48,7 @@ function JoinForm({ userId }: { userId: number }) {
         {TASKS.map((t) => (
           <label
             key={t}
-            className={`surface flex min-h-16 cursor-pointer items-start gap-3 rounded-lg border-2 bg-card p-3 ${task === t ? 'border-ink' : 'border-line'}`}
+            className={`surface flex min-h-16 cursor-pointer items-center gap-3 rounded-lg border-2 bg-card p-3 ${task === t ? 'border-ink' : 'border-line'}`}
           >
             <input
               type="radio"
@@ -56,7 +56,7 @@ function JoinForm({ userId }: { userId: number }) {
               value={t}
               checked={task === t}
               onChange={() => setTask(t)}
-              className="mt-1 h-6 w-6"
+              className="h-11 w-11 shrink-0 accent-ink"
             />
             <span>
               <span className="block text-lg font-bold">{TASK_LABELS[t]}</span>

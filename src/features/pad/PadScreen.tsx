@@ -10,6 +10,8 @@ import { CardsToSignLink } from '../cards/CardsToSignLink';
 import { CallerView } from './CallerView';
 import { END_STATE_LABELS } from './endStateLabel';
 import { Rejections } from './Rejections';
+import { HeldForJudge } from './HeldForJudge';
+import { LeaveTask } from './LeaveTask';
 import { SyncLine } from './SyncLine';
 import { TASK_LABELS } from './taskNames';
 import { usePadData } from './usePadData';
@@ -37,10 +39,12 @@ function Pad({
   target,
   ends,
   rejected,
+  held,
 }: {
   target: JoinedTarget;
   ends: Map<string, LocalEnd>;
   rejected: Parameters<typeof Rejections>[0]['rows'];
+  held: Parameters<typeof HeldForJudge>[0]['rows'];
 }) {
   const endCount = Math.max(...target.archers.map((a) => roundEnds(a).length));
   // A reload (or a phone woken from sleep) comes back to the end the person was on.
@@ -73,6 +77,7 @@ function Pad({
       </header>
       <SafetyNote compact />
       <Rejections rows={rejected} target={target} />
+      <HeldForJudge rows={held} target={target} />
 
       <nav aria-label="Ends" className="flex items-center gap-2">
         <button
@@ -138,6 +143,7 @@ function Pad({
       )}
       {slot && <CardsToSignLink target={target} slot={slot} ends={ends} />}
       <SyncLine />
+      <LeaveTask target={target} />
     </div>
   );
 }
@@ -165,5 +171,13 @@ export function PadScreen() {
       </div>
     );
   }
-  return <Pad key={data.target.key} target={data.target} ends={data.ends} rejected={data.rejected} />;
+  return (
+    <Pad
+      key={data.target.key}
+      target={data.target}
+      ends={data.ends}
+      rejected={data.rejected}
+      held={data.held}
+    />
+  );
 }

@@ -8,6 +8,8 @@ export type PadData = {
   /** By session:entry:end. */
   ends: Map<string, LocalEnd>;
   rejected: OutboxRow[];
+  /** Changes the server holds for a judge (they arrived after the session closed). */
+  held: OutboxRow[];
 };
 
 /** Everything the pad shows for one joined target, live from IndexedDB (works offline). */
@@ -27,9 +29,10 @@ export function usePadData(
         const target =
           userId === undefined ? undefined : await db.targets.get(targetKeyOf(userId, sessionId, targetNumber));
         if (!target) return null;
-        const { ends, rejected } = await loadSessionEnds(db, sessionId, target.userId, [target]);
+        const { ends, rejected, held } = await loadSessionEnds(db, sessionId, target.userId, [target]);
         const entryIds = new Set(target.archers.map((a) => a.entryId));
-        return { target, ends, rejected: rejected.filter((r) => entryIds.has(r.args.entryId)) };
+        const onTarget = (rows: OutboxRow[]) => rows.filter((r) => entryIds.has(r.args.entryId));
+        return { target, ends, rejected: onTarget(rejected), held: onTarget(held) };
       },
     );
   }, [sessionId, targetNumber, userId]);

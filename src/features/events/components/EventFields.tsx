@@ -1,20 +1,15 @@
 import { useMemo } from 'react';
 import { Field } from '../../../ui/Field';
+import { SelectField } from './SelectField';
 
 export type EventDraft = { name: string; venue: string; startsOn: string; endsOn: string; timeZone: string };
 
-function TimeZoneOptions({ id }: { id: string }) {
-  const zones = useMemo(
-    () => (typeof Intl.supportedValuesOf === 'function' ? Intl.supportedValuesOf('timeZone') : []),
-    [],
-  );
-  return (
-    <datalist id={id}>
-      {zones.map((z) => (
-        <option key={z} value={z} />
-      ))}
-    </datalist>
-  );
+/** The zones this browser knows, with the event's own first when the browser's list lacks it (e.g. "UTC"). */
+function useTimeZones(current: string): string[] {
+  return useMemo(() => {
+    const known = typeof Intl.supportedValuesOf === 'function' ? Intl.supportedValuesOf('timeZone') : [];
+    return current && !known.includes(current) ? [current, ...known] : known;
+  }, [current]);
 }
 
 /** Name, venue, first and last day, and time zone of an event (creating it or editing it). */
@@ -22,15 +17,20 @@ export function EventFields({
   draft,
   onChange,
   problems,
-  idPrefix,
 }: {
   draft: EventDraft;
   onChange: (d: EventDraft) => void;
   problems: Record<string, string>;
-  idPrefix: string;
 }) {
   const set = (key: keyof EventDraft) => (e: { target: { value: string } }) =>
     onChange({ ...draft, [key]: e.target.value });
+  const zones = useTimeZones(draft.timeZone);
+  const zoneProps = {
+    label: 'Time zone',
+    value: draft.timeZone,
+    onChange: set('timeZone'),
+    error: problems.timeZone,
+  };
   return (
     <>
       <Field label="Event name" value={draft.name} onChange={set('name')} error={problems.name} />
@@ -57,15 +57,18 @@ export function EventFields({
           error={problems.endsOn}
         />
       </div>
-      <Field
-        label="Time zone"
-        hint="Session start times are in this zone."
-        list={`${idPrefix}-time-zones`}
-        value={draft.timeZone}
-        onChange={set('timeZone')}
-        error={problems.timeZone}
-      />
-      <TimeZoneOptions id={`${idPrefix}-time-zones`} />
+      {zones.length > 1 ? (
+        <SelectField {...zoneProps} hint="Session start times are in this zone.">
+          {zones.map((z) => (
+            <option key={z} value={z}>
+              {z.replaceAll('_', ' ')}
+            </option>
+          ))}
+        </SelectField>
+      ) : (
+        // A browser that cannot list its zones: the name is typed (the server checks it).
+        <Field {...zoneProps} hint="Session start times are in this zone, e.g. Europe/Berlin." />
+      )}
     </>
   );
 }

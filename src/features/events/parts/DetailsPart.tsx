@@ -39,7 +39,7 @@ export function DetailsPart({ summary }: { summary: EventSummary }) {
       className="surface space-y-4 rounded-xl border border-line bg-card p-4"
     >
       <h2 className="text-2xl font-bold">Details</h2>
-      <EventFields draft={form} onChange={change} problems={problems} idPrefix="details" />
+      <EventFields draft={form} onChange={change} problems={problems} />
       {update.error && <Notice tone="error">{update.error.message}</Notice>}
       {saved && <Notice tone="success">Details saved.</Notice>}
       <Button type="submit" disabled={update.isPending}>

@@ -9,7 +9,9 @@ import { useDeleteSession } from '../api/deleteSession';
 import { useCloseSession } from '../api/closeSession';
 import { useReopenSession } from '../api/reopenSession';
 import { ConfirmButton } from '../components/ConfirmButton';
+import { CloseSessionButton } from '../components/CloseSessionButton';
 import { GoToPart } from '../components/GoToPart';
+import { archersOnTargets } from '../components/archersOnTargets';
 import { keepUnits, localStart } from '../components/formProblems';
 import { SessionForm } from './SessionForm';
 
@@ -57,7 +59,7 @@ function SessionCard({ summary, session }: { summary: EventSummary; session: Eve
         <p className="text-base text-ink-soft">
           {session.assignedCount === 0
             ? 'No archers on targets yet'
-            : `${session.assignedCount} archers on ${session.targetCount} targets`}
+            : archersOnTargets(session.assignedCount, session.targetCount)}
         </p>
       </div>
       {session.rounds.length === 0 ? (
@@ -87,14 +89,12 @@ function SessionCard({ summary, session }: { summary: EventSummary; session: Eve
             Reopen
           </Button>
         ) : (
-          <ConfirmButton
-            variant="secondary"
-            question={`Close ${session.name}? Its setup can then no longer change.`}
-            confirmLabel="Yes, close it"
-            onConfirm={() => close.mutate(session.id)}
-          >
-            Close session
-          </ConfirmButton>
+          <CloseSessionButton
+            eventId={eventId}
+            sessionId={session.id}
+            name={session.name}
+            onClose={() => close.mutate(session.id)}
+          />
         )}
         {!session.closedAt && (
           <ConfirmButton

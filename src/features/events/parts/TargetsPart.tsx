@@ -2,6 +2,7 @@ import { Link } from 'react-router-dom';
 import type { EventSummary } from '../../../contract/events';
 import { localStart } from '../components/formProblems';
 import { GoToPart } from '../components/GoToPart';
+import { archersOnTargets } from '../components/archersOnTargets';
 
 const linkButton = 'inline-flex min-h-14 items-center rounded-lg bg-moss px-5 text-lg font-bold text-white';
 
@@ -35,7 +36,7 @@ export function TargetsPart({ summary }: { summary: EventSummary }) {
                 ) : (
                   <>
                     <span aria-hidden="true">✓ </span>
-                    {s.assignedCount} archers on {s.targetCount} targets
+                    {archersOnTargets(s.assignedCount, s.targetCount)}
                   </>
                 )}
               </span>

@@ -1,0 +1,57 @@
+import { TASKS, type Task } from '../../contract/fieldTerms';
+import { Notice } from '../../ui/Notice';
+import { TASK_LABELS } from '../pad/taskNames';
+import { useSetMemberTask, useTargetMembers } from './api/targetMembers';
+
+/**
+ * Who keeps which task on a target, for a judge to free a task (the person leaves the group) or
+ * give it to another member when its keeper is gone or stuck. Needs signal.
+ */
+export function TargetGroup({
+  eventId,
+  sessionId,
+  targetNumber,
+}: {
+  eventId: number;
+  sessionId: number;
+  targetNumber: number;
+}) {
+  const members = useTargetMembers(eventId, sessionId, targetNumber);
+  const setTask = useSetMemberTask(eventId, sessionId, targetNumber);
+  return (
+    <section
+      aria-labelledby="target-group"
+      className="surface space-y-2 rounded-xl border border-line bg-card p-3"
+      data-testid="target-group"
+    >
+      <h2 id="target-group" className="font-bold">
+        People on target {targetNumber}
+      </h2>
+      {members.error && <Notice tone="error">{members.error.message}</Notice>}
+      {members.data?.length === 0 && <p>Nobody has joined this target yet.</p>}
+      <ul className="space-y-2">
+        {members.data?.map((m) => (
+          <li key={m.userId}>
+            <label className="block">
+              <span className="block font-bold">{m.name}</span>
+              <select
+                value={m.task}
+                disabled={setTask.isPending}
+                onChange={(e) => setTask.mutate({ userId: m.userId, task: e.target.value as Task | 'none' })}
+                className="surface min-h-14 w-full rounded-lg border-2 border-line bg-card px-3 text-lg"
+              >
+                {TASKS.map((t) => (
+                  <option key={t} value={t}>
+                    {TASK_LABELS[t]}
+                  </option>
+                ))}
+                <option value="none">Free the task (leaves the target)</option>
+              </select>
+            </label>
+          </li>
+        ))}
+      </ul>
+      {setTask.error && <Notice tone="error">{setTask.error.message}</Notice>}
+    </section>
+  );
+}
