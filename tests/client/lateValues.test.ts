@@ -57,7 +57,7 @@ describe('values held for a judge on the phone', () => {
     const held = await db.outbox.orderBy('[clientId+seq]').toArray();
     expect(held.map((r) => r.status)).toEqual(['held', 'held']);
     // Not counted as waiting to send, but still what the pad shows for the end.
-    expect(await waitingCount(db)).toBe(0);
+    expect(await waitingCount(db, 5)).toBe(0);
     expect(localEnd([], undefined, [held[0]!]).slots[1]).toMatchObject({
       arrows: ['9', '8', '7'],
       pending: true,
