@@ -17,7 +17,21 @@ const envSchema = z.object({
   SMTP_URL: z.string().url().optional(),
   MAIL_FROM: z.string().default('Ringcall <no-reply@ringcall.local>'),
   MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  TRUST_PROXY: z.string().optional(),
 });
+
+/**
+ * Express's `trust proxy` from TRUST_PROXY: off unless set, because a trusted proxy's
+ * X-Forwarded-For decides the address every per-address limit counts under, and anyone can send
+ * that header. A number is the count of proxies in front; anything else is Express's list of
+ * addresses or subnets (e.g. `loopback`, `10.0.0.2`).
+ */
+export function trustProxySetting(value: string | undefined): boolean | number | string {
+  const v = value?.trim() ?? '';
+  if (v === '' || v === 'off' || v === 'false') return false;
+  if (v === 'true') return true;
+  return /^\d+$/.test(v) ? Number(v) : v;
+}
 
 export type ServerConfig = {
   port: number;
@@ -33,6 +47,7 @@ export type ServerConfig = {
   smtpUrl: string | undefined;
   mailFrom: string;
   mailCatcherPort: number;
+  trustProxy: boolean | number | string;
 };
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
@@ -56,5 +71,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,
     mailCatcherPort: e.MAIL_CATCHER_PORT,
+    trustProxy: trustProxySetting(e.TRUST_PROXY),
   };
 }

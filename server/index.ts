@@ -41,6 +41,7 @@ async function main(): Promise<void> {
     ...(config.publicUrl ? { publicUrl: config.publicUrl } : {}),
     clientDir: config.clientDir,
     logRequests: config.logRequests,
+    trustProxy: config.trustProxy,
   });
   const server = app.listen(config.port, config.host, () => {
     const address = server.address();

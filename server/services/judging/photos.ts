@@ -35,7 +35,7 @@ export async function storePhoto(
   const dir = photoDir(dataDir);
   const file = join(dir, stored);
   if (!existsSync(file)) {
-    mkdirSync(dir, { recursive: true });
+    mkdirSync(dir, { recursive: true, mode: 0o700 });
     // Written beside and renamed, so a half-written file is never served.
     const partial = `${file}.${process.pid}.part`;
     writeFileSync(partial, bytes, { mode: 0o600 });
