@@ -47,6 +47,8 @@ export type AppDeps = {
   /** Folder of the built client; when it has no index.html only the API is served. */
   clientDir?: string;
   logRequests?: boolean;
+  /** Express's `trust proxy` (TRUST_PROXY); off unless given. */
+  trustProxy?: boolean | number | string;
 };
 
 /** Builds the whole HTTP app without opening a port, so tests can drive it with supertest. */
@@ -65,7 +67,7 @@ export function createApp(deps: AppDeps): Express {
 
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', deps.trustProxy ?? false);
   app.use(securityHeaders);
   if (deps.logRequests) app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));
 

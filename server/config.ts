@@ -22,6 +22,7 @@ const envSchema = z.object({
   /** The operator's key to the caught-mail inbox; made in DATA_DIR when unset. */
   MAIL_INBOX_SECRET: z.string().min(32, 'use at least 32 characters').optional(),
   NODE_ENV: z.string().optional(),
+  TRUST_PROXY: z.string().optional(),
 });
 
 /**
@@ -29,6 +30,19 @@ const envSchema = z.object({
  * server never catches mail unless asked to, so no inbox of other people's links is left open.
  */
 export type MailMode = 'smtp' | 'catcher' | 'off';
+
+/**
+ * Express's `trust proxy` from TRUST_PROXY: off unless set, because a trusted proxy's
+ * X-Forwarded-For decides the address every per-address limit counts under, and anyone can send
+ * that header. A number is the count of proxies in front; anything else is Express's list of
+ * addresses or subnets (e.g. `loopback`, `10.0.0.2`).
+ */
+export function trustProxySetting(value: string | undefined): boolean | number | string {
+  const v = value?.trim() ?? '';
+  if (v === '' || v === 'off' || v === 'false') return false;
+  if (v === 'true') return true;
+  return /^\d+$/.test(v) ? Number(v) : v;
+}
 
 export type ServerConfig = {
   port: number;
@@ -46,6 +60,7 @@ export type ServerConfig = {
   mailCatcherPort: number;
   mail: MailMode;
   mailInboxSecret: string | undefined;
+  trustProxy: boolean | number | string;
 };
 
 function mailMode(e: z.infer<typeof envSchema>): MailMode {
@@ -81,5 +96,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     mailCatcherPort: e.MAIL_CATCHER_PORT,
     mail: mailMode(e),
     mailInboxSecret: e.MAIL_INBOX_SECRET,
+    trustProxy: trustProxySetting(e.TRUST_PROXY),
   };
 }

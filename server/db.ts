@@ -1,18 +1,22 @@
-import { mkdirSync } from 'node:fs';
 import { dirname } from 'node:path';
 import type { Database } from 'better-sqlite3';
 import knex, { type Knex } from 'knex';
 import { migrationSource } from './migrationSource';
 import { cacheStatements } from './statementCache';
+import { makePrivateDir, makePrivateFile } from './privateFiles';
 
 export type Db = Knex;
 
 /**
- * Opens the SQLite database file (creating its folder) with WAL, full sync and foreign keys on.
+ * Opens the SQLite database file (creating it and its folder for the server's user only) with
+ * WAL, full sync and foreign keys on.
  * Everything else goes through Knex's builder so a PostgreSQL deployment stays possible.
  */
 export function openDb(file: string): Db {
-  if (file !== ':memory:') mkdirSync(dirname(file), { recursive: true });
+  if (file !== ':memory:') {
+    makePrivateDir(dirname(file));
+    makePrivateFile(file);
+  }
   return knex({
     client: 'better-sqlite3',
     connection: { filename: file },

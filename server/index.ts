@@ -39,6 +39,7 @@ async function main(): Promise<void> {
     linkAddress,
     clientDir: config.clientDir,
     logRequests: config.logRequests,
+    trustProxy: config.trustProxy,
   });
   server.on('request', app);
 

@@ -5,6 +5,7 @@ import * as m0004 from '../migrations/0004_field_loop';
 import * as m0005 from '../migrations/0005_judging_and_signatures';
 import * as m0006 from '../migrations/0006_mail_limits';
 import * as m0007 from '../migrations/0007_late_values';
+import * as m0008 from '../migrations/0008_account_recovery';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
 
@@ -19,6 +20,7 @@ const migrations: [string, Migration][] = [
   ['0005_judging_and_signatures', m0005],
   ['0006_mail_limits', m0006],
   ['0007_late_values', m0007],
+  ['0008_account_recovery', m0008],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {

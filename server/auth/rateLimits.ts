@@ -10,47 +10,44 @@ function tooMany(message: string) {
 }
 
 /**
- * Failed sign-ins are limited per account and per address. Only failures count, and the window
- * is 15 minutes, so a real person who mistypes is never locked out for long. The per-address
- * limit is generous: a whole club can share one field Wi-Fi address.
+ * New accounts per address: a whole field signs up on one Wi-Fi address at the start of the day
+ * (a club's archers and volunteers, a few hundred), so the limit only stops a script.
  */
-export function signInLimits() {
-  const perAccount = rateLimit({
-    windowMs: WINDOW_MS,
-    limit: 10,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    keyGenerator: (req) =>
-      `account:${String((req.body as { email?: unknown } | undefined)?.email ?? '')
-        .trim()
-        .toLowerCase()}`,
-    handler: tooMany(
-      'Too many wrong passwords for this account. Wait 15 minutes and try again, or ask the organizer for help.',
-    ),
-  });
-  const perAddress = rateLimit({
-    windowMs: WINDOW_MS,
-    limit: 100,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    keyGenerator: (req) => `ip:${ipKeyGenerator(req.ip ?? '')}`,
-    handler: tooMany('Too many failed sign-ins from this network. Wait 15 minutes and try again.'),
-  });
-  return [perAddress, perAccount];
-}
-
-/** Sign-up and e-mail links are cheap to abuse for sending mail; keep them modest per address. */
 export function signUpLimit() {
   return rateLimit({
     windowMs: WINDOW_MS,
-    limit: 30,
+    limit: 500,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     keyGenerator: (req) => `ip:${ipKeyGenerator(req.ip ?? '')}`,
     handler: tooMany('Too many new accounts from this network. Wait 15 minutes and try again.'),
   });
+}
+
+/**
+ * "Forgot password" mails a link: a few per address asked for (whether or not it has an account,
+ * so the limit reveals nothing), and a generous number per network.
+ */
+export function forgotPasswordLimits() {
+  const common = { windowMs: WINDOW_MS, standardHeaders: 'draft-8', legacyHeaders: false } as const;
+  return [
+    rateLimit({
+      ...common,
+      limit: 200,
+      keyGenerator: (req) => `forgot-ip:${ipKeyGenerator(req.ip ?? '')}`,
+      handler: tooMany('Too many password links asked for from this network. Wait 15 minutes and try again.'),
+    }),
+    rateLimit({
+      ...common,
+      limit: 3,
+      keyGenerator: (req) =>
+        // Runs after validation: the address is already trimmed and lower-case.
+        `forgot:${(req.body as { email: string }).email}`,
+      handler: tooMany(
+        'A link for this address was asked for three times already. Look for it in your mail, or wait 15 minutes.',
+      ),
+    }),
+  ];
 }
 
 /**

@@ -16,9 +16,12 @@ export function requireUser(db: Db, secret: Uint8Array): RequestHandler {
     const match = /^Bearer (.+)$/i.exec(header);
     if (!match) return next(unauthorized());
     try {
-      const { userId } = await verify(match[1]!);
+      const { userId, sessionVersion } = await verify(match[1]!);
       const user = await db('users').where({ id: userId }).first();
       if (!user) return next(unauthorized('Your account was not found. Please sign in again.'));
+      // The password was reset (or an unconfirmed account taken over) since this sign-in.
+      if (sessionVersion !== user.session_version)
+        return next(unauthorized('Your sign-in has ended. Please sign in again.'));
       req.user = {
         id: user.id,
         email: user.email,

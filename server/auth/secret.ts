@@ -1,5 +1,6 @@
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { makePrivateDir } from '../privateFiles';
 import { randomBytes } from 'node:crypto';
 
 /**
@@ -13,7 +14,7 @@ export function loadAuthSecret(dataDir: string, fromEnv?: string): Uint8Array {
   }
   const file = join(dataDir, 'auth-secret');
   if (!existsSync(file)) {
-    mkdirSync(dataDir, { recursive: true });
+    makePrivateDir(dataDir);
     writeFileSync(file, randomBytes(48).toString('base64url'), { mode: 0o600 });
   }
   return new TextEncoder().encode(readFileSync(file, 'utf8').trim());

@@ -1,7 +1,9 @@
 import { Router, type Request, type Response } from 'express';
-import type { AuthSession } from '../../src/contract/auth';
+import type { AuthSession, SignUpPending } from '../../src/contract/auth';
 import {
   acceptInvitationSchema,
+  forgotPasswordSchema,
+  resetPasswordSchema,
   signInSchema,
   signUpSchema,
   verifyEmailSchema,
@@ -11,7 +13,10 @@ import { validateBody } from '../http/validate';
 import { unauthorized } from '../http/httpError';
 import { signAccessToken } from '../auth/tokens';
 import { issueRefreshToken, revokeRefreshFamily, rotateRefreshToken } from '../auth/refreshTokens';
-import { signInLimits, signUpLimit } from '../auth/rateLimits';
+import { forgotPasswordLimits, signUpLimit } from '../auth/rateLimits';
+import { SignInThrottle } from '../auth/signInThrottle';
+import { deviceCookies } from '../auth/deviceCookie';
+import { tooManyAttempts } from '../auth/tooManyAttempts';
 import {
   acceptInvitation,
   checkCredentials,
@@ -21,10 +26,12 @@ import {
   toSessionUser,
   verifyEmail,
 } from '../services/accounts';
+import { forgotPassword, resetPassword } from '../services/passwordReset';
 
 const COOKIE = 'rc_refresh';
 const COOKIE_PATH = '/api/auth';
 
+/** Secure whenever the request came over HTTPS (directly, or through a proxy named in TRUST_PROXY). */
 function setRefreshCookie(req: Request, res: Response, token: string) {
   res.cookie(COOKIE, token, {
     httpOnly: true,
@@ -38,26 +45,53 @@ function setRefreshCookie(req: Request, res: Response, token: string) {
 export function authRoutes(ctx: AppContext): Router {
   const router = Router();
   const { db, secret } = ctx;
+  const throttle = new SignInThrottle();
+  const devices = deviceCookies(secret);
 
+  /** Signs this phone in: a refresh cookie, the phone remembered as the account's, an access token. */
   async function startSession(req: Request, res: Response, userId: number, status = 200) {
-    const user = toSessionUser(await db('users').where({ id: userId }).first());
+    const row = await db('users').where({ id: userId }).first();
     setRefreshCookie(req, res, await issueRefreshToken(db, userId, req.get('user-agent') ?? ''));
-    const access = await signAccessToken(secret, userId);
-    const body: AuthSession = { accessToken: access.token, expiresAt: access.expiresAt, user };
+    devices.remember(req, res, row.email);
+    const access = await signAccessToken(secret, userId, row.session_version);
+    const body: AuthSession = {
+      accessToken: access.token,
+      expiresAt: access.expiresAt,
+      user: toSessionUser(row),
+    };
     res.status(status).json(body);
   }
 
   router.post('/auth/sign-up', signUpLimit(), validateBody(signUpSchema), async (req, res) => {
-    const user = await signUp(db, ctx.mailer, req.body, {
+    const result = await signUp(db, ctx.mailer, req.body, {
       bcryptCost: ctx.bcryptCost,
       baseUrl: ctx.linkAddress.url,
     });
-    await startSession(req, res, user.id, 201);
+    if (result.kind === 'pending') {
+      const body: SignUpPending = { confirmByMail: true, email: result.email };
+      res.status(202).json(body);
+      return;
+    }
+    await startSession(req, res, result.user.id, 201);
   });
 
-  router.post('/auth/sign-in', ...signInLimits(), validateBody(signInSchema), async (req, res) => {
-    const user = await checkCredentials(db, req.body.email, req.body.password, ctx.bcryptCost);
-    if (!user) throw unauthorized('The e-mail address or the password is not right.');
+  router.post('/auth/sign-in', validateBody(signInSchema), async (req, res) => {
+    const { email, password } = req.body as { email: string; password: string };
+    const keys = throttle.keys(email, req.ip, devices.knownDevice(req, email));
+    const wait = throttle.wait(keys);
+    if (wait) {
+      throw tooManyAttempts(res, wait.ms, (time) =>
+        wait.reason === 'account'
+          ? `Too many wrong passwords for this account. Wait ${time} and try again, or choose "Forgot your password?".`
+          : `Many sign-ins from this network have failed. Wait ${time} and try again.`,
+      );
+    }
+    const user = await checkCredentials(db, email, password, ctx.bcryptCost);
+    if (!user) {
+      throttle.failed(keys);
+      throw unauthorized('The e-mail address or the password is not right.');
+    }
+    throttle.succeeded(keys);
     await startSession(req, res, user.id);
   });
 
@@ -70,9 +104,13 @@ export function authRoutes(ctx: AppContext): Router {
       throw unauthorized('Your sign-in has ended. Please sign in again.');
     }
     setRefreshCookie(req, res, rotated.token);
-    const access = await signAccessToken(secret, rotated.userId);
-    const user = toSessionUser(await db('users').where({ id: rotated.userId }).first());
-    const body: AuthSession = { accessToken: access.token, expiresAt: access.expiresAt, user };
+    const row = await db('users').where({ id: rotated.userId }).first();
+    const access = await signAccessToken(secret, rotated.userId, row.session_version);
+    const body: AuthSession = {
+      accessToken: access.token,
+      expiresAt: access.expiresAt,
+      user: toSessionUser(row),
+    };
     res.json(body);
   });
 
@@ -85,6 +123,26 @@ export function authRoutes(ctx: AppContext): Router {
 
   router.post('/auth/verify-email', validateBody(verifyEmailSchema), async (req, res) => {
     res.json({ user: await verifyEmail(db, req.body.token) });
+  });
+
+  // The same answer whether or not the address has an account, given before any mail is sent,
+  // so neither the words nor the time taken tell.
+  router.post(
+    '/auth/forgot-password',
+    validateBody(forgotPasswordSchema),
+    ...forgotPasswordLimits(),
+    (req, res) => {
+      const email = (req.body as { email: string }).email;
+      res.status(202).json({ sent: true });
+      forgotPassword(db, ctx.mailer, email, ctx.linkAddress.url).catch((err: unknown) =>
+        console.error('The password link could not be mailed:', err instanceof Error ? err.message : err),
+      );
+    },
+  );
+
+  router.post('/auth/reset-password', validateBody(resetPasswordSchema), async (req, res) => {
+    const { userId } = await resetPassword(db, req.body, ctx.bcryptCost);
+    await startSession(req, res, userId);
   });
 
   router.get('/me', ctx.requireUser, async (req, res) => {

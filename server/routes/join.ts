@@ -2,7 +2,9 @@ import { Router, type Request } from 'express';
 import { MAX_TARGET_NUMBER } from '../../src/contract/events';
 import { joinRequestSchema } from '../../src/contract/sync';
 import type { AppContext } from '../context';
-import { notFound } from '../http/httpError';
+import { HttpError, notFound } from '../http/httpError';
+import { JoinThrottle } from '../auth/joinThrottle';
+import { tooManyAttempts } from '../auth/tooManyAttempts';
 import { idParam } from '../http/params';
 import { validateBody } from '../http/validate';
 import { loadTargetPackage } from '../services/sync/targetPackage';
@@ -22,8 +24,28 @@ export function joinRoutes(ctx: AppContext): Router {
     return { sessionId, targetNumber };
   };
 
+  const throttle = new JoinThrottle();
+  /** A code no target has (404) or a replaced one (410): what a guess gets. */
+  const isWrongCode = (err: unknown) =>
+    err instanceof HttpError && (err.status === 404 || err.status === 410);
+
   router.post('/join', ctx.requireUser, validateBody(joinRequestSchema), async (req, res) => {
-    res.json(await joinTarget(db, req.user!.id, req.body));
+    const keys = throttle.keys(req.user!.id, req.ip);
+    const wait = throttle.waitMs(keys);
+    if (wait > 0) {
+      throw tooManyAttempts(
+        res,
+        wait,
+        (time) => `Too many wrong join codes. Wait ${time}, then check the code against the target sheet.`,
+      );
+    }
+    try {
+      res.json(await joinTarget(db, req.user!.id, req.body));
+      throttle.succeeded(keys);
+    } catch (err) {
+      if (isWrongCode(err)) throttle.failed(keys);
+      throw err;
+    }
   });
 
   router.get(base, ctx.requireUser, async (req, res) => {

@@ -1,14 +1,16 @@
-import type { EventRole, Me, SessionUser, SignUpInput } from '../../src/contract/auth';
+import type { AcceptedInvitation, Me, SessionUser, SignUpInput, EventRole } from '../../src/contract/auth';
 import type { Db } from '../db';
 import type { Mailer } from '../mail/mailer';
 import { conflict, HttpError, badRequest } from '../http/httpError';
 import { dummyHashFor, hashPassword, passwordProblem, verifyPassword } from '../auth/passwords';
 import { nowIso } from '../time';
 import { audit } from './audit';
-import { createEmailToken, findEmailToken, markEmailTokenUsed } from './emailTokens';
+import { createEmailToken, findEmailToken, markEmailTokenUsed, type EmailTokenRow } from './emailTokens';
+import { mailPasswordLink } from './passwordLinkMail';
+import { endAllSessions } from './sessionsEnd';
 import { reserveMail } from './limits/mailLimits';
 
-type UserRow = {
+export type UserRow = {
   id: number;
   email: string;
   display_name: string;
@@ -45,45 +47,62 @@ async function claimEntries(db: Db, user: UserRow): Promise<void> {
   }
 }
 
-async function markVerified(db: Db, user: UserRow): Promise<UserRow> {
+/** The address is proven (a link mailed to it was opened): mark it, and claim its entries. */
+export async function markVerified(db: Db, user: UserRow): Promise<UserRow> {
   if (!user.email_verified_at)
     await db('users').where({ id: user.id }).update({ email_verified_at: nowIso() });
   await claimEntries(db, user);
   return (await db('users').where({ id: user.id }).first()) as UserRow;
 }
 
-/** Accepts an invitation for the signed-in person: grants the role, and proves the address. */
-export async function acceptInvitation(
-  db: Db,
-  token: string,
-  userId: number,
-): Promise<{ eventId: number; role: EventRole }> {
+const inviteInvalid = () =>
+  new HttpError(
+    410,
+    'invite_invalid',
+    'This invitation link is not valid any more. Ask the organizer for a new one.',
+  );
+
+/** An unused invitation for this address, or the reason it cannot be taken up. */
+async function usableInvitation(db: Db, token: string, email: string): Promise<EmailTokenRow> {
   const invite = await findEmailToken(db, token, 'invite');
-  if (!invite || !invite.event_id || !invite.role) {
-    throw new HttpError(
-      410,
-      'invite_invalid',
-      'This invitation link is not valid any more. Ask the organizer for a new one.',
-    );
-  }
-  const user = (await db('users').where({ id: userId }).first()) as UserRow;
-  if (user.email !== invite.email) {
+  if (!invite || !invite.event_id || !invite.role) throw inviteInvalid();
+  if (email !== invite.email) {
     throw new HttpError(
       403,
       'invite_other_person',
       `This invitation was sent to ${invite.email}. Sign in with that address to accept it.`,
     );
   }
-  await grantRole(db, invite.event_id, user.id, invite.role);
+  return invite;
+}
+
+async function acceptedAnswer(db: Db, eventId: number, role: EventRole): Promise<AcceptedInvitation> {
+  const event = await db('events').where({ id: eventId }).first('name');
+  return { eventId, eventName: event.name as string, role };
+}
+
+/**
+ * Accepts an invitation for the signed-in person: grants the role, and proves the address.
+ * Taking it up again (sign-up with the link already did, and the screen asks once more) answers
+ * the same, as long as the person still holds the role.
+ */
+export async function acceptInvitation(db: Db, token: string, userId: number): Promise<AcceptedInvitation> {
+  const user = (await db('users').where({ id: userId }).first()) as UserRow;
+  const taken = await findEmailToken(db, token, 'invite', { evenUsed: true });
+  if (taken?.used_at && taken.event_id && taken.role && taken.email === user.email) {
+    const held = await db('event_roles')
+      .where({ event_id: taken.event_id, user_id: userId, role: taken.role })
+      .first('id');
+    if (held) return acceptedAnswer(db, taken.event_id, taken.role);
+  }
+  const invite = await usableInvitation(db, token, user.email);
+  const eventId = invite.event_id!;
+  const role = invite.role!;
+  await grantRole(db, eventId, user.id, role);
   await markEmailTokenUsed(db, invite.id);
   await markVerified(db, user);
-  await audit(db, {
-    userId,
-    eventId: invite.event_id,
-    action: 'invitation.accepted',
-    details: { role: invite.role },
-  });
-  return { eventId: invite.event_id, role: invite.role };
+  await audit(db, { userId, eventId, action: 'invitation.accepted', details: { role } });
+  return acceptedAnswer(db, eventId, role);
 }
 
 export async function sendVerificationMail(
@@ -103,44 +122,68 @@ export async function sendVerificationMail(
   });
 }
 
+export type SignUpResult = { kind: 'created'; user: SessionUser } | { kind: 'pending'; email: string };
+
+/**
+ * Creates the account and mails a confirmation link (or, with an invitation link, takes it up).
+ * An address whose account was never confirmed gives way to its mailbox's owner: with an
+ * invitation to that address (which proves the mailbox) the account is taken over at once (new
+ * password and name, its other sign-ins ended); without one, nothing changes until the person
+ * opens a link mailed to the address and chooses the password there (`pending`).
+ */
 export async function signUp(
   db: Db,
   mailer: Mailer,
   input: SignUpInput,
   options: { bcryptCost: number; baseUrl: string },
-): Promise<SessionUser> {
-  const problem = passwordProblem(input.password);
+): Promise<SignUpResult> {
+  const problem = passwordProblem(input.password, input.email);
   if (problem) throw badRequest(problem, [{ path: 'password', message: problem }]);
-  const existing = await db('users').where({ email: input.email }).first();
-  if (existing) throw conflict('An account with this e-mail address already exists. Sign in instead.');
+  const invite = input.inviteToken ? await usableInvitation(db, input.inviteToken, input.email) : undefined;
+  const existing = (await db('users').where({ email: input.email }).first()) as UserRow | undefined;
+  if (existing?.email_verified_at)
+    throw conflict('An account with this e-mail address already exists. Sign in instead.');
+  if (existing && !invite) {
+    await mailPasswordLink(db, mailer, input.email, options.baseUrl, {
+      kind: 'sign-up',
+      displayName: input.displayName,
+    });
+    return { kind: 'pending', email: input.email };
+  }
 
   const passwordHash = await hashPassword(input.password, options.bcryptCost);
-  const [created] = await db('users')
-    .insert({
-      email: input.email,
-      display_name: input.displayName,
-      password_hash: passwordHash,
-      created_at: nowIso(),
-    })
-    .returning('id');
-  let user = (await db('users')
-    .where({ id: (created as { id: number }).id })
-    .first()) as UserRow;
-  await audit(db, { userId: user.id, eventId: null, action: 'account.created' });
-
-  if (input.inviteToken) {
-    await acceptInvitation(db, input.inviteToken, user.id);
-    user = (await db('users').where({ id: user.id }).first()) as UserRow;
+  let userId: number;
+  if (existing) {
+    await db('users')
+      .where({ id: existing.id })
+      .update({ password_hash: passwordHash, display_name: input.displayName });
+    await endAllSessions(db, existing.id);
+    await audit(db, { userId: existing.id, eventId: null, action: 'account.taken_over' });
+    userId = existing.id;
   } else {
-    // The account stands even when the mail cannot leave (no mail server): the person can ask
-    // for the link again later, and that request says why it fails.
+    const [created] = await db('users')
+      .insert({
+        email: input.email,
+        display_name: input.displayName,
+        password_hash: passwordHash,
+        created_at: nowIso(),
+      })
+      .returning('id');
+    userId = (created as { id: number }).id;
+    await audit(db, { userId, eventId: null, action: 'account.created' });
+  }
+
+  if (input.inviteToken) await acceptInvitation(db, input.inviteToken, userId);
+  const user = (await db('users').where({ id: userId }).first()) as UserRow;
+  // The account stands even when the mail cannot leave (no mail server): the person can ask
+  // for the link again later, and that request says why it fails.
+  if (!input.inviteToken)
     await sendVerificationMail(db, mailer, user, options.baseUrl).catch((err: unknown) =>
       console.warn(
         `Confirmation mail to account ${user.id} not sent: ${err instanceof Error ? err.message : err}`,
       ),
     );
-  }
-  return toSessionUser(user);
+  return { kind: 'created', user: toSessionUser(user) };
 }
 
 export async function verifyEmail(db: Db, token: string): Promise<SessionUser> {

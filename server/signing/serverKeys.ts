@@ -1,5 +1,6 @@
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { makePrivateDir } from '../privateFiles';
 import {
   exportJWK,
   generateKeyPair,
@@ -52,7 +53,7 @@ export async function loadSigningKeys(dataDir: string, fromEnv?: string): Promis
   } else {
     const file = join(dataDir, SIGNING_KEY_FILE);
     if (!existsSync(file)) {
-      mkdirSync(dataDir, { recursive: true });
+      makePrivateDir(dataDir);
       const { privateKey } = await generateKeyPair(ALG, { extractable: true });
       writeFileSync(file, JSON.stringify(await exportJWK(privateKey)), { mode: 0o600 });
     }

@@ -10,7 +10,7 @@ function counting(expiresIn = 900) {
   const verify = async (token: string) => {
     checked.push(token);
     if (token.startsWith('bad')) throw new Error('bad token');
-    return { userId: 7, expiresAt: now() + expiresIn };
+    return { userId: 7, expiresAt: now() + expiresIn, sessionVersion: 0 };
   };
   return { checked, verify };
 }

@@ -61,7 +61,7 @@ export async function storePhoto(
 /** Stores a picture's file once (the same picture in two events is one file). */
 function writeOnce(file: string, bytes: Buffer): void {
   if (existsSync(file)) return;
-  mkdirSync(dirname(file), { recursive: true });
+  mkdirSync(dirname(file), { recursive: true, mode: 0o700 });
   // Written beside and renamed, so a half-written file is never served.
   const partial = `${file}.${process.pid}.part`;
   writeFileSync(partial, bytes, { mode: 0o600 });

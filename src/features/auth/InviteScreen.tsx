@@ -1,7 +1,8 @@
+import { useEffect, useRef } from 'react';
 import { useMutation } from '@tanstack/react-query';
-import { Link, useSearchParams } from 'react-router-dom';
+import { Link, useLocation, useSearchParams } from 'react-router-dom';
 import { apiRequest } from '../../api/request';
-import type { EventRole } from '../../contract/auth';
+import type { AcceptedInvitation } from '../../contract/auth';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { checkMe, useMe } from './api/me';
@@ -11,14 +12,26 @@ export function InviteScreen() {
   const [params] = useSearchParams();
   const token = params.get('token') ?? '';
   const me = useMe();
+  const location = useLocation();
   const accept = useMutation({
     mutationFn: () =>
-      apiRequest<{ eventId: number; role: EventRole }>('/api/invitations/accept', {
+      apiRequest<AcceptedInvitation>('/api/invitations/accept', {
         method: 'POST',
         body: JSON.stringify({ token }),
       }),
     onSuccess: () => checkMe(),
   });
+  // Back from creating the account with this link: sign-up took the invitation up already, so
+  // ask once more for its event without another tap, and say what the person now is.
+  const fromSignUp = (location.state as { accept?: boolean } | null)?.accept === true;
+  const asked = useRef(false);
+  const { mutate } = accept;
+  useEffect(() => {
+    if (fromSignUp && token && me.data && !asked.current) {
+      asked.current = true;
+      mutate();
+    }
+  }, [fromSignUp, token, me.data, mutate]);
   const back = encodeURIComponent(`/invite?token=${token}`);
 
   if (!token)
@@ -28,12 +41,17 @@ export function InviteScreen() {
       <h1 className="text-3xl font-bold">Your invitation</h1>
       {accept.data ? (
         <>
-          <Notice tone="success">You are now a {accept.data.role} of this event.</Notice>
+          <Notice tone="success">
+            You are now {accept.data.role === 'organizer' ? 'an' : 'a'} {accept.data.role} of{' '}
+            {accept.data.eventName}.
+          </Notice>
           <Link
-            to={`/events/${accept.data.eventId}`}
+            to={
+              accept.data.role === 'judge' ? `/desk/${accept.data.eventId}` : `/events/${accept.data.eventId}`
+            }
             className="inline-flex min-h-14 items-center rounded-lg bg-moss px-5 font-bold text-white"
           >
-            Open the event
+            {accept.data.role === 'judge' ? 'Open the judge desk' : 'Open the event'}
           </Link>
         </>
       ) : me.data ? (

@@ -4,6 +4,7 @@ import { Field } from '../../ui/Field';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { useSignIn } from './api/signIn';
+import { tapLinkClass } from './AccountFields';
 
 /** Sign-in; `?next=` brings the person back where they were sent from. */
 export function SignInScreen() {
@@ -43,8 +44,13 @@ export function SignInScreen() {
         {signIn.isPending ? 'Signing in…' : 'Sign in'}
       </Button>
       <p>
+        <Link className={tapLinkClass} to="/forgot-password">
+          Forgot your password?
+        </Link>
+      </p>
+      <p>
         New to Ringcall?{' '}
-        <Link className="font-bold underline" to={`/sign-up${params.size ? `?${params}` : ''}`}>
+        <Link className={tapLinkClass} to={`/sign-up${params.size ? `?${params}` : ''}`}>
           Create an account
         </Link>
       </p>

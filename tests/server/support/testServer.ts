@@ -30,7 +30,7 @@ export const TEST_BCRYPT_COST = 4;
 
 /** A fresh, migrated SQLite file in its own temp folder, a mail catcher, and the app built on them. */
 export async function startTestServer(
-  options: { clientDir?: string; bcryptCost?: number } = {},
+  options: { clientDir?: string; bcryptCost?: number; trustProxy?: boolean | number | string } = {},
 ): Promise<TestServer> {
   const dir = mkdtempSync(join(tmpdir(), 'ringcall-test-'));
   const file = join(dir, 'test.sqlite');
@@ -50,6 +50,7 @@ export async function startTestServer(
     bcryptCost: options.bcryptCost ?? TEST_BCRYPT_COST,
     logRequests: false,
     ...(options.clientDir ? { clientDir: options.clientDir } : {}),
+    ...(options.trustProxy !== undefined ? { trustProxy: options.trustProxy } : {}),
   });
   return {
     app,

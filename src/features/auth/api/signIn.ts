@@ -1,12 +1,22 @@
 import { useMutation } from '@tanstack/react-query';
 import { ApiError, apiRequest } from '../../../api/request';
 import { serverFetch } from '../../../api/serverFetch';
-import type { AuthSession, SignInInput, SignUpInput } from '../../../contract/auth';
+import type {
+  AuthSession,
+  ResetPasswordInput,
+  SignInInput,
+  SignUpInput,
+  SignUpPending,
+} from '../../../contract/auth';
 import { setSession } from '../session';
 import { releasePhone } from '../../../local/phoneOwner';
 import { checkMe, setMe } from './me';
 
-async function startSession(path: string, body: unknown): Promise<AuthSession> {
+/** A sign-up under an unconfirmed account's address: nothing happens until the mailed link is used. */
+export const isPending = (answer: AuthSession | SignUpPending): answer is SignUpPending =>
+  'confirmByMail' in answer;
+
+async function startSession<A>(path: string, body: unknown): Promise<A> {
   const response = await serverFetch(path, {
     method: 'POST',
     headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
@@ -19,21 +29,25 @@ async function startSession(path: string, body: unknown): Promise<AuthSession> {
     AuthSession | { error?: { message?: string } } | undefined;
   if (!response.ok)
     throw new Error((json as { error?: { message?: string } })?.error?.message ?? 'Signing in failed.');
-  return json as AuthSession;
+  return json as A;
 }
 
-function useSessionMutation<T>(path: string) {
+function useSessionMutation<T, A extends AuthSession | SignUpPending = AuthSession>(path: string) {
   return useMutation({
-    mutationFn: (input: T) => startSession(path, input),
-    onSuccess: async (session) => {
-      setSession(session);
+    mutationFn: (input: T) => startSession<A>(path, input),
+    onSuccess: async (answer) => {
+      if (isPending(answer)) return;
+      setSession(answer);
       await checkMe();
     },
   });
 }
 
 export const useSignIn = () => useSessionMutation<SignInInput>('/api/auth/sign-in');
-export const useSignUp = () => useSessionMutation<SignUpInput>('/api/auth/sign-up');
+export const useSignUp = () =>
+  useSessionMutation<SignUpInput, AuthSession | SignUpPending>('/api/auth/sign-up');
+/** Sets a new password from a mailed link, and signs this phone in (every other one is signed out). */
+export const useResetPassword = () => useSessionMutation<ResetPasswordInput>('/api/auth/reset-password');
 
 /**
  * Signs out and takes the person's data off the phone. Needs signal: the server must end the

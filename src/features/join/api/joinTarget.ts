@@ -24,5 +24,8 @@ export async function joinTarget(input: JoinRequest, userId: number): Promise<Jo
   return row;
 }
 
-export const useJoinTarget = (userId: number) =>
-  useMutation({ mutationFn: (input: JoinRequest) => joinTarget(input, userId) });
+/** The person is named per call: a newcomer's account is made on the same screen just before. */
+export const useJoinTarget = () =>
+  useMutation({
+    mutationFn: ({ input, userId }: { input: JoinRequest; userId: number }) => joinTarget(input, userId),
+  });
