@@ -125,6 +125,8 @@ export type CardView = {
     runningTotal: number | null;
     signedBy?: string;
     signedAt?: string;
+    /** A judge transcribed a record of this end from a file no phone signed (shown "transcribed by … from a file"). */
+    transcribedBy?: string;
   }[];
   /** Over the ends with decided values (all of them once every end is signed). */
   totals: { total: number; tens: number; xs: number; hits: number };

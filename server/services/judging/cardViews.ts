@@ -61,6 +61,7 @@ export function cardView(card: CardData, relation: Relation): CardView {
         total: tallied.total ?? null,
         runningTotal: tallied.runningTotal ?? null,
         ...(signature ? { signedBy: signature.signedByName, signedAt: signature.signedAt } : {}),
+        ...(e.stored.transcribedBy ? { transcribedBy: e.stored.transcribedBy } : {}),
       };
     }),
     totals: { total: totals.total, tens: totals.tens, xs: totals.xs, hits: totals.hits },

@@ -5,11 +5,18 @@ import { forbidden } from '../../http/httpError';
 import type { SigningKeys } from '../../signing/serverKeys';
 import { nowIso } from '../../time';
 import { applyMutation } from './applyMutation';
+import type { Author } from './effects';
 import { FieldBatch } from './fieldBatch';
 import { KnownMutations, answerFromStore, type Sequenced, type Step } from './pushSequence';
 
 /** One phone's push as one commit takes it in. */
-export type Push = { userId: number; request: PushRequest; signingKeys?: SigningKeys };
+export type Push = {
+  userId: number;
+  request: PushRequest;
+  signingKeys?: SigningKeys;
+  /** The judge whose transcription of a file this push is (see PushOptions). */
+  transcribedBy?: { userId: number; name: string };
+};
 
 export type CardRef = { sessionId: number; entryId: number };
 
@@ -70,7 +77,12 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
     const { m } = step;
     if ('answer' in step) return step.answer;
     if ('sameAs' in step) return answerFromStore(m, step.sameAs.outcome!);
-    const by = { userId: push.userId, at: m.at, mutationId: m.id };
+    const by: Author = {
+      userId: push.userId,
+      at: m.at,
+      mutationId: m.id,
+      ...(push.transcribedBy ? { transcribedBy: push.transcribedBy } : {}),
+    };
     const reason = await applyMutation(batch, m, by, push.signingKeys);
     step.apply.outcome = { mutation_uuid: m.id, status: reason === null ? 'applied' : 'rejected', reason };
     logRows.push({
@@ -78,6 +90,7 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
       client_id: push.request.clientId,
       seq: m.seq,
       user_id: push.userId,
+      transcribed_by: push.transcribedBy?.userId ?? null,
       kind: m.kind,
       args_json: JSON.stringify(m.args),
       at: m.at,

@@ -112,6 +112,11 @@ function Card({ sessionId, entryId, userId }: { sessionId: number; entryId: numb
                 <span className="text-base">
                   {END_STATE_LABELS[e.state].mark} {END_STATE_LABELS[e.state].word}
                 </span>
+                {e.transcribedBy && (
+                  <span className="block text-base">
+                    ▲ Transcribed by judge {e.transcribedBy} from a file
+                  </span>
+                )}
               </td>
               <td className="text-right">{e.total ?? ''}</td>
               <td className="text-right font-bold">{e.runningTotal ?? ''}</td>
