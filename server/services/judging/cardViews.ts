@@ -36,7 +36,18 @@ export function cardView(card: CardData, relation: Relation): CardView {
 
   const signatures = (['archer', 'scorer'] as const).flatMap((r) => {
     const s = card.signatures[r];
-    return s ? [{ role: r, name: s.name, at: s.signed_at, jws: s.jws }] : [];
+    return s
+      ? [
+          {
+            role: r,
+            name: s.name,
+            at: s.signed_at,
+            phoneAt: s.phone_at,
+            ...(s.onPaper ? { onPaper: s.onPaper } : {}),
+            jws: s.jws,
+          },
+        ]
+      : [];
   });
   return {
     event: { id: card.event.id, name: card.event.name },
@@ -71,6 +82,8 @@ export function cardView(card: CardData, relation: Relation): CardView {
     state: cardState(!!card.signatures.archer, !!card.signatures.scorer),
     final: isFinal(card),
     canCountersign: allSigned ? role : null,
+    canRecordPaperCountersign:
+      relation.judge && allSigned && card.archer.userId === null && !card.signatures.archer,
     ...(countersignNote ? { countersignNote } : {}),
   };
 }
