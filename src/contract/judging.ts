@@ -182,6 +182,8 @@ export type SessionCardItem = {
   final: boolean;
   /** When the final card was last mailed to the archer, if it was. */
   mailedAt: string | null;
+  /** Every end is signed but the archer, who has no account, can only countersign on paper: a judge records it. */
+  needsPaperCountersign: boolean;
 };
 export type SessionCards = { sessionId: number; cards: SessionCardItem[] };
 

@@ -70,6 +70,14 @@ describe('a countersignature made on paper', () => {
     expect((await cardAs(j.field.judge.auth)).canRecordPaperCountersign).toBe(true);
     expect((await cardAs(j.field.organizer.auth)).canRecordPaperCountersign).toBe(false);
     expect((await cardAs(j.people.writer1.auth)).canRecordPaperCountersign).toBe(false);
+    // The judge desk lists the cards waiting for it.
+    const cards = await request(server.app)
+      .get(`/api/events/${j.field.eventId}/sessions/${j.sessionId}/cards`)
+      .set(j.field.judge.auth);
+    const waiting = cards.body.cards.filter(
+      (c: { needsPaperCountersign: boolean }) => c.needsPaperCountersign,
+    );
+    expect(waiting.map((c: { entryId: number }) => c.entryId)).toEqual([bo.entryId]);
   });
 
   it('is refused to anyone but a judge, for an archer with an account, for the scorer and without a photo of the event', async () => {

@@ -103,9 +103,11 @@ export async function sessionCards(db: Db, session: SessionRow): Promise<Session
       'ta.target_number',
       'ta.position',
       'e.name',
+      'e.user_id',
       'd.name as division',
       'sd.round_json',
     )) as {
+    user_id: number | null;
     entry_id: number;
     target_number: number;
     position: Position;
@@ -133,13 +135,14 @@ export async function sessionCards(db: Db, session: SessionRow): Promise<Session
     const views = ends.map((end) => endView(stored.facts(a.entry_id, end.index)));
     const archerSigned = signed.some((s) => s.entry_id === a.entry_id && s.role === 'archer');
     const scorerSigned = signed.some((s) => s.entry_id === a.entry_id && s.role === 'scorer');
+    const signedEnds = views.filter((v) => v.state === 'signed').length;
     return {
       entryId: a.entry_id,
       name: a.name,
       division: a.division,
       targetNumber: a.target_number,
       position: a.position,
-      signedEnds: views.filter((v) => v.state === 'signed').length,
+      signedEnds,
       totalEnds: ends.length,
       total: cardTotals(
         round,
@@ -149,6 +152,7 @@ export async function sessionCards(db: Db, session: SessionRow): Promise<Session
       scorerSigned,
       final: archerSigned && scorerSigned,
       mailedAt: mailed.find((m) => m.entry_id === a.entry_id)?.at ?? null,
+      needsPaperCountersign: a.user_id === null && !archerSigned && signedEnds === ends.length,
     };
   });
   return { sessionId: session.id, cards };

@@ -17,6 +17,7 @@ import { useEventSummary } from '../events/api/eventSummary';
 import { DESK_KIND_LABELS, deskItems, type DeskItem } from './deskItems';
 import { RuleForm } from './RuleForm';
 import { ImportWaiting } from './ImportWaiting';
+import { PaperCountersigns } from './PaperCountersigns';
 import { usePrepareDesk } from './api/prepareDesk';
 
 async function sign(userId: number, items: DeskItem[]) {
@@ -175,6 +176,7 @@ function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: numb
           ))}
         </ul>
       )}
+      <PaperCountersigns eventId={eventId} sessionId={sessionId} />
       <ImportWaiting eventId={eventId} />
       <SyncLine />
     </div>
