@@ -37,7 +37,10 @@ const cursorKey = (userId: number) => `pullCursor:${userId}`;
  */
 export async function syncOnce(db: LocalDb, userId: number, transport: SyncTransport): Promise<SyncReport> {
   const clientId = await clientIdFor(db, userId);
-  if (transport.registerKey) await ensureDeviceKeyRegistered(db, clientId, transport.registerKey);
+  // Never blocks the changes: a registration that failed is tried again next round (a signed-out
+  // phone hears of it from the push just after).
+  if (transport.registerKey)
+    await ensureDeviceKeyRegistered(db, clientId, transport.registerKey).catch(() => undefined);
   const outcomes = new Map<number, MutationResult>();
   let pushed = 0;
 

@@ -89,4 +89,33 @@ describe('a saved file of waiting changes', () => {
       '["X","10","9","9","8","7"]',
     ]);
   });
+
+  it('a key registration that fails never holds back the changes, and is tried again next time', async () => {
+    const writer = j.people.writer2;
+    const other = new LocalDb('waiting-signature-test-2');
+    let calls = 0;
+    const failing: SyncTransport = {
+      ...transportAs(writer),
+      registerKey: async () => {
+        calls += 1;
+        throw new Error('the server is busy');
+      },
+    };
+    await recordChange(other, writer.id, {
+      kind: 'end.write',
+      args: {
+        sessionId: j.sessionId,
+        entryId: j.ada.entryId,
+        endIndex: 5,
+        slot: 2,
+        arrows: ['9'],
+        flags: [],
+      },
+    });
+    const report = await syncOnce(other, writer.id, failing);
+    expect(report).toMatchObject({ pushed: 1, applied: 1 });
+    await syncOnce(other, writer.id, failing);
+    expect(calls).toBe(2);
+    await other.delete();
+  });
 });
