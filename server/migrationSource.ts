@@ -6,6 +6,7 @@ import * as m0005 from '../migrations/0005_judging_and_signatures';
 import * as m0006 from '../migrations/0006_mail_limits';
 import * as m0007 from '../migrations/0007_late_values';
 import * as m0008 from '../migrations/0008_account_recovery';
+import * as m0009 from '../migrations/0009_signing_trust';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
 
@@ -21,6 +22,7 @@ const migrations: [string, Migration][] = [
   ['0006_mail_limits', m0006],
   ['0007_late_values', m0007],
   ['0008_account_recovery', m0008],
+  ['0009_signing_trust', m0009],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {

@@ -9,6 +9,8 @@ import { mailFinalCards } from '../services/judging/finalCard';
 import { waitingChangesFileSchema } from '../../src/contract/waitingChanges';
 import { importWaitingChanges } from '../services/sync/importWaiting';
 import { requireEventRole } from '../auth/eventRoles';
+import { deviceKeyRequestSchema } from '../../src/contract/deviceKeys';
+import { registerDeviceKey } from '../services/sync/deviceKeys';
 
 /** More changes than one push takes: 413, which tells the phone to send its batch in halves. */
 const refuseLargeBatch: RequestHandler = (req, _res, next) => {
@@ -46,16 +48,27 @@ export function syncRoutes(ctx: AppContext): Router {
     '/events/:eventId/waiting-changes',
     ctx.requireUser,
     requireEventRole(db, 'judge'),
+    // The phone signed the bytes it saved; its signature is checked on the body as it arrived.
+    (req, res, next) => {
+      res.locals.rawBody = req.body as unknown;
+      next();
+    },
     validateBody(waitingChangesFileSchema),
     async (req, res) => {
+      const eventId = Number(req.params.eventId);
       res.json(
-        await importWaitingChanges(db, Number(req.params.eventId), req.user!.id, req.body, {
+        await importWaitingChanges(db, eventId, req.user!.id, req.body, res.locals.rawBody, {
           signingKeys: ctx.signingKeys,
           onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, ctx.linkAddress.url),
         }),
       );
     },
   );
+
+  router.post('/sync/device-key', ctx.requireUser, validateBody(deviceKeyRequestSchema), async (req, res) => {
+    await registerDeviceKey(db, req.user!.id, req.body);
+    res.status(204).end();
+  });
 
   router.get('/sync/pull', ctx.requireUser, async (req, res) => {
     const query = pullQuerySchema.safeParse(req.query);

@@ -8,9 +8,13 @@ export type SignedClaim = {
   typ: 'ringcall-end' | 'ringcall-card';
   /** Hash of the canonical content (see contentHash and server/services/signing). */
   hash: string;
-  /** Who signed, and when. */
+  /** Who signed, and when: `at` is the server's clock (cards) or the signing phone's (ends). */
   signer: { userId: number; name: string; role: SignerRole }[];
   at: string;
+  /** The signing phone's own clock, kept beside the server's time (cards). */
+  phoneAt?: string;
+  /** "countersigned on paper, recorded by judge …" for a countersignature a judge recorded. */
+  countersigned?: string;
   /** Where the content lives, so a verifier can recompute its hash. */
   ref: Record<string, number>;
   /** A card's totals as signed, so a verification page can show them even when the card changed. */

@@ -30,12 +30,17 @@ export const endSignArgsSchema = z.object({
 });
 export type EndSignArgs = z.infer<typeof endSignArgsSchema>;
 
-/** The archer (or the writer who kept the card, as scorer) signs the whole card as they saw it. */
+/**
+ * The archer (or the writer who kept the card, as scorer) signs the whole card as they saw it.
+ * With `paper`, a judge records the archer's countersignature made on the paper card (an archer
+ * without an account cannot sign on a phone), naming the photo of that paper card.
+ */
 export const cardSignArgsSchema = z.object({
   sessionId: id,
   entryId: id,
   role: z.enum(['archer', 'scorer']),
   total: z.number().int().min(0).max(10_000),
+  paper: z.object({ photoId: id }).optional(),
 });
 export type CardSignArgs = z.infer<typeof cardSignArgsSchema>;
 
@@ -74,9 +79,14 @@ export type CardSignatureDto = {
   sessionId: number;
   entryId: number;
   role: 'archer' | 'scorer';
+  /** The account that signed (for a countersignature on paper: the judge who recorded it). */
   userId: number;
   name: string;
+  /** The server's time of signing; `phoneAt` is the signing phone's own clock. */
   signedAt: string;
+  phoneAt: string | null;
+  /** "countersigned on paper, recorded by judge …", when it was. */
+  onPaper?: string;
   supersededAt: string | null;
   /** The compact JWS, for the verification QR code. */
   jws: string;
@@ -125,19 +135,35 @@ export type CardView = {
     runningTotal: number | null;
     signedBy?: string;
     signedAt?: string;
+    /** A judge transcribed a record of this end from a file no phone signed (shown "transcribed by … from a file"). */
+    transcribedBy?: string;
   }[];
   /** Over the ends with decided values (all of them once every end is signed). */
   totals: { total: number; tens: number; xs: number; hits: number };
   signedEnds: number;
   totalEnds: number;
   /** Current (not superseded) card signatures. */
-  signatures: { role: 'archer' | 'scorer'; name: string; at: string; jws: string }[];
+  signatures: {
+    role: 'archer' | 'scorer';
+    name: string;
+    /** The server's time of signing, and the signing phone's own clock ("phone time"). */
+    at: string;
+    phoneAt: string | null;
+    /** "countersigned on paper, recorded by judge …", when it was. */
+    onPaper?: string;
+    jws: string;
+  }[];
   state: CardState;
   final: boolean;
   /** The role the requester may sign the card in now, if any (the total to send is totals.total). */
   canCountersign: 'archer' | 'scorer' | null;
   /** Why the requester cannot sign yet, in words, when they could once the card is ready. */
   countersignNote?: string;
+  /**
+   * For a judge: the archer has no account, so cannot countersign on a phone; the judge may record
+   * the countersignature made on the paper card (with a photo of it) once every end is signed.
+   */
+  canRecordPaperCountersign: boolean;
 };
 
 /** `GET /api/events/:eventId/sessions/:sessionId/cards`: where every card of a session stands. */
@@ -156,6 +182,8 @@ export type SessionCardItem = {
   final: boolean;
   /** When the final card was last mailed to the archer, if it was. */
   mailedAt: string | null;
+  /** Every end is signed but the archer, who has no account, can only countersign on paper: a judge records it. */
+  needsPaperCountersign: boolean;
 };
 export type SessionCards = { sessionId: number; cards: SessionCardItem[] };
 
@@ -185,4 +213,10 @@ export type VerifyResult =
       signers: { name: string; role: string }[];
       /** The totals that were signed (cards only). */
       totals?: { total: number; tens: number; xs: number; hits: number };
+      /** `signedAt` is the server's time (cards); this is the signing phone's own clock. */
+      phoneAt?: string;
+      /** "countersigned on paper, recorded by judge …", for a countersignature a judge recorded. */
+      countersigned?: string;
+      /** What differs between the card as signed and as it is now (cards). */
+      changes?: { what: string; signed: string; now: string }[];
     };

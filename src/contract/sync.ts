@@ -167,6 +167,8 @@ export type EndRecordDto = {
   revision: number;
   writtenBy: number;
   writtenAt: string;
+  /** The judge who transcribed this record from a file no phone signed ("transcribed by … from a file"). */
+  transcribedBy?: string;
 };
 
 export type SettlementDto = {
@@ -178,6 +180,8 @@ export type SettlementDto = {
   basis: { first: number; second: number };
   settledBy: number;
   settledAt: string;
+  /** As for EndRecordDto. */
+  transcribedBy?: string;
 };
 
 /**

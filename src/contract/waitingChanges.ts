@@ -18,6 +18,11 @@ export const waitingChangesFileSchema = z.object({
         clientId: z.string().min(8).max(100),
         userId: z.number().int().positive(),
         mutations: z.array(receivedChangeSchema).min(1).max(2000),
+        /**
+         * The phone's own key's signature (ECDSA P-256, base64url) over `waitingSigningInput` of
+         * this block. Without a valid one, the changes are the importing judge's transcription.
+         */
+        signature: z.string().max(200).optional(),
       }),
     )
     .min(1, 'The file holds no changes.')
@@ -29,6 +34,10 @@ export type WaitingChangesImport = {
   clients: {
     clientId: string;
     userId: number;
+    /** True when the block was signed by the phone's key registered for its client id. */
+    fromThePhone: boolean;
+    /** Otherwise the changes were taken in as this judge's transcription ("transcribed by …"). */
+    transcribedBy?: string;
     applied: number;
     duplicates: number;
     results: MutationResult[];

@@ -1,5 +1,7 @@
-import { apiRequest } from '../api/request';
+import { ApiError, apiRequest } from '../api/request';
+import type { DeviceKeyRequest } from '../contract/deviceKeys';
 import type { PullResponse, PushRequest, PushResponse } from '../contract/sync';
+import type { KeyRegistration } from './deviceKey';
 import type { SyncTransport } from './syncEngine';
 
 /** The only code that talks to /api/sync. */
@@ -7,4 +9,14 @@ export const httpTransport: SyncTransport = {
   push: (body: PushRequest) =>
     apiRequest<PushResponse>('/api/sync/push', { method: 'POST', body: JSON.stringify(body) }),
   pull: (cursor: number) => apiRequest<PullResponse>(`/api/sync/pull?cursor=${cursor}`),
+  registerKey: async (body: DeviceKeyRequest): Promise<KeyRegistration> => {
+    try {
+      await apiRequest<void>('/api/sync/device-key', { method: 'POST', body: JSON.stringify(body) });
+      return 'registered';
+    } catch (error) {
+      // Another account's client id or another key already there: final, so not asked again.
+      if (error instanceof ApiError && (error.status === 403 || error.status === 409)) return 'refused';
+      throw error;
+    }
+  },
 };

@@ -3,6 +3,7 @@ import type { CardSignArgs, EndRuleArgs, EndSignArgs } from '../contract/judging
 import { Dexie } from 'dexie';
 import { cardKeyOf, endKeyOf, type LocalDb, type OutboxRow } from './db';
 import { writeAtOnce } from './writeAtOnce';
+import { signWaitingBlock } from './deviceKey';
 
 /** This phone's identity towards the server: one sequence per install and person. */
 const knownClientIds = new Map<string, Promise<string>>();
@@ -145,17 +146,24 @@ export async function exportWaiting(
     .toArray();
   const byClient = new Map<string, OutboxRow[]>();
   for (const row of rows) byClient.set(row.clientId, [...(byClient.get(row.clientId) ?? []), row]);
-  const body = {
-    format: 'ringcall-waiting-changes',
-    version: 1,
-    exportedAt: new Date().toISOString(),
-    clients: [...byClient].map(([clientId, list]) => ({
+  const clients = [];
+  for (const [clientId, list] of byClient) {
+    const block = {
       clientId,
       userId: list[0]!.userId,
       mutations: list
         .sort((a, b) => a.seq - b.seq)
         .map((r) => ({ ...toMutation(r), status: r.status, reason: r.reason })),
-    })),
+    };
+    // Signed by this phone's key, so a judge's import counts the changes as their person's own.
+    const signature = await signWaitingBlock(db, block);
+    clients.push(signature ? { ...block, signature } : block);
+  }
+  const body = {
+    format: 'ringcall-waiting-changes',
+    version: 1,
+    exportedAt: new Date().toISOString(),
+    clients,
   };
   const stamp = body.exportedAt.replace(/[:.]/g, '-');
   return { fileName: `ringcall-waiting-${stamp}.json`, json: JSON.stringify(body, null, 2) };

@@ -12,11 +12,15 @@ import {
   type SettlementRow,
 } from './db';
 import { clientIdFor, toMutation } from './outbox';
+import type { DeviceKeyRequest } from '../contract/deviceKeys';
+import { ensureDeviceKeyRegistered, type KeyRegistration } from './deviceKey';
 
 /** How the engine reaches the server; the app uses HTTP, tests can wire the app directly. */
 export type SyncTransport = {
   push: (body: PushRequest) => Promise<PushResponse>;
   pull: (cursor: number) => Promise<PullResponse>;
+  /** Registers this phone's public key for its client id (see deviceKey.ts); optional for tests. */
+  registerKey?: (body: DeviceKeyRequest) => Promise<KeyRegistration>;
 };
 
 export type SyncReport = { pushed: number; applied: number; rejected: number; pulled: number };
@@ -33,6 +37,10 @@ const cursorKey = (userId: number) => `pullCursor:${userId}`;
  */
 export async function syncOnce(db: LocalDb, userId: number, transport: SyncTransport): Promise<SyncReport> {
   const clientId = await clientIdFor(db, userId);
+  // Never blocks the changes: a registration that failed is tried again next round (a signed-out
+  // phone hears of it from the push just after).
+  if (transport.registerKey)
+    await ensureDeviceKeyRegistered(db, clientId, transport.registerKey).catch(() => undefined);
   const outcomes = new Map<number, MutationResult>();
   let pushed = 0;
 

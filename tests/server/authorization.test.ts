@@ -220,6 +220,17 @@ export const ROUTES: RouteRule[] = [
     ok: 200,
   },
   { method: 'get', path: () => '/api/sync/pull?cursor=0', allowed: SIGNED_IN, ok: 200 },
+  // A phone registers its signing key for its own client id (tests/server/sync.import.test.ts).
+  {
+    method: 'post',
+    path: () => '/api/sync/device-key',
+    body: () => ({
+      clientId: `keyed-${randomUUID()}`,
+      publicJwk: { kty: 'EC', crv: 'P-256', x: 'x'.repeat(43), y: 'y'.repeat(43) },
+    }),
+    allowed: SIGNED_IN,
+    ok: 204,
+  },
   // A phone's saved changes, brought in by a judge of the event (tests/server/sync.import.test.ts).
   {
     method: 'post',
@@ -420,6 +431,11 @@ const BODY_ROUTES: BodyRule[] = [
   },
   { method: 'post', path: () => '/api/join', wrongTypes: { code: 7, task: 'captain' } },
   { method: 'post', path: () => '/api/sync/push', wrongTypes: { clientId: 5, mutations: 'all' } },
+  {
+    method: 'post',
+    path: () => '/api/sync/device-key',
+    wrongTypes: { clientId: 5, publicJwk: { kty: 'RSA', n: 'AQAB' } },
+  },
   {
     method: 'post',
     path: (f) => `${ev(f)}/waiting-changes`,

@@ -32,6 +32,7 @@ let j: JudgingField;
 let total: number;
 let archerJws: string;
 let endJws: string;
+const PHONE_AT = '2026-01-01T08:00:00.000Z';
 
 const verify = async (sig: string): Promise<VerifyResult> => {
   const res = await request(server.app).get('/api/verify').query({ sig });
@@ -53,7 +54,8 @@ beforeAll(async () => {
     role,
     total,
   });
-  expectApplied([await pushOne(j.phones.ada, j.phones.ada.signCard(sign('archer')))]);
+  // Ada's phone clock is wrong: the signature keeps it, labelled, beside the server's time.
+  expectApplied([await pushOne(j.phones.ada, { ...j.phones.ada.signCard(sign('archer')), at: PHONE_AT })]);
   expectApplied([await pushOne(j.phones.writer2, j.phones.writer2.signCard(sign('scorer')))]);
   const view = await card();
   archerJws = view.signatures.find((s) => s.role === 'archer')!.jws;
@@ -145,6 +147,99 @@ describe('verification', () => {
     await server.db('entries').where({ id: j.ada.entryId }).update({ name: 'Ada Fletcher-Smith' });
     expect(await verify(archerJws)).toMatchObject({ unchanged: false });
     await server.db('entries').where({ id: j.ada.entryId }).update({ name: 'Ada Fletcher' });
+    expect(await verify(archerJws)).toMatchObject({ unchanged: true });
+  });
+
+  it('the signing time is the server’s, with the phone’s own clock beside it', async () => {
+    const [, payload] = archerJws.split('.');
+    const claim = JSON.parse(Buffer.from(payload!, 'base64url').toString());
+    expect(claim.phoneAt).toBe(PHONE_AT);
+    expect(Date.now() - Date.parse(claim.at)).toBeLessThan(5 * 60_000);
+    const result = await verify(archerJws);
+    expect(result).toMatchObject({ signedAt: claim.at, phoneAt: PHONE_AT });
+    const view = await card();
+    expect(view.signatures.find((s) => s.role === 'archer')).toMatchObject({
+      at: claim.at,
+      phoneAt: PHONE_AT,
+    });
+  });
+
+  it('covers everything printed on the card: renaming the event, its dates, the session, the club or moving the target shows what changed', async () => {
+    const entry = { id: j.ada.entryId };
+    const place = { session_id: j.sessionId, entry_id: j.ada.entryId };
+    const edits: [string, string, () => Promise<unknown>, () => Promise<unknown>][] = [
+      [
+        'Event',
+        'Field Shoot',
+        () => server.db('events').where({ id: j.field.eventId }).update({ name: 'Field Shoot 2027' }),
+        () => server.db('events').where({ id: j.field.eventId }).update({ name: 'Field Shoot' }),
+      ],
+    ];
+    const event = await server.db('events').where({ id: j.field.eventId }).first();
+    const session = await server.db('event_sessions').where({ id: j.sessionId }).first();
+    const ada = await server.db('entries').where(entry).first();
+    const assignment = await server.db('target_assignments').where(place).first();
+    edits.push(
+      [
+        'Event dates',
+        `${event.starts_on} – ${event.ends_on}`,
+        () => server.db('events').where({ id: event.id }).update({ ends_on: '2027-12-31' }),
+        () => server.db('events').where({ id: event.id }).update({ ends_on: event.ends_on }),
+      ],
+      [
+        'Session',
+        session.name,
+        () => server.db('event_sessions').where({ id: session.id }).update({ name: 'Renamed' }),
+        () => server.db('event_sessions').where({ id: session.id }).update({ name: session.name }),
+      ],
+      [
+        'Session start',
+        session.starts_at,
+        () => server.db('event_sessions').where({ id: session.id }).update({ starts_at: '2027-01-01T09:00' }),
+        () => server.db('event_sessions').where({ id: session.id }).update({ starts_at: session.starts_at }),
+      ],
+      [
+        'Club',
+        ada.club,
+        () => server.db('entries').where(entry).update({ club: 'Other Bowmen' }),
+        () => server.db('entries').where(entry).update({ club: ada.club }),
+      ],
+      [
+        'Place',
+        `target ${assignment.target_number}${assignment.position}`,
+        () => server.db('target_assignments').where(place).update({ target_number: 9 }),
+        () =>
+          server.db('target_assignments').where(place).update({ target_number: assignment.target_number }),
+      ],
+    );
+    for (const [what, signed, change, undo] of edits) {
+      await change();
+      const result = await verify(archerJws);
+      expect(result, what).toMatchObject({ signatureValid: true, unchanged: false });
+      if (result.signatureValid) {
+        expect(result.changes?.map((c) => [c.what, c.signed])).toEqual([[what, signed]]);
+        expect(result.message).toMatch(/changed after it was signed/);
+      }
+      await undo();
+    }
+    expect(await verify(archerJws)).toMatchObject({ unchanged: true });
+  });
+
+  it('a final card whose archer was later taken off the target still verifies, against what was signed', async () => {
+    const place = { session_id: j.sessionId, entry_id: j.ada.entryId };
+    const assignment = await server.db('target_assignments').where(place).first();
+    await server.db('target_assignments').where(place).delete();
+    const result = await verify(archerJws);
+    expect(result).toMatchObject({
+      signatureValid: true,
+      unchanged: true,
+      archer: 'Ada Fletcher',
+      event: 'Field Shoot',
+      totals: { total },
+    });
+    if (result.signatureValid) expect(result.message).toMatch(/no target in this session any more/);
+    const { id: _id, ...row } = assignment;
+    await server.db('target_assignments').insert(row);
     expect(await verify(archerJws)).toMatchObject({ unchanged: true });
   });
 

@@ -36,7 +36,18 @@ export function cardView(card: CardData, relation: Relation): CardView {
 
   const signatures = (['archer', 'scorer'] as const).flatMap((r) => {
     const s = card.signatures[r];
-    return s ? [{ role: r, name: s.name, at: s.signed_at, jws: s.jws }] : [];
+    return s
+      ? [
+          {
+            role: r,
+            name: s.name,
+            at: s.signed_at,
+            phoneAt: s.phone_at,
+            ...(s.onPaper ? { onPaper: s.onPaper } : {}),
+            jws: s.jws,
+          },
+        ]
+      : [];
   });
   return {
     event: { id: card.event.id, name: card.event.name },
@@ -61,6 +72,7 @@ export function cardView(card: CardData, relation: Relation): CardView {
         total: tallied.total ?? null,
         runningTotal: tallied.runningTotal ?? null,
         ...(signature ? { signedBy: signature.signedByName, signedAt: signature.signedAt } : {}),
+        ...(e.stored.transcribedBy ? { transcribedBy: e.stored.transcribedBy } : {}),
       };
     }),
     totals: { total: totals.total, tens: totals.tens, xs: totals.xs, hits: totals.hits },
@@ -70,6 +82,8 @@ export function cardView(card: CardData, relation: Relation): CardView {
     state: cardState(!!card.signatures.archer, !!card.signatures.scorer),
     final: isFinal(card),
     canCountersign: allSigned ? role : null,
+    canRecordPaperCountersign:
+      relation.judge && allSigned && card.archer.userId === null && !card.signatures.archer,
     ...(countersignNote ? { countersignNote } : {}),
   };
 }
@@ -89,9 +103,11 @@ export async function sessionCards(db: Db, session: SessionRow): Promise<Session
       'ta.target_number',
       'ta.position',
       'e.name',
+      'e.user_id',
       'd.name as division',
       'sd.round_json',
     )) as {
+    user_id: number | null;
     entry_id: number;
     target_number: number;
     position: Position;
@@ -119,13 +135,14 @@ export async function sessionCards(db: Db, session: SessionRow): Promise<Session
     const views = ends.map((end) => endView(stored.facts(a.entry_id, end.index)));
     const archerSigned = signed.some((s) => s.entry_id === a.entry_id && s.role === 'archer');
     const scorerSigned = signed.some((s) => s.entry_id === a.entry_id && s.role === 'scorer');
+    const signedEnds = views.filter((v) => v.state === 'signed').length;
     return {
       entryId: a.entry_id,
       name: a.name,
       division: a.division,
       targetNumber: a.target_number,
       position: a.position,
-      signedEnds: views.filter((v) => v.state === 'signed').length,
+      signedEnds,
       totalEnds: ends.length,
       total: cardTotals(
         round,
@@ -135,6 +152,7 @@ export async function sessionCards(db: Db, session: SessionRow): Promise<Session
       scorerSigned,
       final: archerSigned && scorerSigned,
       mailedAt: mailed.find((m) => m.entry_id === a.entry_id)?.at ?? null,
+      needsPaperCountersign: a.user_id === null && !archerSigned && signedEnds === ends.length,
     };
   });
   return { sessionId: session.id, cards };

@@ -19,6 +19,8 @@ export type StoredEnd = {
   settlement?: SettlementRow | undefined;
   ruling?: RulingDto | undefined;
   signature?: EndSignatureDto | undefined;
+  /** The judge who transcribed a writer's or the caller's record of it from a file no phone signed. */
+  transcribedBy?: string;
 };
 
 export type EndRecords = {
@@ -53,7 +55,22 @@ export function endFactsOf(end: StoredEnd, options: { signed?: boolean } = {}): 
   };
 }
 
-/** Reads every stored end of some archers in a session, in four queries. */
+/** Names the judge on each end whose current records include a transcription (a few queries in all). */
+async function labelTranscriptions(db: Db, ends: Iterable<StoredEnd>): Promise<void> {
+  const byMutation = new Map<string, StoredEnd>();
+  for (const end of ends)
+    for (const r of [end.first, end.second, end.settlement]) if (r) byMutation.set(r.mutation_id, end);
+  const ids = [...byMutation.keys()];
+  for (let i = 0; i < ids.length; i += 500) {
+    const rows = (await db('mutations as m')
+      .join('users as u', 'u.id', 'm.transcribed_by')
+      .whereIn('m.mutation_uuid', ids.slice(i, i + 500))
+      .select('m.mutation_uuid', 'u.display_name')) as { mutation_uuid: string; display_name: string }[];
+    for (const row of rows) byMutation.get(row.mutation_uuid)!.transcribedBy = row.display_name;
+  }
+}
+
+/** Reads every stored end of some archers in a session, in four queries (and one per 500 records for transcriptions). */
 export async function loadEndRecords(
   db: Db,
   sessionId: number,
@@ -82,6 +99,8 @@ export async function loadEndRecords(
     .select('t.*', 'u.display_name')) as (EndSignatureRow & { id: number; display_name: string })[];
   for (const { id, display_name, ...row } of signatures)
     at(row.entry_id, row.end_index).signature = toEndSignature(id, row, display_name);
+
+  await labelTranscriptions(db, ends.values());
 
   return {
     end: (entryId, endIndex) => ends.get(`${entryId}:${endIndex}`) ?? {},

@@ -4,9 +4,11 @@ import type { Db } from '../../db';
 import { HttpError } from '../../http/httpError';
 import type { SigningKeys } from '../../signing/serverKeys';
 import { NotOurSignature, verifyClaim, type SignedClaim } from '../../signing/signatures';
-import { loadCard, type CardData } from '../judging/cardData';
+import { readCard, type StoredCard } from '../judging/cardData';
 import { endFactsOf } from '../judging/endRecords';
-import { cardContentHash } from './cardContent';
+import { contentHash } from '../../signing/contentHash';
+import { cardChanges } from './cardChanges';
+import { cardContent, paperWords, type CardContent } from './cardContent';
 import { endContentHash } from './endContent';
 
 /** Longer than any signature this server makes (a card's is well under 1,000 characters). */
@@ -30,7 +32,7 @@ const sameArrows = (a: readonly ArrowValue[] | undefined, b: readonly ArrowValue
  * callers are refused and a ruling supersedes the signature, so any difference is a change made
  * outside Ringcall.
  */
-function endIntact(card: CardData, endIndex: number): boolean {
+function endIntact(card: StoredCard, endIndex: number): boolean {
   const end = card.ends[endIndex];
   const signature = end?.stored.signature;
   if (!end || !signature) return false;
@@ -43,10 +45,10 @@ function endIntact(card: CardData, endIndex: number): boolean {
 }
 
 /** The card a signature's reference names, if this server still holds it in that event. */
-async function findCard(db: Db, ref: SignedClaim['ref']): Promise<CardData | undefined> {
+async function findCard(db: Db, ref: SignedClaim['ref']): Promise<StoredCard | undefined> {
   if (ref.session === undefined || ref.entry === undefined) return undefined;
   try {
-    const card = await loadCard(db, ref.session, ref.entry);
+    const card = await readCard(db, ref.session, ref.entry);
     return card.event.id === ref.event ? card : undefined;
   } catch (error) {
     if (error instanceof HttpError) return undefined;
@@ -96,26 +98,51 @@ export async function verifySignature(db: Db, keys: SigningKeys, token: string):
   const about = { event: card.event.name, archer: card.archer.name, division: card.archer.division };
 
   if (kind === 'card') {
-    const row = await db('card_signatures')
+    const row = (await db('card_signatures')
       .where({ session_id: session, entry_id: entry, jws: token })
-      .first();
+      .first('content_json', 'superseded_at', 'phone_at')) as
+      { content_json: string | null; superseded_at: string | null; phone_at: string | null } | undefined;
+    // The card as signed is stored with the signature: checked against the signed hash, then
+    // compared with the card as it is now (which may have no target any more).
+    const signed = row?.content_json ? (JSON.parse(row.content_json) as CardContent) : undefined;
+    const storedIntact = !!signed && contentHash(signed) === claim.hash;
+    const changes = signed && storedIntact ? cardChanges(signed, cardContent(card.facts)) : [];
     const everyEndIntact = card.ends.every((e) => endIntact(card, e.endIndex));
-    const unchanged = cardContentHash(card.facts) === claim.hash && everyEndIntact;
+    const unchanged = storedIntact && changes.length === 0 && everyEndIntact;
     const superseded = !!row?.superseded_at;
     const cardSigners = (await db('card_signatures as c')
       .join('users as u', 'u.id', 'c.user_id')
       .where({ 'c.session_id': session, 'c.entry_id': entry, 'c.content_hash': claim.hash })
       .orderBy('c.id')
-      .select('u.display_name as name', 'c.role')) as { name: string; role: string }[];
+      .select('u.display_name as name', 'c.role', 'c.on_paper')) as {
+      name: string;
+      role: string;
+      on_paper: number | boolean;
+    }[];
     const judges = [...new Set(card.ends.flatMap((e) => e.stored.signature?.signedByName ?? []))];
     return {
       ...base,
-      ...about,
+      ...(signed && storedIntact
+        ? { event: signed.event.name, archer: signed.archer.name, division: signed.archer.division }
+        : about),
       unchanged,
       superseded,
-      message: verdict('card', unchanged, superseded, !!row),
+      message:
+        verdict('card', unchanged, superseded, !!row, storedIntact || !row) +
+        (card.archer.targetNumber === null
+          ? ' The archer has no target in this session any more; the card is checked as it was signed.'
+          : ''),
+      ...(changes.length > 0 ? { changes } : {}),
+      ...(claim.phoneAt ? { phoneAt: claim.phoneAt } : {}),
+      ...(claim.countersigned ? { countersigned: claim.countersigned } : {}),
       signers: [
-        ...(cardSigners.length > 0 ? cardSigners : claimed),
+        ...(cardSigners.length > 0
+          ? cardSigners.map((s) =>
+              s.on_paper
+                ? { name: signed?.archer.name ?? card.archer.name, role: `${s.role}, ${paperWords(s.name)}` }
+                : { name: s.name, role: s.role },
+            )
+          : claimed),
         ...judges.map((name) => ({ name, role: 'judge' })),
       ],
     };
@@ -149,11 +176,19 @@ export async function verifySignature(db: Db, keys: SigningKeys, token: string):
   };
 }
 
-function verdict(what: string, unchanged: boolean, superseded: boolean, onRecord: boolean): string {
+function verdict(
+  what: string,
+  unchanged: boolean,
+  superseded: boolean,
+  onRecord: boolean,
+  storedIntact = true,
+): string {
   if (superseded)
     return `A judge corrected this ${what} after it was signed, so this signature no longer counts. Ask the event's judges for the corrected card.`;
   if (!onRecord)
     return `The signature is genuine, but this server no longer holds it for this ${what}. Ask the event's judges.`;
+  if (!storedIntact)
+    return `The signature is genuine, but this server's copy of what was signed has been altered. Ask the event's judges.`;
   return unchanged
     ? `This ${what} is unchanged since it was signed.`
     : `This ${what} was changed after it was signed. Ask the event's judges.`;

@@ -1,5 +1,5 @@
 import type { EndWriteArgs } from '../../../src/contract/sync';
-import { nextEndEntry, type Author } from './effects';
+import { nextEndEntry, transcriptionLabel, type Author } from './effects';
 import type { FieldBatch } from './fieldBatch';
 import { toEndRecord } from './fieldRows';
 import { Refusal, checkArrows, checkEnd, refuseIfJudged } from './fieldRules';
@@ -31,5 +31,5 @@ export function applyEndWrite(batch: FieldBatch, args: EndWriteArgs, by: Author)
     }
   }
   const row = nextEndEntry(batch.record(args.sessionId, args.entryId, args.endIndex, args.slot), args, by);
-  batch.putRecord(checked.placement, row, toEndRecord(row));
+  batch.putRecord(checked.placement, row, { ...toEndRecord(row), ...transcriptionLabel(by) });
 }

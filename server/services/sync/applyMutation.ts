@@ -7,7 +7,23 @@ import { applyRuling } from './applyRuling';
 import { applySettlement } from './applySettlement';
 import type { Author } from './effects';
 import type { FieldBatch } from './fieldBatch';
-import { Refusal } from './fieldRules';
+import { Refusal, refuse } from './fieldRules';
+
+/**
+ * A signature or a ruling is its maker's own act: from a file no phone signed, a judge can
+ * transcribe values but never carry another person's signature, countersignature or ruling.
+ */
+function refuseTranscribedJudging(kind: Mutation['kind'], judge: string): never {
+  const what =
+    kind === 'card.sign'
+      ? 'A signature on a card'
+      : kind === 'end.sign'
+        ? 'A judge’s signature on an end'
+        : 'A ruling';
+  refuse(
+    `${what} counts only from its maker’s own phone. This file was not signed by that phone, so ${judge} can bring in its values but not this; ask its maker to do it again on their phone.`,
+  );
+}
 
 function keysFor(signingKeys: SigningKeys | undefined): SigningKeys {
   if (!signingKeys) throw new Error('pushBatch needs the signing keys to apply signatures.');
@@ -22,6 +38,8 @@ export async function applyMutation(
   signingKeys: SigningKeys | undefined,
 ): Promise<string | null> {
   try {
+    if (by.transcribedBy && m.kind !== 'end.write' && m.kind !== 'end.settle')
+      refuseTranscribedJudging(m.kind, by.transcribedBy.name);
     switch (m.kind) {
       case 'end.write':
         applyEndWrite(batch, m.args, by);

@@ -10,13 +10,20 @@ import { forbidden } from '../../http/httpError';
 import type { SigningKeys } from '../../signing/serverKeys';
 import { nowIso } from '../../time';
 import { applyMutation } from './applyMutation';
+import type { Author } from './effects';
 import { FieldBatch } from './fieldBatch';
 import { LateArrival } from './lateArrival';
 import { storeHeld, type Held } from './lateValues';
 import { KnownMutations, answerFromStore, type Sequenced, type Step } from './pushSequence';
 
 /** One phone's push as one commit takes it in. */
-export type Push = { userId: number; request: ReceivedPush; signingKeys?: SigningKeys };
+export type Push = {
+  userId: number;
+  request: ReceivedPush;
+  signingKeys?: SigningKeys;
+  /** The judge whose transcription of a file this push is (see PushOptions). */
+  transcribedBy?: { userId: number; name: string };
+};
 
 export type CardRef = { sessionId: number; entryId: number };
 
@@ -88,7 +95,12 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
       status = 'rejected';
     } else {
       try {
-        const by = { userId: push.userId, at: m.at, mutationId: m.id };
+        const by: Author = {
+          userId: push.userId,
+          at: m.at,
+          mutationId: m.id,
+          ...(push.transcribedBy ? { transcribedBy: push.transcribedBy } : {}),
+        };
         reason = await applyMutation(batch, m, by, push.signingKeys);
         status = reason === null ? 'applied' : 'rejected';
       } catch (error) {
@@ -104,6 +116,7 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
       client_id: push.request.clientId,
       seq: m.seq,
       user_id: push.userId,
+      transcribed_by: push.transcribedBy?.userId ?? null,
       ...(isUnreadable(m)
         ? { kind: m.unreadable.kind, args_json: m.unreadable.argsJson, at: m.unreadable.at }
         : { kind: m.kind, args_json: JSON.stringify(m.args), at: m.at }),

@@ -1,6 +1,6 @@
 import { crossCheck, type ArrowValue } from '../../../src/core';
 import type { EndSettleArgs } from '../../../src/contract/sync';
-import { settlementRow, type Author } from './effects';
+import { settlementRow, transcriptionLabel, type Author } from './effects';
 import type { FieldBatch } from './fieldBatch';
 import { toSettlement } from './fieldRows';
 import { Refusal, checkArrows, checkEnd, refuseIfJudged } from './fieldRules';
@@ -41,5 +41,5 @@ export function applySettlement(batch: FieldBatch, args: EndSettleArgs, by: Auth
     }
   }
   const row = settlementRow(args, by);
-  batch.putSettlement(checked.placement, row, toSettlement(row));
+  batch.putSettlement(checked.placement, row, { ...toSettlement(row), ...transcriptionLabel(by) });
 }

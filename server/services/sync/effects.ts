@@ -3,8 +3,16 @@ import type { EndSettleArgs, EndWriteArgs } from '../../../src/contract/sync';
 import type { EndRuleArgs } from '../../../src/contract/judging';
 import type { EndEntryRow, RulingRow, SettlementRow } from './fieldRows';
 
-/** Who made a change and when: the person, the phone's clock, the mutation's uuid. */
-export type Author = { userId: number; at: string; mutationId: string };
+/**
+ * Who made a change and when: the person, the phone's clock, the mutation's uuid; and the judge
+ * who transcribed it from a file no phone signed, when one did.
+ */
+export type Author = {
+  userId: number;
+  at: string;
+  mutationId: string;
+  transcribedBy?: { userId: number; name: string };
+};
 
 /*
  * What an applied mutation does to the current tables, as pure functions. The live push and the
@@ -62,6 +70,10 @@ export function rulingRow(args: EndRuleArgs, by: Author): RulingRow {
     mutation_id: by.mutationId,
   };
 }
+
+/** What a record shows of a transcription: the judge who brought it in from a file. */
+export const transcriptionLabel = (by: Author): { transcribedBy?: string } =>
+  by.transcribedBy ? { transcribedBy: by.transcribedBy.name } : {};
 
 export const endKey = (r: { sessionId: number; entryId: number; endIndex: number }) => ({
   session_id: r.sessionId,

@@ -82,7 +82,7 @@ export class FieldBatch {
   private readonly judgeOf = new Set<string>();
   /** The pushing people's names, as signatures show them (read when the commit has judging mutations). */
   private readonly names = new Map<number, string>();
-  private readonly photoEvents = new Map<number, number>();
+  private readonly photos = new Map<number, { eventId: number; sha256: string }>();
   private readonly ops: JudgeOp[] = [];
   /** Applied effects in order, for the change log. */
   readonly changes: { placement: Placement; change: ChangeRecord }[] = [];
@@ -182,12 +182,17 @@ export class FieldBatch {
     }
     const cardSignatures = (await ofCards('card_signatures')
       .join('users as u', 'u.id', 't.user_id')
+      .join('entries as e', 'e.id', 't.entry_id')
       .whereNull('t.superseded_at')
-      .select('t.*', 'u.display_name')) as (CardSignatureRow & { id: number; display_name: string })[];
-    for (const { id, display_name, ...row } of cardSignatures) {
+      .select('t.*', 'u.display_name', 'e.name as archer_name')) as (CardSignatureRow & {
+      id: number;
+      display_name: string;
+      archer_name: string;
+    })[];
+    for (const { id, display_name, archer_name, ...row } of cardSignatures) {
       const key = cardKey(row.session_id, row.entry_id);
       const held = this.cardSignatures.get(key) ?? {};
-      held[row.role] = { id, row, dto: toCardSignature(id, row, display_name) };
+      held[row.role] = { id, row, dto: toCardSignature(id, row, display_name, archer_name) };
       this.cardSignatures.set(key, held);
     }
 
@@ -199,11 +204,15 @@ export class FieldBatch {
       .select('user_id', 'event_id')) as { user_id: number; event_id: number }[];
     for (const r of roles) this.judgeOf.add(`${r.user_id}:${r.event_id}`);
     const photoIds = mutations.flatMap((m) =>
-      m.kind === 'end.rule' && m.args.photoId !== undefined ? [m.args.photoId] : [],
+      m.kind === 'end.rule' && m.args.photoId !== undefined
+        ? [m.args.photoId]
+        : m.kind === 'card.sign' && m.args.paper
+          ? [m.args.paper.photoId]
+          : [],
     );
     if (photoIds.length > 0) {
-      for (const p of await trx('photos').whereIn('id', photoIds).select('id', 'event_id'))
-        this.photoEvents.set(p.id, p.event_id);
+      for (const p of await trx('photos').whereIn('id', photoIds).select('id', 'event_id', 'sha256'))
+        this.photos.set(p.id, { eventId: p.event_id, sha256: p.sha256 });
     }
     const people = (await trx('users')
       .whereIn('id', [...userIds])
@@ -233,7 +242,12 @@ export class FieldBatch {
 
   /** The event a photo belongs to, if the photo exists. */
   photoEvent(photoId: number): number | undefined {
-    return this.photoEvents.get(photoId);
+    return this.photos.get(photoId)?.eventId;
+  }
+
+  /** The SHA-256 of a photo's bytes, if the photo exists. */
+  photoSha256(photoId: number): string | undefined {
+    return this.photos.get(photoId)?.sha256;
   }
 
   record(sessionId: number, entryId: number, endIndex: number, slot: 1 | 2): EndEntryRow | undefined {
@@ -340,7 +354,11 @@ export class FieldBatch {
   }
 
   putCardSignature(placement: Placement, row: CardSignatureRow, name: string): void {
-    const held: CardSignatureHeld = { id: undefined, row, dto: toCardSignature(0, row, name) };
+    const held: CardSignatureHeld = {
+      id: undefined,
+      row,
+      dto: toCardSignature(0, row, name, placement.archerName),
+    };
     const key = cardKey(row.session_id, row.entry_id);
     const card = this.cardSignatures.get(key) ?? {};
     card[row.role] = held;

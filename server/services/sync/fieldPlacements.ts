@@ -1,9 +1,17 @@
 import { endsOfRound, type RoundDefinition, type RoundEnd } from '../../../src/core';
-import type { BowStyleName } from '../../../src/contract/events';
+import type { BowStyleName, Position } from '../../../src/contract/events';
 import type { Task } from '../../../src/contract/sync';
 import type { Db } from '../../db';
 
-export type FieldSession = { id: number; eventId: number; name: string; closed: boolean };
+export type FieldSession = {
+  id: number;
+  eventId: number;
+  name: string;
+  closed: boolean;
+  /** What a card signature names of the session and its event (see cardContent). */
+  startsAt: string;
+  event: { name: string; startsOn: string; endsOn: string };
+};
 
 /** Where an archer shoots in a session, what, and the task of each pushing person on that target. */
 export type Placement = {
@@ -13,7 +21,9 @@ export type Placement = {
   /** The account linked to the entry (the archer who countersigns), if any. */
   archerUserId: number | null;
   divisionName: string;
+  club: string;
   targetNumber: number;
+  position: Position;
   bowStyle: BowStyleName;
   /** Null when the archer's division has no round in the session. */
   round: RoundDefinition | null;
@@ -40,8 +50,14 @@ type PlacementRow = {
   event_id: number;
   session_name: string;
   closed_at: string | null;
+  starts_at: string;
+  event_name: string;
+  starts_on: string;
+  ends_on: string;
   entry_id: number | null;
   target_number: number | null;
+  position: Position | null;
+  club: string | null;
   archer_name: string | null;
   archer_user_id: number | null;
   division_name: string | null;
@@ -61,6 +77,7 @@ export async function loadPlacements(
   userIds: readonly number[],
 ): Promise<{ sessions: Map<number, FieldSession>; placements: Map<string, Placement> }> {
   const rows = (await trx('event_sessions as s')
+    .join('events as ev', 'ev.id', 's.event_id')
     .leftJoin('target_assignments as ta', (j) =>
       j.on('ta.session_id', 's.id').andOnIn('ta.entry_id', [...entryIds]),
     )
@@ -75,8 +92,14 @@ export async function loadPlacements(
       's.event_id',
       's.name as session_name',
       's.closed_at',
+      's.starts_at',
+      'ev.name as event_name',
+      'ev.starts_on',
+      'ev.ends_on',
       'ta.entry_id',
       'ta.target_number',
+      'ta.position',
+      'e.club',
       'e.name as archer_name',
       'e.user_id as archer_user_id',
       'd.name as division_name',
@@ -109,7 +132,14 @@ export async function loadPlacements(
   for (const r of rows) {
     let session = sessions.get(r.session_id);
     if (!session) {
-      session = { id: r.session_id, eventId: r.event_id, name: r.session_name, closed: !!r.closed_at };
+      session = {
+        id: r.session_id,
+        eventId: r.event_id,
+        name: r.session_name,
+        closed: !!r.closed_at,
+        startsAt: r.starts_at,
+        event: { name: r.event_name, startsOn: r.starts_on, endsOn: r.ends_on },
+      };
       sessions.set(session.id, session);
     }
     if (r.entry_id === null) continue;
@@ -120,7 +150,9 @@ export async function loadPlacements(
       archerName: r.archer_name!,
       archerUserId: r.archer_user_id,
       divisionName: r.division_name!,
+      club: r.club ?? '',
       targetNumber: Number(r.target_number),
+      position: r.position!,
       bowStyle: r.bow_style!,
       round: parsed?.round ?? null,
       ends: parsed?.ends ?? [],

@@ -1,6 +1,7 @@
 import type { ArrowValue } from '../../../src/core';
 import type { ArrowFlag, EndRecordDto, SettlementDto, WriterSlot } from '../../../src/contract/sync';
 import type { CardSignatureDto, EndSignatureDto, RulingDto } from '../../../src/contract/judging';
+import { paperWords } from '../signing/cardContent';
 
 /** One writer's current record of one end (table end_entries). */
 export type EndEntryRow = {
@@ -126,7 +127,14 @@ export type CardSignatureRow = {
   user_id: number;
   content_hash: string;
   jws: string;
+  /** The server's time of signing; `phone_at` is the signing phone's own clock. */
   signed_at: string;
+  phone_at: string | null;
+  /** The content as signed (canonical JSON): verification compares it with the card as it is now. */
+  content_json: string | null;
+  /** A countersignature made on paper, recorded by the judge `user_id`, with the photo of the paper card. */
+  on_paper: boolean | number;
+  photo_id: number | null;
   mutation_id: string;
   superseded_at: string | null;
   superseded_by_ruling: number | null;
@@ -159,14 +167,25 @@ export const toEndSignature = (id: number, row: EndSignatureRow, signedByName: s
   jws: row.jws,
 });
 
-export const toCardSignature = (id: number, row: CardSignatureRow, name: string): CardSignatureDto => ({
+/**
+ * A card signature as phones see it. `signer` is the account's name; a countersignature made on
+ * paper shows the archer's name, labelled with the judge who recorded it.
+ */
+export const toCardSignature = (
+  id: number,
+  row: CardSignatureRow,
+  signer: string,
+  archer: string,
+): CardSignatureDto => ({
   id,
   sessionId: row.session_id,
   entryId: row.entry_id,
   role: row.role,
   userId: row.user_id,
-  name,
+  name: row.on_paper ? archer : signer,
   signedAt: row.signed_at,
+  phoneAt: row.phone_at,
+  ...(row.on_paper ? { onPaper: paperWords(signer) } : {}),
   supersededAt: row.superseded_at,
   jws: row.jws,
 });

@@ -12,6 +12,11 @@ export type PushOptions = {
    * final card can be mailed outside the transaction: a mail failure never loses a signature.
    */
   onFinalCards?: (cards: CardRef[]) => void;
+  /**
+   * A judge who brings these changes in from a file no phone signed: they are that judge's
+   * transcription (labelled so), and may not carry anyone's signature or ruling.
+   */
+  transcribedBy?: { userId: number; name: string };
 };
 
 /** Keeps one commit to a few thousand mutations, so a pull never waits long behind it. */
@@ -51,7 +56,12 @@ export async function pushBatch(
   request: ReceivedPush,
   options: PushOptions = {},
 ): Promise<PushResponse> {
-  const done = await commitsOf(db).run({ userId, request, signingKeys: options.signingKeys });
+  const done = await commitsOf(db).run({
+    userId,
+    request,
+    signingKeys: options.signingKeys,
+    ...(options.transcribedBy !== undefined ? { transcribedBy: options.transcribedBy } : {}),
+  });
   if (done.finalCards.length > 0) options.onFinalCards?.(done.finalCards);
   return done.response;
 }

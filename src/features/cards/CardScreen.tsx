@@ -11,6 +11,7 @@ import { Notice } from '../../ui/Notice';
 import { END_STATE_LABELS } from '../pad/endStateLabel';
 import { SyncLine } from '../pad/SyncLine';
 import { useCard } from './api/card';
+import { PaperCountersign } from './PaperCountersign';
 
 const CARD_STATE_WORDS: Record<CardView['state'], string> = {
   running: '○ Running',
@@ -34,9 +35,11 @@ function Countersign({ card, userId }: { card: CardView; userId: number }) {
   if (waiting > 0)
     return (
       <Notice tone="info">
-        Your signature is saved on this phone and goes to the event server with the next sync.
+        {card.canRecordPaperCountersign ? 'The countersignature' : 'Your signature'} is saved on this phone
+        and goes to the event server with the next sync.
       </Notice>
     );
+  if (card.canRecordPaperCountersign) return <PaperCountersign card={card} userId={userId} />;
   if (!card.canCountersign)
     return card.countersignNote ? <Notice tone="info">{card.countersignNote}</Notice> : null;
   const role = card.canCountersign;
@@ -112,6 +115,11 @@ function Card({ sessionId, entryId, userId }: { sessionId: number; entryId: numb
                 <span className="text-base">
                   {END_STATE_LABELS[e.state].mark} {END_STATE_LABELS[e.state].word}
                 </span>
+                {e.transcribedBy && (
+                  <span className="block text-base">
+                    ▲ Transcribed by judge {e.transcribedBy} from a file
+                  </span>
+                )}
               </td>
               <td className="text-right">{e.total ?? ''}</td>
               <td className="text-right font-bold">{e.runningTotal ?? ''}</td>
@@ -124,6 +132,10 @@ function Card({ sessionId, entryId, userId }: { sessionId: number; entryId: numb
           {c.signatures.map((s) => (
             <li key={s.role}>
               ✍ {s.role === 'archer' ? 'Archer' : 'Scorer'}: {s.name}, {new Date(s.at).toLocaleString()}
+              {s.phoneAt && (
+                <span className="text-base"> (phone time {new Date(s.phoneAt).toLocaleString()})</span>
+              )}
+              {s.onPaper && <span className="block text-base">{s.onPaper}</span>}
             </li>
           ))}
         </ul>

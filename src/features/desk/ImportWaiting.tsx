@@ -23,6 +23,7 @@ export function ImportWaiting({ eventId }: { eventId: number }) {
       });
     },
   });
+  const transcribed = upload.data?.clients.find((c) => c.transcribedBy)?.transcribedBy;
   const totals = upload.data?.clients.reduce(
     (t, c) => ({
       applied: t.applied + c.applied,
@@ -68,6 +69,13 @@ export function ImportWaiting({ eventId }: { eventId: number }) {
                 .join(' ')}`
             : ''}
           .
+        </Notice>
+      )}
+      {transcribed && (
+        <Notice tone="info">
+          Some changes were not signed by the phone that made them (an older app, a phone without a key, or a
+          file changed after saving). They count as your transcription and show "transcribed by judge{' '}
+          {transcribed} from a file"; signatures in them were refused.
         </Notice>
       )}
     </section>

@@ -19,6 +19,7 @@ import { RuleForm } from './RuleForm';
 import { ImportWaiting } from './ImportWaiting';
 import { LateValues } from './LateValues';
 import { TargetGroup } from './TargetGroup';
+import { PaperCountersigns } from './PaperCountersigns';
 import { usePrepareDesk } from './api/prepareDesk';
 
 async function sign(userId: number, items: DeskItem[]) {
@@ -181,6 +182,7 @@ function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: numb
         </ul>
       )}
       <LateValues eventId={eventId} sessionId={sessionId} />
+      <PaperCountersigns eventId={eventId} sessionId={sessionId} />
       <ImportWaiting eventId={eventId} />
       <SyncLine />
     </div>

@@ -40,6 +40,7 @@ export function VerifyScreen() {
           <p className="text-2xl font-bold">
             {result.data.unchanged ? '✓ Unchanged since it was signed' : '▲ Changed after it was signed'}
           </p>
+          <p>{result.data.message}</p>
           <p>
             {result.data.kind === 'card' ? 'Scorecard' : 'End'} of <strong>{result.data.archer}</strong> (
             {result.data.division}), {result.data.event}.
@@ -51,9 +52,23 @@ export function VerifyScreen() {
             </p>
           )}
           <p className="text-base">
-            Signed {new Date(result.data.signedAt).toLocaleString()} by{' '}
+            Signed {new Date(result.data.signedAt).toLocaleString()}
+            {result.data.phoneAt && ` (phone time ${new Date(result.data.phoneAt).toLocaleString()})`} by{' '}
             {result.data.signers.map((s) => `${s.name} (${s.role})`).join(', ')}.
           </p>
+          {result.data.countersigned && <p className="text-base">The archer {result.data.countersigned}.</p>}
+          {result.data.changes && (
+            <div>
+              <h2 className="font-bold">What differs from the card as signed</h2>
+              <ul className="list-disc pl-6">
+                {result.data.changes.map((c) => (
+                  <li key={c.what}>
+                    {c.what}: signed “{c.signed}”, now “{c.now}”
+                  </li>
+                ))}
+              </ul>
+            </div>
+          )}
           {!result.data.unchanged && (
             <p className="font-bold">
               Ask the event's judges: the stored card no longer matches its signature.
