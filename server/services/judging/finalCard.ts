@@ -4,7 +4,6 @@ import type { Mailer } from '../../mail/mailer';
 import { conflict, HttpError } from '../../http/httpError';
 import { nowIso } from '../../time';
 import { reserveMail } from '../limits/mailLimits';
-import { qrPng } from '../joinCodes';
 import { PrintDocument } from '../printouts/pdfDocument';
 import { scorecardPage, type FilledCard } from '../printouts/scorecards';
 import { isFinal, loadCard, type CardData } from './cardData';
