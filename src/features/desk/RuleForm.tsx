@@ -1,5 +1,5 @@
 import { useState, type FormEvent } from 'react';
-import { endRules, sortEnd, type ArrowValue } from '../../core';
+import { endsOfRound, rulesForEnd, sortEnd, type ArrowValue } from '../../core';
 import { messageOf } from '../../api/request';
 import { localDb } from '../../local/db';
 import { recordChange } from '../../local/outbox';
@@ -8,9 +8,29 @@ import { useOnline } from '../../local/online';
 import { Button } from '../../ui/Button';
 import { Field } from '../../ui/Field';
 import { Notice } from '../../ui/Notice';
-import { roundEnds } from '../pad/useEndNavigation';
+import { openFlags } from '../pad/endFlags';
 import type { DeskItem } from './deskItems';
 import { uploadPhoto } from './api/uploadPhoto';
+
+/**
+ * What the form starts from: the values the writers or the caller agree on. Disputed, differing
+ * and flagged arrows stay empty, so the judge decides them rather than confirming one writer.
+ */
+export function startingValues(item: Pick<DeskItem, 'local' | 'view'>, count: number): (ArrowValue | '')[] {
+  const { local, view } = item;
+  const blank = new Set([
+    ...(view.state === 'disputed' ? (local.facts.settlement?.disputed ?? []) : []),
+    ...(view.state === 'mismatch' ? view.check.arrows.filter((a) => !a.same).map((a) => a.index) : []),
+    ...openFlags(local).map((f) => f.index),
+  ]);
+  const decided = view.arrows ?? local.facts.settlement?.arrows;
+  return Array.from({ length: count }, (_, i) => {
+    if (blank.has(i)) return '';
+    if (decided) return decided[i] ?? '';
+    const both = view.check.arrows[i];
+    return both?.same ? (both.first ?? '') : '';
+  });
+}
 
 /** A judge's ruling on one end: every value (any value valid on the face), a reason, and a photo if there is signal. */
 export function RuleForm({
@@ -25,12 +45,9 @@ export function RuleForm({
   onDone: () => void;
 }) {
   const archer = item.target.archers[item.archerIndex]!;
-  const end = roundEnds(archer)[item.endIndex]!;
-  const allowed = endRules(archer.round, end.distanceIndex, archer.bowStyle).allowed;
-  const start = item.view.arrows ?? item.local.slots[1]?.arrows ?? item.local.slots[2]?.arrows ?? [];
-  const [arrows, setArrows] = useState<(ArrowValue | '')[]>(() =>
-    Array.from({ length: end.arrowsPerEnd }, (_, i) => start[i] ?? ''),
-  );
+  const end = endsOfRound(archer.round)[item.endIndex]!;
+  const allowed = rulesForEnd(archer.round, end, archer.bowStyle).allowed;
+  const [arrows, setArrows] = useState<(ArrowValue | '')[]>(() => startingValues(item, end.arrows));
   const [reason, setReason] = useState('');
   const [photo, setPhoto] = useState<File>();
   const [problem, setProblem] = useState<string>();
@@ -39,7 +56,7 @@ export function RuleForm({
 
   const submit = async (e: FormEvent) => {
     e.preventDefault();
-    if (arrows.some((a) => a === '')) return setProblem(`Give a value for all ${end.arrowsPerEnd} arrows.`);
+    if (arrows.some((a) => a === '')) return setProblem(`Give a value for all ${end.arrows} arrows.`);
     if (reason.trim().length < 3) return setProblem('Give a short reason for the ruling.');
     setBusy(true);
     try {

@@ -113,5 +113,9 @@ if (typeof window !== 'undefined') {
  */
 export function useMe(): MeState {
   useEffect(() => void checkMe(), []);
-  return useSyncExternalStore(subscribe, () => state, () => state);
+  return useSyncExternalStore(
+    subscribe,
+    () => state,
+    () => state,
+  );
 }

@@ -13,10 +13,7 @@ export function useCreateEvent() {
     networkMode: 'always',
     onSuccess: async () => {
       // The creator is now an organizer: both the event list and their roles change.
-      await Promise.all([
-        client.invalidateQueries({ queryKey: eventKeys.list }),
-        checkMe(),
-      ]);
+      await Promise.all([client.invalidateQueries({ queryKey: eventKeys.list }), checkMe()]);
     },
   });
 }
