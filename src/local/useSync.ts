@@ -2,6 +2,7 @@ import { useEffect, useSyncExternalStore } from 'react';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { localDb } from './db';
 import { syncLoop, type SyncStatus } from './syncLoop';
+import { summarizeWaiting, type WaitingSummary } from './waitingSummary';
 import { useMe } from '../features/auth/api/me';
 
 export function useSyncStatus(): SyncStatus {
@@ -9,9 +10,15 @@ export function useSyncStatus(): SyncStatus {
   return useSyncExternalStore(loop.subscribe, loop.getStatus, loop.getStatus);
 }
 
-/** Changes on this phone not yet accepted by the server (all people who used this phone). */
-export function useWaitingCount(): number {
-  return useLiveQuery(() => localDb().outbox.where('status').equals('pending').count(), [], 0);
+const NOTHING_WAITING: WaitingSummary = { changes: 0, ends: 0, signatures: 0 };
+
+/** Changes on this phone not yet accepted by the server (all people who used this phone), as ends and signatures. */
+export function useWaiting(): WaitingSummary {
+  return useLiveQuery(
+    async () => summarizeWaiting(await localDb().outbox.where('status').equals('pending').toArray()),
+    [],
+    NOTHING_WAITING,
+  );
 }
 
 /** Refused changes the person has not looked at yet. */

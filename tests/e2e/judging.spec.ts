@@ -116,7 +116,7 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   await expect(judge.getByTestId(`desk-dispute-${TARGET}A-1`)).toBeVisible({ timeout: 30_000 });
   await judge.context().setOffline(true);
   await judge.getByRole('button', { name: /Sign all 47 ready ends/ }).click();
-  await expect(judge.getByTestId('waiting-count')).toContainText('47 waiting');
+  await expect(judge.getByTestId('waiting-count')).toContainText('47 signatures waiting');
   await judge.screenshot({ path: '.tmp/screens/desk-offline.png', fullPage: true });
 
   // Back online: the signatures go, and the ruling with a photo follows.

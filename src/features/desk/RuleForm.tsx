@@ -8,29 +8,8 @@ import { useOnline } from '../../local/online';
 import { Button } from '../../ui/Button';
 import { Field } from '../../ui/Field';
 import { Notice } from '../../ui/Notice';
-import { openFlags } from '../pad/endFlags';
-import type { DeskItem } from './deskItems';
+import { startingValues, type DeskItem } from './deskItems';
 import { uploadPhoto } from './api/uploadPhoto';
-
-/**
- * What the form starts from: the values the writers or the caller agree on. Disputed, differing
- * and flagged arrows stay empty, so the judge decides them rather than confirming one writer.
- */
-export function startingValues(item: Pick<DeskItem, 'local' | 'view'>, count: number): (ArrowValue | '')[] {
-  const { local, view } = item;
-  const blank = new Set([
-    ...(view.state === 'disputed' ? (local.facts.settlement?.disputed ?? []) : []),
-    ...(view.state === 'mismatch' ? view.check.arrows.filter((a) => !a.same).map((a) => a.index) : []),
-    ...openFlags(local).map((f) => f.index),
-  ]);
-  const decided = view.arrows ?? local.facts.settlement?.arrows;
-  return Array.from({ length: count }, (_, i) => {
-    if (blank.has(i)) return '';
-    if (decided) return decided[i] ?? '';
-    const both = view.check.arrows[i];
-    return both?.same ? (both.first ?? '') : '';
-  });
-}
 
 /** A judge's ruling on one end: every value (any value valid on the face), a reason, and a photo if there is signal. */
 export function RuleForm({

@@ -1,4 +1,4 @@
-import { endView, endsOfRound, type EndView } from '../../core';
+import { endView, endsOfRound, type ArrowValue, type EndView } from '../../core';
 import type { JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
 import { flagWords, openFlags } from '../pad/endFlags';
@@ -71,4 +71,24 @@ export function deskItems(
       a.target.targetNumber - b.target.targetNumber ||
       a.archerIndex - b.archerIndex,
   );
+}
+
+/**
+ * What the form starts from: the values the writers or the caller agree on. Disputed, differing
+ * and flagged arrows stay empty, so the judge decides them rather than confirming one writer.
+ */
+export function startingValues(item: Pick<DeskItem, 'local' | 'view'>, count: number): (ArrowValue | '')[] {
+  const { local, view } = item;
+  const blank = new Set([
+    ...(view.state === 'disputed' ? (local.facts.settlement?.disputed ?? []) : []),
+    ...(view.state === 'mismatch' ? view.check.arrows.filter((a) => !a.same).map((a) => a.index) : []),
+    ...openFlags(local).map((f) => f.index),
+  ]);
+  const decided = view.arrows ?? local.facts.settlement?.arrows;
+  return Array.from({ length: count }, (_, i) => {
+    if (blank.has(i)) return '';
+    if (decided) return decided[i] ?? '';
+    const both = view.check.arrows[i];
+    return both?.same ? (both.first ?? '') : '';
+  });
 }

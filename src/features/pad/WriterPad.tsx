@@ -126,17 +126,17 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
     syncLoop().afterChange();
   };
 
-  const onValue = (value: ArrowValue) => {
+  const onValues = (values: ArrowValue[]) => {
     if (!rules || lock) return;
-    if (mine.arrows.length >= rules.arrowsPerEnd) {
+    const room = rules.arrowsPerEnd - mine.arrows.length;
+    if (room < values.length) {
       setNotice({
         tone: 'info',
         text: `All ${rules.arrowsPerEnd} arrows are in. Tap an arrow to change or remove it.`,
       });
-      return;
-    }
-    setNotice(undefined);
-    const next = addArrow(mine, value);
+      if (room <= 0) return;
+    } else setNotice(undefined);
+    const next = values.slice(0, room).reduce(addArrow, mine);
     void write(next, mine);
     // A full end moves on to the next archer whose end is not complete yet.
     if (next.arrows.length === rules.arrowsPerEnd) {
@@ -251,7 +251,7 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
       ) : (
         <ArrowKeypad
           allowed={rules.allowed}
-          onValue={onValue}
+          onValues={onValues}
           onUndo={onUndo}
           canUndo={(undo[key]?.length ?? 0) > 0}
         />
