@@ -148,6 +148,10 @@ test('a flag reaches the caller and stops the pull; a ruling reaches both pads w
 
   for (const page of [writer1, writer2]) {
     await page.reload();
+    // Once the ruling is on the phone, end 1 needs no one and the pad opens on end 2.
+    await expect(page.getByTestId('end-number')).toContainText(/End [12] /);
+    if ((await page.getByTestId('end-number').textContent())?.startsWith('End 2 '))
+      await page.getByRole('button', { name: 'Previous end' }).click();
     await page.getByRole('tab', { name: /^A/ }).click();
     await expect(page.getByTestId('end-state')).toContainText('Ruled by a judge', { timeout: 30_000 });
     await expect(page.getByTestId('end-total')).toHaveText('50');

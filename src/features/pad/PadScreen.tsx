@@ -28,6 +28,8 @@ function firstOpenEnd(target: JoinedTarget, ends: Map<string, LocalEnd>): number
       const perEnd = endsOfRound(a.round)[endIndex]?.arrows ?? 0;
       if (slot && (local?.slots[slot]?.arrows.length ?? 0) < perEnd) return true;
       const state = local ? endView(local.facts).state : 'open';
+      // A flagged arrow still needs the target's attention (and a judge), even on agreed cards.
+      if (openFlags(local).length > 0) return true;
       return state !== 'agreed' && state !== 'settled' && state !== 'signed';
     });
     if (unfinished) return endIndex;
