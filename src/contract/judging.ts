@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { ArrowValue, EndState } from '../core';
+import type { ArrowValue, EndState, ValuesBefore } from '../core';
 import { arrowValueSchema } from './arrowValueSchema';
 
 /**
@@ -53,6 +53,8 @@ export type RulingDto = {
   reason: string;
   photoId: number | null;
   judgedBy: number;
+  /** The judge's name, as the pads, the desk and the card show the ruling. */
+  judgedByName: string;
   judgedAt: string;
 };
 
@@ -110,6 +112,17 @@ export type JudgeDeskItem = {
   arrows?: ArrowValue[];
 };
 
+/** One ruling on an end as people read it afterwards: who, when, why, the values before and after. */
+export type RulingStepView = {
+  judgedByName: string;
+  judgedAt: string;
+  reason: string;
+  /** A photo of the target, shown to the target's group, the archer and the event's staff. */
+  photoId: number | null;
+  arrows: ArrowValue[];
+  before: ValuesBefore;
+};
+
 /** `GET /api/cards/:sessionId/:entryId`: an archer's whole card as it stands. */
 export type CardState = 'running' | 'countersigned' | 'final';
 
@@ -137,6 +150,8 @@ export type CardView = {
     signedAt?: string;
     /** A judge transcribed a record of this end from a file no phone signed (shown "transcribed by … from a file"). */
     transcribedBy?: string;
+    /** Every ruling on the end, oldest first. */
+    rulings: RulingStepView[];
   }[];
   /** Over the ends with decided values (all of them once every end is signed). */
   totals: { total: number; tens: number; xs: number; hits: number };

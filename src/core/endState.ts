@@ -85,3 +85,33 @@ export function endView(facts: EndFacts): EndView {
     canSign: (view.state === 'agreed' || view.state === 'settled') && openIncidents === 0,
   };
 }
+
+/** What an end said before a ruling: decided values (and by whom), or each writer's card. */
+export type ValuesBefore =
+  | { by: 'writers' | 'caller' | 'judge'; arrows: ArrowValue[] }
+  | { by: 'cards'; first?: ArrowValue[] | undefined; second?: ArrowValue[] | undefined };
+
+/**
+ * Each ruling on an end with the values it replaced: the first replaced what the writers or the
+ * caller decided (or, when nothing was decided, the two cards), each later one the ruling before.
+ * `rulings` are oldest first; the signature is left out, as a ruling is what replaces it.
+ */
+export function rulingSteps<R extends { arrows: readonly ArrowValue[] }>(
+  facts: EndFacts,
+  rulings: readonly R[],
+): { ruling: R; before: ValuesBefore }[] {
+  const unjudged = endView({ ...facts, ruling: undefined, signedArrows: undefined });
+  let before: ValuesBefore =
+    unjudged.arrows && unjudged.decidedBy
+      ? { by: unjudged.decidedBy, arrows: unjudged.arrows }
+      : {
+          by: 'cards',
+          first: facts.first && [...facts.first.arrows],
+          second: facts.second && [...facts.second.arrows],
+        };
+  return rulings.map((ruling) => {
+    const step = { ruling, before };
+    before = { by: 'judge', arrows: sortEnd(ruling.arrows) };
+    return step;
+  });
+}

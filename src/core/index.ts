@@ -42,6 +42,8 @@ export type { RoundDefinition, RoundDistance, RoundEnd } from './rounds';
 export { countingArrows, endTotal, sortEnd, sortEndWithMarks, validateEnd } from './ends';
 export type { EndCheck, EndRules } from './ends';
 export { endRules } from './endRules';
+export { rulesForEnd, writerLock } from './endLock';
+export type { WriterLock } from './endLock';
 
 export { cardTotals } from './card';
 export type { CardEnd, CardTotals, DistanceTally, Tally } from './card';
@@ -58,5 +60,5 @@ export type { Placing, RankInput } from './ranking';
 export { canonicalJson } from './canonicalJson';
 export { cleanText } from './cleanText';
 
-export { endView, settlementApplies } from './endState';
-export type { EndFacts, EndState, EndView, Settlement, WriterRecord } from './endState';
+export { endView, rulingSteps, settlementApplies } from './endState';
+export type { EndFacts, EndState, EndView, Settlement, ValuesBefore, WriterRecord } from './endState';

@@ -1,6 +1,6 @@
 import type { ArrowFlag, EndSettleArgs, EndWriteArgs, WriterSlot } from '../contract/sync';
 import type { EndRuleArgs, EndSignArgs } from '../contract/judging';
-import type { EndFacts } from '../core';
+import { rulingSteps, type EndFacts, type ValuesBefore } from '../core';
 import type { EndRecordRow, EndSignatureRow, OutboxRow, RulingRow, SettlementRow } from './db';
 
 export type SlotView = {
@@ -11,12 +11,24 @@ export type SlotView = {
   pending: boolean;
 };
 
+/** A judge's ruling as the phones show it ("you" and this phone's time while it waits to sync). */
+export type LocalRuling = {
+  arrows: RulingRow['arrows'];
+  reason: string;
+  judgedByName: string;
+  judgedAt: string;
+  photoId: number | null;
+  pending: boolean;
+};
+
 export type LocalEnd = {
   facts: EndFacts;
   slots: Partial<Record<WriterSlot, SlotView>>;
   settlementPending: boolean;
   /** The judge's latest ruling and the end's current signature, as this phone knows them. */
-  ruling?: { arrows: RulingRow['arrows']; reason: string; pending: boolean } | undefined;
+  ruling?: LocalRuling | undefined;
+  /** Every ruling, oldest first, with the values it replaced. */
+  rulings: { ruling: LocalRuling; before: ValuesBefore }[];
   signature?: { signedByName: string; signedAt: string; pending: boolean } | undefined;
 };
 
@@ -40,12 +52,16 @@ export function localEnd(
     ? { arrows: settlement.arrows, disputed: settlement.disputed, basis: settlement.basis }
     : undefined;
   let settlementPending = false;
-  const latestRuling = [...(judged.rulings ?? [])].sort((a, b) => b.id - a.id)[0];
-  let ruling: LocalEnd['ruling'] = latestRuling && {
-    arrows: latestRuling.arrows,
-    reason: latestRuling.reason,
-    pending: false,
-  };
+  const rulings: LocalRuling[] = [...(judged.rulings ?? [])]
+    .sort((a, b) => a.id - b.id)
+    .map((r) => ({
+      arrows: r.arrows,
+      reason: r.reason,
+      judgedByName: r.judgedByName,
+      judgedAt: r.judgedAt,
+      photoId: r.photoId,
+      pending: false,
+    }));
   const current = (judged.signatures ?? []).find((s) => !s.supersededAt);
   let signature: LocalEnd['signature'] = current && {
     signedByName: current.signedByName,
@@ -71,7 +87,14 @@ export function localEnd(
       settlementPending = true;
     } else if (row.kind === 'end.rule') {
       const args = row.args as EndRuleArgs;
-      ruling = { arrows: args.arrows, reason: args.reason, pending: true };
+      rulings.push({
+        arrows: args.arrows,
+        reason: args.reason,
+        judgedByName: 'you',
+        judgedAt: row.at,
+        photoId: args.photoId ?? null,
+        pending: true,
+      });
       // A ruling is the correction of a signed end: the old signature no longer speaks for it.
       signature = undefined;
       signedArrows = undefined;
@@ -83,17 +106,13 @@ export function localEnd(
   }
   const asRecord = (s: SlotView | undefined) =>
     s ? { arrows: s.arrows, revision: s.revision, flags: s.flags } : undefined;
-  return {
-    facts: {
-      first: asRecord(slots[1]),
-      second: asRecord(slots[2]),
-      settlement: settled,
-      ruling: ruling && { arrows: ruling.arrows },
-      signedArrows,
-    },
-    slots,
-    settlementPending,
-    ruling,
-    signature,
+  const ruling = rulings[rulings.length - 1];
+  const facts: EndFacts = {
+    first: asRecord(slots[1]),
+    second: asRecord(slots[2]),
+    settlement: settled,
+    ruling: ruling && { arrows: ruling.arrows },
+    signedArrows,
   };
+  return { facts, slots, settlementPending, ruling, rulings: rulingSteps(facts, rulings), signature };
 }

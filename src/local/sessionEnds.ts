@@ -1,4 +1,5 @@
 import type { Table } from 'dexie';
+import { endsOfRound } from '../core';
 import { cardKeyOf, endKeyOf, type LocalDb, type OutboxRow, type OutboxStatus } from './db';
 import { localEnd, type LocalEnd } from './endFacts';
 import type { JoinedTarget } from './db';
@@ -22,10 +23,9 @@ export async function loadSessionEnds(
 ): Promise<{ ends: Map<string, LocalEnd>; rejected: OutboxRow[]; held: OutboxRow[] }> {
   // Only these targets' ends are read: a writer's pad must not slow down as the whole field fills up.
   const endKeys = targets.flatMap((target) =>
-    target.archers.flatMap((archer) => {
-      const endCount = archer.round.distances.reduce((n, d) => n + d.arrows / d.arrowsPerEnd, 0);
-      return Array.from({ length: endCount }, (_, endIndex) => endKeyOf(sessionId, archer.entryId, endIndex));
-    }),
+    target.archers.flatMap((archer) =>
+      endsOfRound(archer.round).map((end) => endKeyOf(sessionId, archer.entryId, end.index)),
+    ),
   );
   const wanted = new Set(endKeys);
   // One range per archer ("session:entry:" prefix), read whole: a cursor hopping between many

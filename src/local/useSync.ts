@@ -1,8 +1,8 @@
 import { useEffect, useSyncExternalStore } from 'react';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { localDb } from './db';
-import { waitingCount } from './outbox';
 import { syncLoop, type SyncStatus } from './syncLoop';
+import { summarizeWaiting, type WaitingSummary } from './waitingSummary';
 import { useMe } from '../features/auth/api/me';
 import { usePhoneOwner } from './phoneOwner';
 
@@ -11,13 +11,28 @@ export function useSyncStatus(): SyncStatus {
   return useSyncExternalStore(loop.subscribe, loop.getStatus, loop.getStatus);
 }
 
+const NOTHING_WAITING: WaitingSummary = { changes: 0, ends: 0, signatures: 0 };
+
 /**
- * The changes of the person whose data this phone holds that the server has not accepted yet.
- * Another person's waiting changes stay on the phone but are never counted or shown here.
+ * The changes of the person whose data this phone holds that the server has not accepted yet, as
+ * ends and signatures. Another person's waiting changes stay on the phone but are never counted here.
  */
-export function useWaitingCount(): number {
+export function useWaiting(): WaitingSummary {
   const owner = usePhoneOwner();
-  return useLiveQuery(() => (owner === undefined ? 0 : waitingCount(localDb(), owner)), [owner], 0);
+  return useLiveQuery(
+    async () =>
+      owner === undefined
+        ? NOTHING_WAITING
+        : summarizeWaiting(
+            await localDb()
+              .outbox.where('status')
+              .equals('pending')
+              .filter((r) => r.userId === owner)
+              .toArray(),
+          ),
+    [owner],
+    NOTHING_WAITING,
+  );
 }
 
 /** Connects the sync loop to whoever is signed in. */

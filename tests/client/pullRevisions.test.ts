@@ -41,7 +41,8 @@ function pages(...all: ChangeDto[][]): SyncTransport {
   };
 }
 
-const storedArrows = async (db: LocalDb) => (await db.endRecords.toArray()).map((r) => [r.revision, r.arrows]);
+const storedArrows = async (db: LocalDb) =>
+  (await db.endRecords.toArray()).map((r) => [r.revision, r.arrows]);
 
 describe('pulled writer records', () => {
   it('keep the newest revision when one pull carries an older one after it', async () => {

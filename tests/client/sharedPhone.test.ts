@@ -96,6 +96,7 @@ async function phoneUsedByTwo(db: LocalDb) {
     reason: 'Line call',
     photoId: null,
     judgedBy: 7,
+    judgedByName: 'Field Judge',
     judgedAt: '2026-12-02T09:00:00.000Z',
   });
   await db.meta.bulkPut([

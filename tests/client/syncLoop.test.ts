@@ -31,7 +31,9 @@ function recordingTransport() {
     push: async (body) => {
       pushes.push(body);
       const results = body.mutations.map((m) => ({ seq: m.seq, id: m.id, status: 'applied' as const }));
-      return { results, lastSeq: body.mutations.at(-1)?.seq ?? 0 } as Awaited<ReturnType<SyncTransport['push']>>;
+      return { results, lastSeq: body.mutations.at(-1)?.seq ?? 0 } as Awaited<
+        ReturnType<SyncTransport['push']>
+      >;
     },
     pull: async (cursor) => ({ changes: [], cursor, hasMore: false }),
   };

@@ -66,7 +66,7 @@ test('two writers score an end offline, the cross-check finds the one difference
     // Writer 2 mishears B's third arrow: 8 instead of 9.
     await enterEnd(writer2, position, position === 'B' ? ['10', '9', '8', '8', '7', '6'] : CALLED[position]!);
   }
-  await expect(writer1.getByTestId('waiting-count')).toHaveText('· 24 waiting');
+  await expect(writer1.getByTestId('waiting-count')).toHaveText('· 4 ends waiting');
   await checkA11y(writer1);
   await writer1.screenshot({ path: '.tmp/screens/pad-offline.png', fullPage: true });
 

@@ -119,7 +119,9 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   await judge.context().setOffline(true);
   await judge.getByRole('button', { name: /Sign all 47 ready ends/ }).click();
   // 47 signatures are stored one after another: give a busy machine time.
-  await expect(judge.getByTestId('waiting-count')).toContainText('47 waiting', { timeout: 30_000 });
+  await expect(judge.getByTestId('waiting-count')).toContainText('47 signatures waiting', {
+    timeout: 30_000,
+  });
   await checkA11y(judge);
   await judge.screenshot({ path: '.tmp/screens/desk-offline.png', fullPage: true });
 

@@ -157,7 +157,7 @@ describe('photos', () => {
       .set(person.auth)
       .attach('photo', bytes, { filename: name, contentType: 'image/png' });
 
-  it('keeps an image by its hash, once, and serves it to judges and organizers only', async () => {
+  it('keeps an image by its hash, once, and serves it to judges and organizers, and to those its ruling is shown to', async () => {
     const res = await upload();
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     const { photoId, sha256 } = res.body as PhotoUploadResult;
@@ -191,7 +191,7 @@ describe('photos', () => {
     for (const person of [j.people.ada, j.people.writer1, j.people.stranger]) {
       const refused = await request(server.app).get(`/api/photos/${photoId}`).set(person.auth);
       expect(refused.status).toBe(403);
-      expect(refused.body.error.message).toBe("Only the event's judges and organizers can see its photos.");
+      expect(refused.body.error.message).toMatch(/^Only the event's judges and organizers/);
     }
     expect((await request(server.app).get(`/api/photos/${photoId}`)).status).toBe(401);
     // Not reachable as a file of the web app either.
@@ -213,6 +213,28 @@ describe('photos', () => {
       ),
     ]);
     expect(await server.db('end_rulings').where({ photo_id: photoId })).toHaveLength(1);
+    // Once a ruling shows it, the ruled archer's target group and the archer see it; others still do not.
+    for (const person of [j.people.writer1, j.people.caller, j.people.ada])
+      expect((await request(server.app).get(`/api/photos/${photoId}`).set(person.auth)).status).toBe(200);
+    expect((await request(server.app).get(`/api/photos/${photoId}`).set(j.people.stranger.auth)).status).toBe(
+      403,
+    );
+    // The card shows the ruling: who, when, why, the photo, and the two cards it decided between.
+    const card = (
+      await request(server.app).get(`/api/cards/${j.sessionId}/${j.ada.entryId}`).set(j.people.ada.auth)
+    ).body as CardView;
+    expect(card.ends[5]!.rulings).toEqual([
+      {
+        judgedByName: expect.any(String),
+        judgedAt: expect.any(String),
+        reason: 'Photo shows arrow 6 touching the line',
+        photoId,
+        arrows: SIX,
+        before: { by: 'cards', first: SIX, second: ['X', '10', '9', '9', '8', '6'] },
+      },
+    ]);
+    expect(card.ends[5]!.rulings[0]!.judgedByName).not.toBe('');
+    expect(card.ends[4]!.rulings).toEqual([]);
     expectRejected(
       await pushOne(
         j.phones.judge,

@@ -380,13 +380,15 @@ async function judgedMorning() {
       ),
     ]);
     expectApplied([
-      await pushOne(j.phones.judge, j.phones.judge.rule({ ...at(e), arrows: SIX, reason: 'Looked at the holes' })),
+      await pushOne(
+        j.phones.judge,
+        j.phones.judge.rule({ ...at(e), arrows: SIX, reason: 'Looked at the holes' }),
+      ),
     ]);
   }
 }
 
 describe('countersigning the card', () => {
-
   it('is refused while ends are unsigned, with the ends named', async () => {
     await agreeEnds(j, ada(), twelveEnds());
     expectApplied(await signEnds(server, j, ada(), [0, 1, 2, 3, 4, 5, 6, 7, 8]));

@@ -1,10 +1,17 @@
-import { cardTotals, endView, endsOfRound, roundMaxScore, type RoundDefinition } from '../../../src/core';
+import {
+  cardTotals,
+  endView,
+  endsOfRound,
+  roundMaxScore,
+  rulingSteps,
+  type RoundDefinition,
+} from '../../../src/core';
 import type { Position } from '../../../src/contract/events';
 import type { CardState, CardView, SessionCardItem, SessionCards } from '../../../src/contract/judging';
 import type { Db } from '../../db';
 import type { SessionRow } from '../sessions';
 import { isFinal, type CardData, type cardRelation } from './cardData';
-import { loadEndRecords } from './endRecords';
+import { endFactsOf, loadEndRecords } from './endRecords';
 
 type Relation = Awaited<ReturnType<typeof cardRelation>>;
 
@@ -73,6 +80,14 @@ export function cardView(card: CardData, relation: Relation): CardView {
         runningTotal: tallied.runningTotal ?? null,
         ...(signature ? { signedBy: signature.signedByName, signedAt: signature.signedAt } : {}),
         ...(e.stored.transcribedBy ? { transcribedBy: e.stored.transcribedBy } : {}),
+        rulings: rulingSteps(endFactsOf(e.stored), e.stored.rulings ?? []).map(({ ruling, before }) => ({
+          judgedByName: ruling.judgedByName,
+          judgedAt: ruling.judgedAt,
+          reason: ruling.reason,
+          photoId: ruling.photoId,
+          arrows: ruling.arrows,
+          before,
+        })),
       };
     }),
     totals: { total: totals.total, tens: totals.tens, xs: totals.xs, hits: totals.hits },

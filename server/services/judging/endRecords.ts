@@ -12,12 +12,16 @@ import {
   type SettlementRow,
 } from '../sync/fieldRows';
 
-/** Everything stored about one end: the writers' records, the settlement, the latest ruling, the current signature. */
+/**
+ * Everything stored about one end: the writers' records, the settlement, the latest ruling (and
+ * every ruling, oldest first, for the card's history), the current signature.
+ */
 export type StoredEnd = {
   first?: EndEntryRow | undefined;
   second?: EndEntryRow | undefined;
   settlement?: SettlementRow | undefined;
   ruling?: RulingDto | undefined;
+  rulings?: RulingDto[] | undefined;
   signature?: EndSignatureDto | undefined;
   /** The judge who transcribed a writer's or the caller's record of it from a file no phone signed. */
   transcribedBy?: string;
@@ -89,8 +93,17 @@ export async function loadEndRecords(
     at(r.entry_id, r.end_index)[r.slot === 1 ? 'first' : 'second'] = r;
   for (const s of (await of('end_settlements').select(SETTLEMENT_COLUMNS)) as SettlementRow[])
     at(s.entry_id, s.end_index).settlement = s;
-  const rulings = (await of('end_rulings').orderBy('id').select('*')) as (RulingRow & { id: number })[];
-  for (const { id, ...row } of rulings) at(row.entry_id, row.end_index).ruling = toRuling(id, row);
+  const rulings = (await db('end_rulings as t')
+    .join('users as u', 'u.id', 't.judged_by')
+    .where('t.session_id', sessionId)
+    .whereIn('t.entry_id', entryIds)
+    .orderBy('t.id')
+    .select('t.*', 'u.display_name')) as (RulingRow & { id: number; display_name: string })[];
+  for (const { id, display_name, ...row } of rulings) {
+    const end = at(row.entry_id, row.end_index);
+    end.ruling = toRuling(id, row, display_name);
+    end.rulings = [...(end.rulings ?? []), end.ruling];
+  }
   const signatures = (await db('end_signatures as t')
     .join('users as u', 'u.id', 't.signed_by')
     .where('t.session_id', sessionId)

@@ -68,7 +68,28 @@ function writeOnce(file: string, bytes: Buffer): void {
   renameSync(partial, file);
 }
 
-/** A photo's bytes, for the judges and organizers of its event only. */
+/**
+ * Whether the person may see a photo a judge attached to a ruling: a member of the group of the
+ * target the ruled archer shoots on (every phone of the target shows the ruling), or the archer.
+ */
+async function seesRuling(db: Db, userId: number, photoId: number): Promise<boolean> {
+  const found = await db('end_rulings as r')
+    .join('target_assignments as ta', function () {
+      this.on('ta.session_id', 'r.session_id').andOn('ta.entry_id', 'r.entry_id');
+    })
+    .join('entries as e', 'e.id', 'r.entry_id')
+    .leftJoin('target_members as tm', function () {
+      this.on('tm.session_id', 'ta.session_id')
+        .andOn('tm.target_number', 'ta.target_number')
+        .andOn('tm.user_id', db.raw('?', [userId]));
+    })
+    .where('r.photo_id', photoId)
+    .where((who) => who.whereNotNull('tm.id').orWhere('e.user_id', userId))
+    .first('r.id');
+  return !!found;
+}
+
+/** A photo's bytes, for the judges and organizers of its event, and those who see its ruling. */
 export async function readPhoto(
   db: Db,
   dataDir: string,
@@ -81,7 +102,10 @@ export async function readPhoto(
     .where({ event_id: photo.event_id, user_id: userId })
     .whereIn('role', ['organizer', 'judge'])
     .first('id');
-  if (!staff) throw forbidden("Only the event's judges and organizers can see its photos.");
+  if (!staff && !(await seesRuling(db, userId, photoId)))
+    throw forbidden(
+      "Only the event's judges and organizers, and the ruled archer's target, can see this photo.",
+    );
   try {
     return {
       mime: photo.mime_type,

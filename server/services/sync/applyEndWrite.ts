@@ -2,7 +2,7 @@ import type { EndWriteArgs } from '../../../src/contract/sync';
 import { nextEndEntry, transcriptionLabel, type Author } from './effects';
 import type { FieldBatch } from './fieldBatch';
 import { toEndRecord } from './fieldRows';
-import { Refusal, checkArrows, checkEnd, refuseIfJudged } from './fieldRules';
+import { Refusal, checkArrows, checkEnd, refuseIfLocked } from './fieldRules';
 
 /**
  * A writer's record of one archer's end. Writer 1 keeps slot 1 and writer 2 slot 2, each its own
@@ -20,7 +20,7 @@ export function applyEndWrite(batch: FieldBatch, args: EndWriteArgs, by: Author)
     args.slot === 1 ? 'writer1' : 'writer2',
     `write the ${card} card`,
   );
-  refuseIfJudged(batch, checked, args.endIndex);
+  refuseIfLocked(batch, checked, args.endIndex);
   checkArrows(checked, args.arrows, true);
   for (const { index, flag } of args.flags) {
     if (index >= args.arrows.length) {

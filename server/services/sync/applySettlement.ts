@@ -3,7 +3,7 @@ import type { EndSettleArgs } from '../../../src/contract/sync';
 import { settlementRow, transcriptionLabel, type Author } from './effects';
 import type { FieldBatch } from './fieldBatch';
 import { toSettlement } from './fieldRows';
-import { Refusal, checkArrows, checkEnd, refuseIfJudged } from './fieldRules';
+import { Refusal, checkArrows, checkEnd, refuseIfLocked } from './fieldRules';
 
 export const STALE_BASIS_REASON = 'A writer changed this end after you looked at it. Check the end again.';
 
@@ -16,7 +16,7 @@ export const STALE_BASIS_REASON = 'A writer changed this end after you looked at
  */
 export function applySettlement(batch: FieldBatch, args: EndSettleArgs, by: Author): void {
   const checked = checkEnd(batch, args, by.userId, 'caller', 'settle an end');
-  refuseIfJudged(batch, checked, args.endIndex);
+  refuseIfLocked(batch, checked, args.endIndex);
   const { endLabel } = checked;
 
   const first = batch.record(args.sessionId, args.entryId, args.endIndex, 1);

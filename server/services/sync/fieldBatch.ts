@@ -160,14 +160,15 @@ export class FieldBatch {
       .select(SETTLEMENT_COLUMNS.map((c) => `t.${c}`))) as SettlementRow[];
     for (const r of settlements) this.settlements.set(endKey(r.session_id, r.entry_id, r.end_index), r);
     const rulings = (await ofCards('end_rulings')
+      .join('users as u', 'u.id', 't.judged_by')
       .whereIn('t.end_index', ids.endIndexes)
       .orderBy('t.id')
-      .select('t.*')) as (RulingRow & { id: number })[];
-    for (const { id, ...row } of rulings)
+      .select('t.*', 'u.display_name')) as (RulingRow & { id: number; display_name: string })[];
+    for (const { id, display_name, ...row } of rulings)
       this.rulings.set(endKey(row.session_id, row.entry_id, row.end_index), {
         id,
         row,
-        dto: toRuling(id, row),
+        dto: toRuling(id, row, display_name),
       });
     const signatures = (await ofCards('end_signatures')
       .join('users as u', 'u.id', 't.signed_by')
@@ -308,7 +309,7 @@ export class FieldBatch {
    * the card's signatures are marked superseded by it (their rows stay, as history).
    */
   putRuling(placement: Placement, row: RulingRow): void {
-    const held: RulingHeld = { id: undefined, row, dto: toRuling(0, row) };
+    const held: RulingHeld = { id: undefined, row, dto: toRuling(0, row, this.nameOf(row.judged_by)) };
     const key = endKey(row.session_id, row.entry_id, row.end_index);
     this.rulings.set(key, held);
     this.ops.push({ op: 'insert', table: 'end_rulings', held });

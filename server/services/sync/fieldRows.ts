@@ -140,7 +140,7 @@ export type CardSignatureRow = {
   superseded_by_ruling: number | null;
 };
 
-export const toRuling = (id: number, row: RulingRow): RulingDto => ({
+export const toRuling = (id: number, row: RulingRow, judgedByName: string): RulingDto => ({
   id,
   sessionId: row.session_id,
   entryId: row.entry_id,
@@ -149,6 +149,7 @@ export const toRuling = (id: number, row: RulingRow): RulingDto => ({
   reason: row.reason,
   photoId: row.photo_id,
   judgedBy: row.judged_by,
+  judgedByName,
   judgedAt: row.judged_at,
 });
 

@@ -1,6 +1,7 @@
 import {
-  endRules,
+  rulesForEnd,
   validateEnd,
+  writerLock,
   type ArrowValue,
   type RoundDefinition,
   type RoundEnd,
@@ -75,7 +76,8 @@ function endOf(placement: Placement, endIndex: number): CheckedEnd {
 /**
  * The checks every writer's and caller's mutation shares: the session exists, the archer is on a
  * target in it, the person `userId` keeps `task` on that target, and the end is one of the
- * archer's round. When the session is closed, the change is then held for a judge (LateArrival).
+ * archer's round. When the session is closed, the change is then held for a judge (LateArrival);
+ * whether the end may still change is `refuseIfLocked`.
  */
 export function checkEnd(
   batch: FieldBatch,
@@ -86,7 +88,6 @@ export function checkEnd(
 ): CheckedEnd {
   const placement = findPlacement(batch, where);
   const { targetNumber: target } = placement;
-
   const held = placement.tasks.get(userId);
   if (!held)
     refuse(`You are not in the group of target ${target}. Join it with the code on the target sheet.`);
@@ -116,22 +117,35 @@ export function checkJudgeEnd(
 }
 
 /**
- * A writer's or caller's change to an end a judge has already decided is refused: once signed
- * the end is fixed, and once ruled only a judge changes its values (WA Book 3).
+ * A writer's or caller's change to an end they may no longer change is refused (core
+ * `writerLock`, the pad's own lock): once signed the end is fixed, once ruled only a judge
+ * changes its values (WA Book 3), and a closed session's ends no longer change (a writer's value
+ * that arrives after closing is held for a judge by `checkEnd` before this is asked).
  */
-export function refuseIfJudged(batch: FieldBatch, checked: CheckedEnd, endIndex: number): void {
+export function refuseIfLocked(batch: FieldBatch, checked: CheckedEnd, endIndex: number): void {
   const { placement, endLabel } = checked;
   const judged = batch.judged(placement.session.id, placement.entryId, endIndex);
-  if (judged === 'signed') refuse(`${endLabel} is signed. Ask a judge to correct it.`);
-  if (judged === 'ruled')
+  const lock = writerLock({
+    signed: judged === 'signed',
+    ruled: judged === 'ruled',
+    // A late value a judge accepts is applied as if the session were still open (lateValues.ts).
+    sessionClosed: placement.session.closed && !batch.acceptingLate,
+  });
+  if (lock === 'signed') refuse(`${endLabel} is signed. Ask a judge to correct it.`);
+  if (lock === 'ruled')
     refuse(`A judge has ruled on ${endLabel.replace(/^End/, 'end')}. Only a judge can change it now.`);
+  if (lock === 'closed')
+    refuse(
+      `The session "${placement.session.name}" is closed, so its ends can no longer change. Ask a judge.`,
+    );
 }
 
 /** Checks arrow values against the archer's face, bow style and venue (core rules, as on the phone). */
 export function checkArrows(checked: CheckedEnd, arrows: readonly ArrowValue[], allowPartial: boolean): void {
   const { placement, end, endLabel } = checked;
-  const rules = endRules(placement.round!, end.distanceIndex, placement.bowStyle, { allowPartial });
-  // A hand-built round's last end of a distance can be shorter than its arrows per end.
-  const result = validateEnd(arrows, { ...rules, arrowsPerEnd: end.arrows });
+  const result = validateEnd(
+    arrows,
+    rulesForEnd(placement.round!, end, placement.bowStyle, { allowPartial }),
+  );
   if (!result.ok) refuse(`${endLabel}: ${result.problems.join(' ')}`);
 }

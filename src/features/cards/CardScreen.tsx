@@ -1,6 +1,7 @@
+import { Fragment } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useLiveQuery } from 'dexie-react-hooks';
-import type { CardView } from '../../contract/judging';
+import type { CardSignArgs, CardView } from '../../contract/judging';
 import { cardKeyOf, localDb } from '../../local/db';
 import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
@@ -8,6 +9,7 @@ import { useLocalSave } from '../../local/useLocalSave';
 import { RequireSignIn } from '../auth/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
+import { RulingHistory } from '../../ui/scorecard/RulingHistory';
 import { END_STATE_LABELS } from '../pad/endStateLabel';
 import { SyncLine } from '../pad/SyncLine';
 import { useCard } from './api/card';
@@ -19,26 +21,41 @@ const CARD_STATE_WORDS: Record<CardView['state'], string> = {
   final: '✓ Final',
 };
 
+/** A signature of this card made on this phone (from its outbox row), until the server's card shows it. */
+function useOwnSignature(card: CardView, userId: number) {
+  const key = `${cardKeyOf(card.session.id, card.archer.entryId)}:card`;
+  return useLiveQuery(async () => {
+    const rows = await localDb().outbox.where('endKey').equals(key).toArray();
+    const row = rows
+      .filter((r) => r.userId === userId && r.kind === 'card.sign' && r.status !== 'rejected')
+      .pop();
+    return { row: row ?? null };
+  }, [key, userId]);
+}
+
 function Countersign({ card, userId }: { card: CardView; userId: number }) {
   const { save, problem } = useLocalSave();
-  const key = `${cardKeyOf(card.session.id, card.archer.entryId)}:card`;
-  const waiting = useLiveQuery(
-    () =>
-      localDb()
-        .outbox.where('endKey')
-        .equals(key)
-        .filter((r) => r.userId === userId && r.status === 'pending')
-        .count(),
-    [key, userId],
-    0,
-  );
-  if (waiting > 0)
+  const own = useOwnSignature(card, userId);
+  // Until the phone has looked, show no button: a reload must never offer a second signature.
+  if (own === undefined) return null;
+  // A judge's ruling after this signature superseded it: the card must be signed again.
+  const superseded = own.row && card.ends.some((e) => e.rulings.some((r) => r.judgedAt > own.row!.at));
+  if (own.row && !superseded) {
+    const role = (own.row.args as CardSignArgs).role;
     return (
-      <Notice tone="info">
-        {card.canRecordPaperCountersign ? 'The countersignature' : 'Your signature'} is saved on this phone
-        and goes to the event server with the next sync.
+      <Notice tone="success">
+        <span data-testid="own-signature">
+          {card.canRecordPaperCountersign
+            ? 'You recorded the paper countersignature'
+            : `You signed this card as ${role}`}{' '}
+          on this phone, {new Date(own.row.at).toLocaleString()}.{' '}
+          {own.row.status === 'pending'
+            ? 'The signature is saved on this phone and goes to the event server with the next sync.'
+            : 'The event server has it.'}
+        </span>
       </Notice>
     );
+  }
   if (card.canRecordPaperCountersign) return <PaperCountersign card={card} userId={userId} />;
   if (!card.canCountersign)
     return card.countersignNote ? <Notice tone="info">{card.countersignNote}</Notice> : null;
@@ -108,22 +125,32 @@ function Card({ sessionId, entryId, userId }: { sessionId: number; entryId: numb
         </thead>
         <tbody>
           {c.ends.map((e) => (
-            <tr key={e.endIndex} className="border-b border-line">
-              <td className="py-2 font-bold">{e.endIndex + 1}</td>
-              <td>
-                {e.arrows ? e.arrows.join(' ') : '—'}{' '}
-                <span className="text-base">
-                  {END_STATE_LABELS[e.state].mark} {END_STATE_LABELS[e.state].word}
-                </span>
-                {e.transcribedBy && (
-                  <span className="block text-base">
-                    ▲ Transcribed by judge {e.transcribedBy} from a file
+            <Fragment key={e.endIndex}>
+              <tr className="border-b border-line">
+                <td className="py-2 font-bold">{e.endIndex + 1}</td>
+                <td>
+                  {e.arrows ? e.arrows.join(' ') : '—'}{' '}
+                  <span className="text-base">
+                    {END_STATE_LABELS[e.state].mark} {END_STATE_LABELS[e.state].word}
+                    {e.rulings.length > 0 && ' · ⚖ ruled'}
                   </span>
-                )}
-              </td>
-              <td className="text-right">{e.total ?? ''}</td>
-              <td className="text-right font-bold">{e.runningTotal ?? ''}</td>
-            </tr>
+                  {e.transcribedBy && (
+                    <span className="block text-base">
+                      ▲ Transcribed by judge {e.transcribedBy} from a file
+                    </span>
+                  )}
+                </td>
+                <td className="text-right">{e.total ?? ''}</td>
+                <td className="text-right font-bold">{e.runningTotal ?? ''}</td>
+              </tr>
+              {e.rulings.length > 0 && (
+                <tr className="border-b border-line">
+                  <td colSpan={4} className="pb-2">
+                    <RulingHistory steps={e.rulings.map(({ before, ...ruling }) => ({ ruling, before }))} />
+                  </td>
+                </tr>
+              )}
+            </Fragment>
           ))}
         </tbody>
       </table>

@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import { endKeyOf, type JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
-import { roundEnds } from '../pad/useEndNavigation';
+import { endsOfRound } from '../../core';
 
 /**
  * On a writer's pad, once their card holds every arrow of the round's last end for each archer:
@@ -17,11 +17,10 @@ export function CardsToSignLink({
   ends: Map<string, LocalEnd>;
 }) {
   const finished = target.archers.every((a) => {
-    const all = roundEnds(a);
-    const last = all[all.length - 1];
+    const last = endsOfRound(a.round).at(-1);
     if (!last) return true;
-    const local = ends.get(endKeyOf(target.session.id, a.entryId, last.endIndex));
-    return (local?.slots[slot]?.arrows.length ?? 0) >= last.arrowsPerEnd;
+    const local = ends.get(endKeyOf(target.session.id, a.entryId, last.index));
+    return (local?.slots[slot]?.arrows.length ?? 0) >= last.arrows;
   });
   if (!finished) return null;
   return (

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useLiveQuery } from 'dexie-react-hooks';
+import { endsOfRound } from '../../core';
 import { endKeyOf, localDb } from '../../local/db';
 import { loadSessionEnds } from '../../local/sessionEnds';
 import { recordChange } from '../../local/outbox';
@@ -10,6 +11,7 @@ import { useOnline } from '../../local/online';
 import { RequireSignIn } from '../auth/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
+import { RulingHistory } from '../../ui/scorecard/RulingHistory';
 import { EndArrows } from '../pad/EndArrows';
 import { SyncLine } from '../pad/SyncLine';
 import { Rejections } from '../pad/Rejections';
@@ -43,22 +45,23 @@ function DeskItemCard({ item, eventId, userId }: { item: DeskItem; eventId: numb
   const { save, problem } = useLocalSave();
   const archer = item.target.archers[item.archerIndex]!;
   const label = DESK_KIND_LABELS[item.kind];
-  const perEnd = archer.round.distances[0]?.arrowsPerEnd ?? 6;
+  const perEnd = endsOfRound(archer.round)[item.endIndex]?.arrows ?? 0;
   return (
     <li
       className="surface space-y-2 rounded-xl border-2 border-line bg-card p-3"
       data-testid={`desk-${item.kind}-${item.target.targetNumber}${archer.position}-${item.endIndex + 1}`}
     >
-      <p className="flex flex-wrap items-baseline justify-between gap-2">
+      <h2 className="flex flex-wrap items-baseline justify-between gap-2">
         <span className="text-xl font-bold">
           Target {item.target.targetNumber}
           {archer.position} · {archer.name}
         </span>
         <span className="font-bold">
-          End {item.endIndex + 1} · {label.mark} {label.word}
+          End {item.endIndex + 1} · <span aria-hidden="true">{label.mark}</span> {label.word}
         </span>
-      </p>
+      </h2>
       <p>{item.detail}</p>
+      <RulingHistory steps={item.local.rulings} />
       {item.kind !== 'to-sign' && (
         <div className="space-y-1">
           {([1, 2] as const).map((slot) => {

@@ -1,5 +1,5 @@
 import { useState, type FormEvent } from 'react';
-import { endRules, sortEnd, type ArrowValue } from '../../core';
+import { endsOfRound, rulesForEnd, sortEnd, type ArrowValue } from '../../core';
 import { messageOf } from '../../api/request';
 import { localDb } from '../../local/db';
 import { recordChange } from '../../local/outbox';
@@ -8,8 +8,7 @@ import { useOnline } from '../../local/online';
 import { Button } from '../../ui/Button';
 import { Field } from '../../ui/Field';
 import { Notice } from '../../ui/Notice';
-import { roundEnds } from '../pad/useEndNavigation';
-import type { DeskItem } from './deskItems';
+import { startingValues, type DeskItem } from './deskItems';
 import { uploadPhoto } from './api/uploadPhoto';
 
 /** A judge's ruling on one end: every value (any value valid on the face), a reason, and a photo if there is signal. */
@@ -25,12 +24,9 @@ export function RuleForm({
   onDone: () => void;
 }) {
   const archer = item.target.archers[item.archerIndex]!;
-  const end = roundEnds(archer)[item.endIndex]!;
-  const allowed = endRules(archer.round, end.distanceIndex, archer.bowStyle).allowed;
-  const start = item.view.arrows ?? item.local.slots[1]?.arrows ?? item.local.slots[2]?.arrows ?? [];
-  const [arrows, setArrows] = useState<(ArrowValue | '')[]>(() =>
-    Array.from({ length: end.arrowsPerEnd }, (_, i) => start[i] ?? ''),
-  );
+  const end = endsOfRound(archer.round)[item.endIndex]!;
+  const allowed = rulesForEnd(archer.round, end, archer.bowStyle).allowed;
+  const [arrows, setArrows] = useState<(ArrowValue | '')[]>(() => startingValues(item, end.arrows));
   const [reason, setReason] = useState('');
   const [photo, setPhoto] = useState<File>();
   const [problem, setProblem] = useState<string>();
@@ -39,7 +35,7 @@ export function RuleForm({
 
   const submit = async (e: FormEvent) => {
     e.preventDefault();
-    if (arrows.some((a) => a === '')) return setProblem(`Give a value for all ${end.arrowsPerEnd} arrows.`);
+    if (arrows.some((a) => a === '')) return setProblem(`Give a value for all ${end.arrows} arrows.`);
     if (reason.trim().length < 3) return setProblem('Give a short reason for the ruling.');
     setBusy(true);
     try {

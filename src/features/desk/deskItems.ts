@@ -1,8 +1,7 @@
-import { endView, type EndView } from '../../core';
+import { endView, endsOfRound, type ArrowValue, type EndView } from '../../core';
 import type { JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
-import { FLAG_LABELS } from '../pad/EndArrows';
-import { roundEnds } from '../pad/useEndNavigation';
+import { flagWords, openFlags } from '../pad/endFlags';
 
 export type DeskItemKind = 'dispute' | 'incident' | 'mismatch' | 'to-sign';
 
@@ -30,9 +29,10 @@ function describe(local: LocalEnd, view: EndView): { kind: DeskItemKind; detail:
     return { kind: 'dispute', detail: `The caller sent arrow ${positions} to a judge.` };
   }
   if (view.openIncidents > 0) {
-    const flags = [...(local.slots[1]?.flags ?? []), ...(local.slots[2]?.flags ?? [])];
-    const words = [...new Set(flags.map((f) => `${FLAG_LABELS[f.flag]} on arrow ${f.index + 1}`))].join('; ');
-    return { kind: 'incident', detail: `${words}. Rule on the end before it can be signed.` };
+    return {
+      kind: 'incident',
+      detail: `${flagWords(openFlags(local))}. Rule on the end before it can be signed.`,
+    };
   }
   if (view.state === 'mismatch') {
     const differing = view.check.arrows.filter((a) => !a.same).map((a) => a.index + 1);
@@ -54,7 +54,7 @@ export function deskItems(
   const items: DeskItem[] = [];
   for (const target of targets) {
     target.archers.forEach((archer, archerIndex) => {
-      for (const { endIndex } of roundEnds(archer)) {
+      for (const { index: endIndex } of endsOfRound(archer.round)) {
         const local = ends.get(keyOf(target, archer.entryId, endIndex));
         if (!local) continue;
         const view = endView(local.facts);
@@ -71,4 +71,24 @@ export function deskItems(
       a.target.targetNumber - b.target.targetNumber ||
       a.archerIndex - b.archerIndex,
   );
+}
+
+/**
+ * What the form starts from: the values the writers or the caller agree on. Disputed, differing
+ * and flagged arrows stay empty, so the judge decides them rather than confirming one writer.
+ */
+export function startingValues(item: Pick<DeskItem, 'local' | 'view'>, count: number): (ArrowValue | '')[] {
+  const { local, view } = item;
+  const blank = new Set([
+    ...(view.state === 'disputed' ? (local.facts.settlement?.disputed ?? []) : []),
+    ...(view.state === 'mismatch' ? view.check.arrows.filter((a) => !a.same).map((a) => a.index) : []),
+    ...openFlags(local).map((f) => f.index),
+  ]);
+  const decided = view.arrows ?? local.facts.settlement?.arrows;
+  return Array.from({ length: count }, (_, i) => {
+    if (blank.has(i)) return '';
+    if (decided) return decided[i] ?? '';
+    const both = view.check.arrows[i];
+    return both?.same ? (both.first ?? '') : '';
+  });
 }

@@ -1,41 +1,59 @@
-import { useEffect } from 'react';
+import { useEffect, useRef } from 'react';
 import type { ArrowValue } from '../../core';
 import { arrowLook } from './arrowLook';
+import { LONE_ONE_WAIT_MS, feedKey, flushLoneOne } from './keyEntry';
 
 type Props = {
   allowed: readonly ArrowValue[];
-  onValue: (value: ArrowValue) => void;
+  /** One value per tap; a key sequence can decide two at once ("1" then "9"). */
+  onValues: (values: ArrowValue[]) => void;
   onUndo: () => void;
   canUndo: boolean;
   disabled?: boolean;
 };
 
-/** Keyboard equivalents on a desktop: x, 0 for 10, 1–9, m; Backspace undoes. */
-function keyToValue(key: string, allowed: readonly ArrowValue[]): ArrowValue | undefined {
-  const k = key.toUpperCase();
-  const value = k === '0' ? '10' : k;
-  return allowed.find((a) => a === value);
-}
-
 /** The pad's keys: only the values this archer can score on this face, large enough for cold fingers. */
-export function ArrowKeypad({ allowed, onValue, onUndo, canUndo, disabled }: Props) {
+export function ArrowKeypad({ allowed, onValues, onUndo, canUndo, disabled }: Props) {
+  // A "1" that may still become 10 (see feedKey), and the wait after which it counts as 1.
+  const pending = useRef(false);
+  const timer = useRef<ReturnType<typeof setTimeout>>(undefined);
+  const latest = useRef({ allowed, onValues });
+  useEffect(() => {
+    latest.current = { allowed, onValues };
+  }, [allowed, onValues]);
+  useEffect(() => () => clearTimeout(timer.current), []);
+
   useEffect(() => {
     const onKey = (e: KeyboardEvent) => {
       if (disabled || e.target instanceof HTMLInputElement || e.target instanceof HTMLSelectElement) return;
-      if (e.key === 'Backspace' && canUndo) {
+      if (e.ctrlKey || e.metaKey || e.altKey) return;
+      if (e.key === 'Backspace') {
+        // Backspace first drops a "1" still waiting, then undoes.
+        if (pending.current) {
+          pending.current = false;
+          clearTimeout(timer.current);
+        } else if (canUndo) onUndo();
         e.preventDefault();
-        onUndo();
         return;
       }
-      const value = keyToValue(e.key, allowed);
-      if (value) {
-        e.preventDefault();
-        onValue(value);
-      }
+      // Enter and space on a focused button press it: leave them alone unless a "1" is waiting.
+      if ((e.key === 'Enter' || e.key === ' ') && !pending.current) return;
+      const step = feedKey(pending.current, e.key, allowed);
+      if (!step.handled) return;
+      e.preventDefault();
+      clearTimeout(timer.current);
+      pending.current = step.pending;
+      if (step.values.length > 0) onValues(step.values);
+      if (step.pending)
+        timer.current = setTimeout(() => {
+          pending.current = false;
+          const values = flushLoneOne(latest.current.allowed);
+          if (values.length > 0) latest.current.onValues(values);
+        }, LONE_ONE_WAIT_MS);
     };
     window.addEventListener('keydown', onKey);
     return () => window.removeEventListener('keydown', onKey);
-  }, [allowed, onValue, onUndo, canUndo, disabled]);
+  }, [allowed, onValues, onUndo, canUndo, disabled]);
 
   return (
     <div className="grid grid-cols-4 gap-2" role="group" aria-label="Arrow values">
@@ -44,7 +62,7 @@ export function ArrowKeypad({ allowed, onValue, onUndo, canUndo, disabled }: Pro
           key={value}
           type="button"
           disabled={disabled}
-          onClick={() => onValue(value)}
+          onClick={() => onValues([value])}
           className={`h-16 min-w-14 rounded-xl text-[32px] font-bold shadow-sm transition-transform active:scale-95 disabled:opacity-40 ${arrowLook(value)}`}
           aria-label={value === 'M' ? 'Miss (M)' : `Arrow ${value}`}
         >

@@ -1,5 +1,5 @@
-import { useState } from 'react';
-import { endView, sortEnd, type ArrowValue } from '../../core';
+import { useEffect, useRef, useState } from 'react';
+import { endView, endsOfRound, sortEnd, type ArrowValue } from '../../core';
 import { endKeyOf, localDb, type JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
 import { recordChange } from '../../local/outbox';
@@ -7,9 +7,11 @@ import { syncLoop } from '../../local/syncLoop';
 import { useLocalSave } from '../../local/useLocalSave';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
+import { RulingHistory } from '../../ui/scorecard/RulingHistory';
 import { EndArrows } from './EndArrows';
-import { END_STATE_LABELS } from './endStateLabel';
-import { roundEnds } from './useEndNavigation';
+import { flagWords, openFlags } from './endFlags';
+import { endLabel } from './endStateLabel';
+import { pullAdvice } from './pullAdvice';
 
 type Choice = ArrowValue | 'judge';
 
@@ -33,7 +35,7 @@ function SettleEnd({
   const second = local.slots[2];
   if (!first || !second) return null;
   const differing = view.check.arrows.filter((a) => !a.same);
-  const arrowsPerEnd = roundEnds(archer)[endIndex]?.arrowsPerEnd ?? first.arrows.length;
+  const arrowsPerEnd = endsOfRound(archer.round)[endIndex]?.arrows ?? first.arrows.length;
   const complete = differing.every((a) => choices[a.index] !== undefined);
 
   const settle = async () => {
@@ -65,14 +67,15 @@ function SettleEnd({
       className="surface space-y-3 rounded-xl border-2 border-brick bg-card p-3"
       data-testid={`mismatch-${archer.position}`}
     >
-      <h3 className="text-xl font-bold">
+      <h2 className="text-xl font-bold">
         ≠ {archer.position} · {archer.name}
-      </h3>
+      </h2>
       <div className="space-y-2">
         <p className="font-bold">Writer 1</p>
         <EndArrows
           label="Writer 1's values"
           arrows={first.arrows}
+          flags={first.flags}
           slots={arrowsPerEnd}
           differing={new Set(differing.map((d) => d.index))}
         />
@@ -80,6 +83,7 @@ function SettleEnd({
         <EndArrows
           label="Writer 2's values"
           arrows={second.arrows}
+          flags={second.flags}
           slots={arrowsPerEnd}
           differing={new Set(differing.map((d) => d.index))}
         />
@@ -121,6 +125,31 @@ function SettleEnd({
   );
 }
 
+/**
+ * Says so when a mismatch arrives on this end while the caller watches: a buzz where the phone
+ * allows it, and words a screen reader announces at once. Mismatches already there when the view
+ * opened are on screen and are not announced again.
+ */
+function useMismatchAlert(endIndex: number, mismatched: string[]): string | undefined {
+  const known = useRef<{ endIndex: number; keys: Set<string> }>(undefined);
+  const [announcement, setAnnouncement] = useState<string>();
+  const joined = mismatched.join(',');
+  useEffect(() => {
+    const now = new Set(joined ? joined.split(',') : []);
+    const before = known.current;
+    known.current = { endIndex, keys: now };
+    if (!before || before.endIndex !== endIndex) return;
+    const arrived = [...now].filter((k) => !before.keys.has(k));
+    if (arrived.length === 0) return;
+    // Chromium allows vibration only after the person has touched the page; it is a bonus, not the alert.
+    navigator.vibrate?.([200, 100, 200]);
+    setAnnouncement(
+      `New mismatch on end ${endIndex + 1}: ${arrived.join(', ')}. Settle it before arrows are pulled.`,
+    );
+  }, [endIndex, joined]);
+  return announcement;
+}
+
 /** The caller's view of an end: every archer's state, and each mismatch to settle. */
 export function CallerView({
   target,
@@ -136,37 +165,70 @@ export function CallerView({
     return { archer, archerIndex, local, view: local ? endView(local.facts) : undefined };
   });
   const mismatches = rows.filter((r) => r.view?.state === 'mismatch');
+  const announcement = useMismatchAlert(
+    endIndex,
+    mismatches.map((r) => r.archer.position),
+  );
+  const advice = pullAdvice(rows.map((r) => ({ position: r.archer.position, local: r.local })));
   return (
     <div className="space-y-4">
+      <div aria-live="assertive" role="alert" data-testid="mismatch-alert">
+        {announcement && (
+          <p className="surface rounded-lg border-2 border-brick bg-brick-bg p-3 font-bold text-brick">
+            <span aria-hidden="true">≠ </span>
+            {announcement}
+          </p>
+        )}
+      </div>
       <ul className="space-y-2" aria-label="Archers on this target">
-        {rows.map(({ archer, view }) => (
-          <li
-            key={archer.entryId}
-            className="surface flex items-center justify-between rounded-lg border border-line bg-card p-3"
-          >
-            <span className="font-bold">
-              {archer.position} · {archer.name}
-            </span>
-            <span data-testid={`state-${archer.position}`}>
-              {END_STATE_LABELS[view?.state ?? 'open'].mark} {END_STATE_LABELS[view?.state ?? 'open'].word}
-              {view?.arrows && <span className="ml-2 font-bold">{view.arrows.join(' ')}</span>}
-            </span>
-          </li>
-        ))}
+        {rows.map(({ archer, local, view }) => {
+          const label = endLabel(view);
+          const flags = openFlags(local);
+          return (
+            <li key={archer.entryId} className="surface space-y-1 rounded-lg border border-line bg-card p-3">
+              <p className="font-bold">
+                {archer.position} · {archer.name}
+              </p>
+              <p data-testid={`state-${archer.position}`}>
+                <span aria-hidden="true">{label.mark} </span>
+                {label.word}
+                {view?.arrows && (
+                  <span className="ml-2 whitespace-nowrap font-bold">{view.arrows.join(' ')}</span>
+                )}
+                {flags.length > 0 && (
+                  <span className="block font-bold">
+                    <span aria-hidden="true">⚑ </span>
+                    {flagWords(flags)}
+                  </span>
+                )}
+              </p>
+              {local && <RulingHistory steps={local.rulings} />}
+            </li>
+          );
+        })}
       </ul>
-      {mismatches.length === 0 ? (
-        <p>No mismatch on this end. When both writers' cards are in and agree, arrows can be pulled.</p>
-      ) : (
-        mismatches.map((r) => (
-          <SettleEnd
-            key={`${r.archer.entryId}-${endIndex}`}
-            target={target}
-            archerIndex={r.archerIndex}
-            endIndex={endIndex}
-            local={r.local!}
-          />
-        ))
-      )}
+      <p
+        data-testid="pull-advice"
+        className={`surface rounded-lg border-2 p-3 font-bold ${
+          advice.kind === 'pull'
+            ? 'border-moss bg-card text-moss-dark'
+            : advice.kind === 'hold'
+              ? 'border-brick bg-brick-bg text-brick'
+              : 'border-ink/40 bg-card text-ink'
+        }`}
+      >
+        <span aria-hidden="true">{advice.kind === 'pull' ? '✓ ' : advice.kind === 'hold' ? '▲ ' : '… '}</span>
+        {advice.text}
+      </p>
+      {mismatches.map((r) => (
+        <SettleEnd
+          key={`${r.archer.entryId}-${endIndex}`}
+          target={target}
+          archerIndex={r.archerIndex}
+          endIndex={endIndex}
+          local={r.local!}
+        />
+      ))}
     </div>
   );
 }

@@ -1,14 +1,7 @@
 import type { ArrowValue } from '../../core';
 import type { ArrowFlag } from '../../contract/sync';
 import { arrowLook } from './arrowLook';
-
-export const FLAG_LABELS: Record<ArrowFlag, string> = {
-  'bounce-out': 'Bounce-out',
-  'pass-through': 'Pass-through',
-  missing: 'Missing arrow',
-  hanging: 'Hanging arrow',
-  'judge-needed': 'Judge needed',
-};
+import { FLAG_LABELS } from './endFlags';
 
 type Props = {
   arrows: readonly ArrowValue[];

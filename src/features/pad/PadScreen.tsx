@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import { endView } from '../../core';
+import { endView, endsOfRound } from '../../core';
 import { endKeyOf, type JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
 import { SafetyNote } from '../../ui/SafetyNote';
@@ -8,26 +8,32 @@ import { useMe } from '../auth/api/me';
 import { usePhoneOwner } from '../../local/phoneOwner';
 import { CardsToSignLink } from '../cards/CardsToSignLink';
 import { CallerView } from './CallerView';
-import { END_STATE_LABELS } from './endStateLabel';
+import { openFlags } from './endFlags';
+import { endLabel } from './endStateLabel';
 import { Rejections } from './Rejections';
 import { HeldForJudge } from './HeldForJudge';
 import { LeaveTask } from './LeaveTask';
 import { SyncLine } from './SyncLine';
 import { TASK_LABELS } from './taskNames';
 import { usePadData } from './usePadData';
-import { roundEnds } from './useEndNavigation';
 import { WriterPad } from './WriterPad';
+
+/** The most ends any archer of the target shoots (the pad steps through all of them). */
+const endCountOf = (target: JoinedTarget) =>
+  Math.max(...target.archers.map((a) => endsOfRound(a.round).length));
 
 /** The first end that still needs someone on this target: a card not finished, or cards not agreed yet. */
 function firstOpenEnd(target: JoinedTarget, ends: Map<string, LocalEnd>): number {
-  const count = Math.max(...target.archers.map((a) => roundEnds(a).length));
+  const count = endCountOf(target);
   const slot = target.task === 'writer1' ? 1 : target.task === 'writer2' ? 2 : undefined;
   for (let endIndex = 0; endIndex < count; endIndex += 1) {
     const unfinished = target.archers.some((a) => {
       const local = ends.get(endKeyOf(target.session.id, a.entryId, endIndex));
-      const perEnd = roundEnds(a)[endIndex]?.arrowsPerEnd ?? 0;
+      const perEnd = endsOfRound(a.round)[endIndex]?.arrows ?? 0;
       if (slot && (local?.slots[slot]?.arrows.length ?? 0) < perEnd) return true;
       const state = local ? endView(local.facts).state : 'open';
+      // A flagged arrow still needs the target's attention (and a judge), even on agreed cards.
+      if (openFlags(local).length > 0) return true;
       return state !== 'agreed' && state !== 'settled' && state !== 'signed';
     });
     if (unfinished) return endIndex;
@@ -46,7 +52,7 @@ function Pad({
   rejected: Parameters<typeof Rejections>[0]['rows'];
   held: Parameters<typeof HeldForJudge>[0]['rows'];
 }) {
-  const endCount = Math.max(...target.archers.map((a) => roundEnds(a).length));
+  const endCount = endCountOf(target);
   // A reload (or a phone woken from sleep) comes back to the end the person was on.
   const memoryKey = `ringcall.pad-end.${target.key}`;
   const [endIndex, setEndIndex] = useState(() => {
@@ -108,9 +114,10 @@ function Pad({
           <div className="grid grid-cols-4 gap-2" role="tablist" aria-label="Archers in card order">
             {target.archers.map((a, i) => {
               const local = ends.get(endKeyOf(target.session.id, a.entryId, endIndex));
-              const state = local ? endView(local.facts).state : 'open';
+              const label = endLabel(local && endView(local.facts));
+              const flagged = openFlags(local).length > 0;
               const count = local?.slots[slot]?.arrows.length ?? 0;
-              const perEnd = roundEnds(a)[endIndex]?.arrowsPerEnd ?? 0;
+              const perEnd = endsOfRound(a.round)[endIndex]?.arrows ?? 0;
               return (
                 <button
                   key={a.entryId}
@@ -122,8 +129,15 @@ function Pad({
                 >
                   <span className="block text-xl font-bold">{a.position}</span>
                   <span className="block truncate text-base">{a.name.split(' ')[0]}</span>
-                  <span className="block text-base" aria-label={END_STATE_LABELS[state].word}>
-                    {END_STATE_LABELS[state].mark} {count}/{perEnd}
+                  <span className="block text-base">
+                    <span aria-hidden="true">{label.mark}</span>
+                    <span className="sr-only">{label.word}</span> {count}/{perEnd}
+                    {flagged && (
+                      <>
+                        <span aria-hidden="true"> ⚑</span>
+                        <span className="sr-only">, flagged for a judge</span>
+                      </>
+                    )}
                   </span>
                 </button>
               );

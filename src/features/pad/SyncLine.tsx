@@ -1,28 +1,32 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import { localDb } from '../../local/db';
 import { saveWaitingFile } from '../../local/saveWaitingFile';
-import { useSyncStatus, useWaitingCount } from '../../local/useSync';
+import { useSyncStatus, useWaiting } from '../../local/useSync';
+import { changesWords, waitingWords } from '../../local/waitingSummary';
 import { syncLoop } from '../../local/syncLoop';
 import { useOnline } from '../../local/online';
 
 /** What waits to sync, in words, with a way to send now and a file for the judge if it cannot. */
 export function SyncLine() {
-  const waiting = useWaitingCount();
+  const summary = useWaiting();
+  const waiting = summary.changes;
   const status = useSyncStatus();
   const online = useOnline();
   const persistence = useLiveQuery(() => localDb().meta.get('storagePersistence'), [])?.value;
+  // What waits in a person's terms, with the exact number of changes beside it.
+  const what = `${waitingWords(summary)} (${changesWords(summary)})`;
   const text =
     waiting === 0
       ? status.lastSyncAt
         ? `✓ Everything on this phone has reached the event server.`
         : '✓ Nothing waiting to send.'
       : status.phase === 'signed-out'
-        ? `▲ ${waiting} change${waiting === 1 ? '' : 's'} waiting. Sign in again to send them; they are kept on this phone.`
+        ? `▲ ${what} waiting. Sign in again to send them; they are kept on this phone.`
         : !online || status.phase === 'offline'
-          ? `▲ ${waiting} change${waiting === 1 ? '' : 's'} waiting for signal. They are kept on this phone.`
+          ? `▲ ${what} waiting for signal. They are kept on this phone.`
           : status.phase === 'error'
-            ? `▲ ${waiting} waiting. ${status.lastError ?? ''} Trying again soon.`
-            : `↻ Sending ${waiting} change${waiting === 1 ? '' : 's'}…`;
+            ? `▲ ${what} waiting. ${status.lastError ?? ''} Trying again soon.`
+            : `↻ Sending ${what}…`;
   return (
     <section aria-label="Sync" className="surface space-y-2 rounded-xl border border-line bg-card p-3">
       <p data-testid="sync-line">{text}</p>

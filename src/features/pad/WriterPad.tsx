@@ -1,18 +1,27 @@
 import { useState } from 'react';
-import { cardTotals, endRules, type ArrowValue } from '../../core';
-import { ARROW_FLAGS, type WriterSlot } from '../../contract/fieldTerms';
+import {
+  cardTotals,
+  endView,
+  endsOfRound,
+  rulesForEnd,
+  writerLock,
+  type ArrowValue,
+  type WriterLock,
+} from '../../core';
+import { ARROW_FLAGS, type ArrowFlag, type WriterSlot } from '../../contract/fieldTerms';
 import { endKeyOf, localDb, type JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
-import { endView } from '../../core';
 import { messageOf } from '../../api/request';
 import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
 import { Notice } from '../../ui/Notice';
+import { RulingHistory } from '../../ui/scorecard/RulingHistory';
 import { ArrowKeypad } from './ArrowKeypad';
-import { EndArrows, FLAG_LABELS } from './EndArrows';
+import { EndArrows } from './EndArrows';
 import { addArrow, flagArrow, removeArrow, type EditableEnd } from './endEdits';
-import { roundEnds, type TargetArcher } from './useEndNavigation';
-import { END_STATE_LABELS } from './endStateLabel';
+import { FLAG_LABELS, openFlags } from './endFlags';
+import { endLabel } from './endStateLabel';
+import { FlagNotes } from './FlagNotes';
 
 type Props = {
   target: JoinedTarget;
@@ -25,6 +34,22 @@ type Props = {
 
 const other = (slot: WriterSlot): WriterSlot => (slot === 1 ? 2 : 1);
 
+/** What the pad says instead of the keys when the writer may no longer change the end (core `writerLock`). */
+const LOCK_WORDS: Record<WriterLock, string> = {
+  signed: 'This end is signed. Ask a judge to correct it.',
+  ruled: 'A judge has ruled on this end. Only a judge can change it now.',
+  closed: 'The session is closed, so its ends can no longer change. Ask a judge.',
+};
+
+/** The values the pad counts for an end: what a judge or the caller decided, else this writer's card. */
+export function countedValues(
+  local: LocalEnd | undefined,
+  own: readonly ArrowValue[] | undefined,
+): readonly ArrowValue[] | undefined {
+  const view = local && endView(local.facts);
+  return view?.arrows && view.decidedBy !== 'writers' ? view.arrows : own;
+}
+
 function withoutKey<T>(record: Record<string, T>, key: string): Record<string, T> {
   const { [key]: _dropped, ...rest } = record;
   return rest;
@@ -33,7 +58,8 @@ function withoutKey<T>(record: Record<string, T>, key: string): Record<string, T
 /** The writer's pad for one archer's end: keys, the end so far, totals, and the other card. */
 export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherIndex }: Props) {
   const archer = target.archers[archerIndex]!;
-  const endInfo = roundEnds(archer)[endIndex];
+  const roundEnds = endsOfRound(archer.round);
+  const endInfo = roundEnds[endIndex];
   const key = endKeyOf(target.session.id, archer.entryId, endIndex);
   const local = ends.get(key);
   const stored: EditableEnd = {
@@ -50,10 +76,14 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
   const [undo, setUndo] = useState<Record<string, EditableEnd[]>>({});
   const [selected, setSelected] = useState<number>();
   const [notice, setNotice] = useState<{ tone: 'info' | 'error'; text: string }>();
-  const locked = view?.state === 'signed';
+  const lock = writerLock({
+    signed: view?.state === 'signed',
+    ruled: !!local?.ruling,
+    sessionClosed: target.session.closed,
+  });
 
   const rules = endInfo
-    ? endRules(archer.round, endInfo.distanceIndex, archer.bowStyle, { allowPartial: true })
+    ? rulesForEnd(archer.round, endInfo, archer.bowStyle, { allowPartial: true })
     : undefined;
 
   /** Stores what this writer's card now says for the end; resolves once it is on the phone. */
@@ -96,17 +126,17 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
     syncLoop().afterChange();
   };
 
-  const onValue = (value: ArrowValue) => {
-    if (!rules) return;
-    if (mine.arrows.length >= rules.arrowsPerEnd) {
+  const onValues = (values: ArrowValue[]) => {
+    if (!rules || lock) return;
+    const room = rules.arrowsPerEnd - mine.arrows.length;
+    if (room < values.length) {
       setNotice({
         tone: 'info',
         text: `All ${rules.arrowsPerEnd} arrows are in. Tap an arrow to change or remove it.`,
       });
-      return;
-    }
-    setNotice(undefined);
-    const next = addArrow(mine, value);
+      if (room <= 0) return;
+    } else setNotice(undefined);
+    const next = values.slice(0, room).reduce(addArrow, mine);
     void write(next, mine);
     // A full end moves on to the next archer whose end is not complete yet.
     if (next.arrows.length === rules.arrowsPerEnd) {
@@ -129,20 +159,20 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
     void store(previous).then((stored) => stored && syncLoop().afterChange());
   };
 
-  // The archer's own card as this writer keeps it: every end this writer entered.
-  const ownEnds = roundEnds(archer).map((e) =>
-    e.endIndex === endIndex
-      ? mine.arrows
-      : ends.get(endKeyOf(target.session.id, archer.entryId, e.endIndex))?.slots[slot]?.arrows,
-  );
+  // The archer's card as this writer keeps it, with what a judge or the caller decided instead.
+  const counted = roundEnds.map((e) => {
+    const endLocal = ends.get(endKeyOf(target.session.id, archer.entryId, e.index));
+    return countedValues(endLocal, e.index === endIndex ? mine.arrows : endLocal?.slots[slot]?.arrows);
+  });
   const totals = cardTotals(
     archer.round,
-    ownEnds.map((v) => (v && v.length ? [...v] : undefined)),
+    counted.map((v) => (v && v.length ? [...v] : undefined)),
   );
 
   if (!endInfo || !rules) return <Notice tone="info">This archer's round has no end {endIndex + 1}.</Notice>;
   const endTotal = totals.ends[endIndex]?.total;
   const differing = new Set(view?.check.arrows.filter((a) => !a.same).map((a) => a.index) ?? []);
+  const label = endLabel(view);
 
   return (
     <section aria-label={`${archer.name}, end ${endIndex + 1}`} className="space-y-4">
@@ -151,17 +181,26 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
           {archer.position} · {archer.name}
         </h2>
         <p className="text-lg" data-testid="end-state">
-          <span aria-hidden="true">{END_STATE_LABELS[view?.state ?? 'open'].mark} </span>
-          {END_STATE_LABELS[view?.state ?? 'open'].word}
+          <span aria-hidden="true">{label.mark} </span>
+          {label.word}
         </p>
       </div>
+      {local?.ruling && (
+        <EndArrows
+          label="The judge's values for this end"
+          arrows={local.ruling.arrows}
+          slots={rules.arrowsPerEnd}
+        />
+      )}
+      {local && <RulingHistory steps={local.rulings} />}
+      <FlagNotes flags={openFlags(local)} />
       <EndArrows
         label="Your values for this end"
         arrows={mine.arrows}
         flags={mine.flags}
         slots={rules.arrowsPerEnd}
         selected={selected}
-        onSelect={locked ? undefined : (i) => setSelected(selected === i ? undefined : i)}
+        onSelect={lock ? undefined : (i) => setSelected(selected === i ? undefined : i)}
         differing={view?.state === 'mismatch' ? differing : undefined}
       />
       <p className="text-xl" data-testid="totals">
@@ -169,7 +208,7 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
         <strong data-testid="running-total">{totals.total}</strong> · 10s {totals.tens} · Xs {totals.xs}
       </p>
 
-      {selected !== undefined && mine.arrows[selected] && (
+      {!lock && selected !== undefined && mine.arrows[selected] && (
         <div className="surface space-y-2 rounded-xl border-2 border-ink bg-card p-3">
           <p className="font-bold">
             Arrow {selected + 1}: {mine.arrows[selected]}
@@ -207,12 +246,12 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
       )}
 
       {notice && <Notice tone={notice.tone}>{notice.text}</Notice>}
-      {locked ? (
-        <Notice tone="info">This end is signed. Ask a judge to correct it.</Notice>
+      {lock ? (
+        <Notice tone="info">{LOCK_WORDS[lock]}</Notice>
       ) : (
         <ArrowKeypad
           allowed={rules.allowed}
-          onValue={onValue}
+          onValues={onValues}
           onUndo={onUndo}
           canUndo={(undo[key]?.length ?? 0) > 0}
         />
@@ -221,7 +260,9 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
       <OtherCard
         slot={other(slot)}
         theirs={theirs?.arrows}
+        theirFlags={theirs?.flags}
         state={view?.state}
+        decidedBy={view?.decidedBy}
         agreed={view?.arrows}
         arrowsPerEnd={rules.arrowsPerEnd}
         differing={differing}
@@ -233,13 +274,17 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
 function OtherCard({
   slot,
   theirs,
+  theirFlags,
   state,
+  decidedBy,
   agreed,
   arrowsPerEnd,
   differing,
 }: {
+  decidedBy: 'writers' | 'caller' | 'judge' | undefined;
   slot: WriterSlot;
   theirs: readonly ArrowValue[] | undefined;
+  theirFlags: { index: number; flag: ArrowFlag }[] | undefined;
   state: string | undefined;
   agreed: ArrowValue[] | undefined;
   arrowsPerEnd: number;
@@ -259,6 +304,7 @@ function OtherCard({
           <EndArrows
             label={`Writer ${slot}'s values`}
             arrows={theirs}
+            flags={theirFlags}
             slots={arrowsPerEnd}
             differing={state === 'mismatch' ? differing : undefined}
           />
@@ -269,12 +315,14 @@ function OtherCard({
               before arrows are pulled.
             </p>
           )}
-          {state === 'settled' && agreed && <p>✓ Settled by the caller: {agreed.join(' ')}</p>}
+          {state === 'settled' && agreed && (
+            <p>
+              {decidedBy === 'judge' ? '⚖ Decided by a judge' : '✓ Settled by the caller'}: {agreed.join(' ')}
+            </p>
+          )}
           {state === 'disputed' && <p>? A judge is deciding this end.</p>}
         </>
       )}
     </section>
   );
 }
-
-export type { TargetArcher };

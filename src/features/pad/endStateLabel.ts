@@ -1,4 +1,4 @@
-import type { EndState } from '../../core';
+import type { EndState, EndView } from '../../core';
 
 /** Each state has a word and a mark, never colour alone. */
 export const END_STATE_LABELS: Record<EndState, { mark: string; word: string }> = {
@@ -10,3 +10,9 @@ export const END_STATE_LABELS: Record<EndState, { mark: string; word: string }> 
   disputed: { mark: '?', word: 'With a judge' },
   signed: { mark: '✍', word: 'Signed' },
 };
+
+/** An end's label as the target's phones show it: a judge's ruling says so, not only "Settled". */
+export function endLabel(view: EndView | undefined): { mark: string; word: string } {
+  if (view?.state === 'settled' && view.decidedBy === 'judge') return { mark: '⚖', word: 'Ruled by a judge' };
+  return END_STATE_LABELS[view?.state ?? 'open'];
+}

@@ -27,7 +27,9 @@ export function usePadData(
       async () => {
         // Only the signed-in person's own target: a shared phone never shows another's pad.
         const target =
-          userId === undefined ? undefined : await db.targets.get(targetKeyOf(userId, sessionId, targetNumber));
+          userId === undefined
+            ? undefined
+            : await db.targets.get(targetKeyOf(userId, sessionId, targetNumber));
         if (!target) return null;
         const { ends, rejected, held } = await loadSessionEnds(db, sessionId, target.userId, [target]);
         const entryIds = new Set(target.archers.map((a) => a.entryId));

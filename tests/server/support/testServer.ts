@@ -23,7 +23,11 @@ export type TestServer = {
 /** The operator's key to the caught-mail inbox in tests. */
 export const TEST_MAIL_INBOX_KEY = 'operator-key-for-tests-only-0123456789';
 /** Links in mail and on paper point here in tests (a documentation address, RFC 5737). */
-export const TEST_LINK_ADDRESS: LinkAddress = { url: 'http://192.0.2.10:3000', from: 'network', phonesCanOpen: true };
+export const TEST_LINK_ADDRESS: LinkAddress = {
+  url: 'http://192.0.2.10:3000',
+  from: 'network',
+  phonesCanOpen: true,
+};
 
 /** bcrypt cost for tests only: production uses 12 (asserted in tests/server/auth.test.ts). */
 export const TEST_BCRYPT_COST = 4;

@@ -1,0 +1,16 @@
+import { flagWords, type MarkedArrow } from './endFlags';
+
+/** The incidents of an end that wait for a judge, in words, on every phone of the target. */
+export function FlagNotes({ flags }: { flags: readonly MarkedArrow[] }) {
+  if (flags.length === 0) return null;
+  return (
+    <p
+      className="surface rounded-lg border-2 border-ink bg-caution-bg p-2 font-bold text-caution-ink"
+      data-testid="end-flags"
+    >
+      <span aria-hidden="true">⚑ </span>
+      {flagWords(flags)}. A judge must rule on it: do not pull these arrows until the holes are marked and the
+      judge has seen them.
+    </p>
+  );
+}

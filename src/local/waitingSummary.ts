@@ -1,0 +1,32 @@
+import type { OutboxRow } from './db';
+
+/** What waits to sync, counted as a person thinks of it, with the exact number of changes. */
+export type WaitingSummary = { changes: number; ends: number; signatures: number };
+
+/**
+ * Counts waiting changes as ends and signatures: every tap of a writer is a change, but the
+ * person entered one end per archer, so "24 waiting" for one end of four archers reads as lost work.
+ */
+export function summarizeWaiting(rows: readonly Pick<OutboxRow, 'kind' | 'endKey'>[]): WaitingSummary {
+  const ends = new Set<string>();
+  let signatures = 0;
+  for (const row of rows) {
+    if (row.kind === 'end.sign' || row.kind === 'card.sign') signatures += 1;
+    else ends.add(row.endKey);
+  }
+  return { changes: rows.length, ends: ends.size, signatures };
+}
+
+const count = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+
+/** "4 ends", "1 end and 2 signatures", for the badge and the sync line. */
+export function waitingWords(summary: WaitingSummary): string {
+  const parts = [
+    summary.ends > 0 ? count(summary.ends, 'end', 'ends') : '',
+    summary.signatures > 0 ? count(summary.signatures, 'signature', 'signatures') : '',
+  ].filter(Boolean);
+  return parts.join(' and ');
+}
+
+/** The exact count, for the details: "24 changes". */
+export const changesWords = (summary: WaitingSummary) => count(summary.changes, 'change', 'changes');
