@@ -25,6 +25,7 @@ import { joinRoutes } from './routes/join';
 import { wellKnownRoutes } from './routes/wellKnown';
 import { judgingRoutes } from './routes/judging';
 import { myCardsRoutes } from './routes/myCards';
+import { resultsRoutes } from './routes/results';
 
 export type AppDeps = {
   db: Db;
@@ -81,6 +82,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(printoutRoutes(ctx));
   api.use(joinRoutes(ctx));
   api.use(judgingRoutes(ctx));
+  api.use(resultsRoutes(ctx));
   api.use(routeNotFound);
   app.use('/api', api);
   // Public and outside /api: the key that checks printed and mailed signatures.

@@ -3,6 +3,7 @@ import * as m0001 from '../migrations/0001_people_and_events';
 import * as m0002 from '../migrations/0002_accounts_and_setup';
 import * as m0004 from '../migrations/0004_field_loop';
 import * as m0005 from '../migrations/0005_judging_and_signatures';
+import * as m0006 from '../migrations/0006_results';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
 
@@ -15,6 +16,7 @@ const migrations: [string, Migration][] = [
   ['0002_accounts_and_setup', m0002],
   ['0004_field_loop', m0004],
   ['0005_judging_and_signatures', m0005],
+  ['0006_results', m0006],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {
