@@ -44,7 +44,7 @@ async function authorizedFetch(path: string, init: RequestInit): Promise<Respons
   return response;
 }
 
-async function errorFrom(response: Response): Promise<ApiError> {
+export async function errorFrom(response: Response): Promise<ApiError> {
   const text = await response.text();
   const body = safeJson(text);
   if (isApiErrorBody(body)) return new ApiError(response.status, body.error.code, body.error.message);

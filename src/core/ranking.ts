@@ -19,6 +19,8 @@ export interface RankInput {
   tens: number;
   xs: number;
   nines: number;
+  /** False while the archer still has ends to shoot: a tie is only shot off once the round is over. */
+  complete?: boolean | undefined;
   /** Shoot-off arrows in the order shot; used only while a tie decides the cut or a medal. */
   shootOff?: readonly ShootOffArrow[] | undefined;
 }
@@ -121,7 +123,8 @@ export function rankArchers<T extends RankInput>(
   const ranked: (T & Placing)[] = [];
   for (const sameTotal of partition(rows, (r) => r.total)) {
     const start = ranked.length;
-    const shootOffDecides = decides(start, sameTotal.length);
+    // While someone in the tie still has ends to shoot, the tie is counted back for now.
+    const shootOffDecides = decides(start, sameTotal.length) && sameTotal.every((r) => r.complete !== false);
     const tiers = shootOffDecides ? shootOffTiers(sameTotal) : countBack(sameTotal, venue);
     for (const tier of tiers) {
       const tierStart = ranked.length;

@@ -95,6 +95,16 @@ describe('rankArchers: ties that decide the cut or a medal (WA Book 3, 14.5.2, f
     ]);
   });
 
+  it('counts back a tie on the cut for now while a tied archer still has ends to shoot', () => {
+    const rows = [row('a', 600), { ...row('b', 590, 1), complete: false }, row('c', 590, 9), row('d', 580)];
+    expect(rankArchers(rows, { cut: 2 }).map((r) => [r.id, r.place, r.shootOff])).toEqual([
+      ['a', 1, false],
+      ['c', 2, false],
+      ['b', 3, false],
+      ['d', 4, false],
+    ]);
+  });
+
   it('counts back a tie that stays inside or outside the cut', () => {
     const rows = [row('a', 600), row('b', 590, 9), row('c', 590, 1), row('d', 580)];
     for (const cut of [1, 3]) {

@@ -19,7 +19,10 @@ async function signIn(page: Page, email: string, next: string) {
   await page.getByLabel('Password').fill(DEMO_PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
   // Signed in once the phone has saved who it is (a reload reads it from there).
-  await page.waitForFunction((address) => (localStorage.getItem('ringcall.me') ?? '').includes(address), email);
+  await page.waitForFunction(
+    (address) => (localStorage.getItem('ringcall.me') ?? '').includes(address),
+    email,
+  );
 }
 
 const csv = (rows: string[]) => ({

@@ -135,6 +135,7 @@ function rankDivision(
     tens: s.tens,
     xs: s.xs,
     nines: s.nines,
+    complete: s.endsShot === s.totalEnds,
     shootOff: s.shootOffArrows as ShootOffArrow[],
   }));
   const rows: StandingRow[] = rankArchers(input, opts).map((r) => {
