@@ -40,7 +40,7 @@ for (let run = 0; run < RUNS + 2; run += 1) {
   const t0 = performance.now();
   const rows = cards.map((ends, i) => {
     const card = cardTotals(round, ends);
-    return { id: `archer-${i}`, total: card.total, tens: card.tens, xs: card.xs };
+    return { id: `archer-${i}`, total: card.total, tens: card.tens, xs: card.xs, nines: card.nines };
   });
   const t1 = performance.now();
   const ranked = rankArchers(rows, { cut: 104 });

@@ -30,6 +30,7 @@ import { judgingRoutes } from './routes/judging';
 import { myCardsRoutes } from './routes/myCards';
 import { lateValueRoutes } from './routes/lateValues';
 import { targetTaskRoutes } from './routes/targetTasks';
+import { resultsRoutes } from './routes/results';
 
 export type AppDeps = {
   db: Db;
@@ -94,6 +95,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(judgingRoutes(ctx));
   api.use(lateValueRoutes(ctx));
   api.use(targetTaskRoutes(ctx));
+  api.use(resultsRoutes(ctx));
   api.use(routeNotFound);
   app.use('/api', api);
   // Public and outside /api: the key that checks printed and mailed signatures.

@@ -7,6 +7,7 @@ import * as m0006 from '../migrations/0006_mail_limits';
 import * as m0007 from '../migrations/0007_late_values';
 import * as m0008 from '../migrations/0008_account_recovery';
 import * as m0009 from '../migrations/0009_signing_trust';
+import * as m0010 from '../migrations/0010_results';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
 
@@ -23,6 +24,7 @@ const migrations: [string, Migration][] = [
   ['0007_late_values', m0007],
   ['0008_account_recovery', m0008],
   ['0009_signing_trust', m0009],
+  ['0010_results', m0010],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {

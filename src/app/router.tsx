@@ -9,6 +9,7 @@ import { deskRoutes } from '../features/desk/routes';
 import { verifyRoutes } from '../features/verify/routes';
 import { cardRoutes } from '../features/cards/routes';
 import { eventRoutes } from '../features/events/routes';
+import { resultsRoutes } from '../features/results/routes';
 
 /** The screen area: a screen that throws, or whose chunk cannot be fetched, shows RouteError inside the layout. */
 function ScreenArea() {
@@ -45,6 +46,7 @@ const routes: RouteObject[] = [
           ...verifyRoutes,
           ...cardRoutes,
           ...eventRoutes,
+          ...resultsRoutes,
           {
             // The operator's, not an app role's: no sign-in, and nothing of it in the query cache.
             path: 'operator/mail',

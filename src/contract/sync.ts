@@ -11,6 +11,7 @@ import {
   type EndSignatureDto,
   type RulingDto,
 } from './judging';
+import { shootOffRecordArgsSchema } from './results';
 
 /**
  * The field path between phone and server. Every change a phone makes is a mutation with a
@@ -65,6 +66,8 @@ export const mutationSchema = z.discriminatedUnion(
     z.object({ ...base, kind: z.literal('end.rule'), args: endRuleArgsSchema }),
     z.object({ ...base, kind: z.literal('end.sign'), args: endSignArgsSchema }),
     z.object({ ...base, kind: z.literal('card.sign'), args: cardSignArgsSchema }),
+    // A judge's shoot-off arrow (results).
+    z.object({ ...base, kind: z.literal('shootoff.record'), args: shootOffRecordArgsSchema }),
   ],
   { error: 'Unknown kind of change. This phone may need the newest version of Ringcall.' },
 );

@@ -77,6 +77,10 @@ export function isX(value: ArrowValue): boolean {
   return value === 'X';
 }
 
+export function isNine(value: ArrowValue): boolean {
+  return value === '9';
+}
+
 export function isHit(value: ArrowValue): boolean {
   return value !== 'M';
 }

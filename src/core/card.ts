@@ -1,4 +1,4 @@
-import { arrowPoints, isHit, isTen, isX } from './arrowValue';
+import { arrowPoints, isHit, isNine, isTen, isX } from './arrowValue';
 import type { ArrowValue } from './arrowValue';
 import { countingArrows } from './ends';
 import { ScoringError } from './errors';
@@ -11,6 +11,8 @@ export interface Tally {
   /** 10s including Xs, as counted for ties (WA Book 3). */
   tens: number;
   xs: number;
+  /** 9s, the second tie count indoors (see ranking.ts). */
+  nines: number;
   /** Arrows on the card that count (an end with too many keeps only its lowest). */
   arrowsShot: number;
   /** Best total the entered ends could have given. */
@@ -40,7 +42,7 @@ export interface CardTotals extends Tally {
 }
 
 function emptyTally(): Tally {
-  return { total: 0, hits: 0, tens: 0, xs: 0, arrowsShot: 0, maxSoFar: 0 };
+  return { total: 0, hits: 0, tens: 0, xs: 0, nines: 0, arrowsShot: 0, maxSoFar: 0 };
 }
 
 function tallyEnd(values: readonly ArrowValue[], arrowsInEnd: number): Tally {
@@ -52,6 +54,7 @@ function tallyEnd(values: readonly ArrowValue[], arrowsInEnd: number): Tally {
     if (isHit(v)) tally.hits += 1;
     if (isTen(v)) tally.tens += 1;
     if (isX(v)) tally.xs += 1;
+    if (isNine(v)) tally.nines += 1;
   }
   return tally;
 }
@@ -61,6 +64,7 @@ function addTally(into: Tally, add: Tally): void {
   into.hits += add.hits;
   into.tens += add.tens;
   into.xs += add.xs;
+  into.nines += add.nines;
   into.arrowsShot += add.arrowsShot;
   into.maxSoFar += add.maxSoFar;
 }

@@ -8,6 +8,7 @@ export {
   compareArrowValues,
   isArrowValue,
   isHit,
+  isNine,
   isTen,
   isX,
   parseArrowValue,
@@ -54,8 +55,8 @@ export type { PlottedArrow, PlottedScore } from './plotting';
 export { crossCheck } from './crossCheck';
 export type { CrossCheck, CrossCheckArrow, CrossCheckStatus } from './crossCheck';
 
-export { rankArchers } from './ranking';
-export type { Placing, RankInput } from './ranking';
+export { rankArchers, rankTeams } from './ranking';
+export type { Placing, RankInput, RankOptions, ShootOffArrow, TeamMemberInput, TeamResult } from './ranking';
 
 export { canonicalJson } from './canonicalJson';
 export { cleanText } from './cleanText';

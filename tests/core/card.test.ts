@@ -59,6 +59,8 @@ describe('cardTotals', () => {
     });
     expect(card.ends[1]?.runningTotal).toBe(103);
     expect(card).toMatchObject({ total: 103, hits: 11, tens: 5, xs: 1, arrowsShot: 12, maxSoFar: 120 });
+    // 9s are counted for indoor ties (see ranking.test.ts).
+    expect(card.nines).toBe(5);
     expect(card.distances[0]).toMatchObject({
       distanceIndex: 0,
       label: '70 m (1)',

@@ -1,42 +1,14 @@
-import { expect, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
+import { expect, test, type Browser, type Page } from '@playwright/test';
 import { devices } from '@playwright/test';
 import { DEMO_JUDGES, DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
-import { readDemoDb, readDemoRows } from './support/demoDb';
+import { apiPhone, token } from './support/apiPhone';
+import { demoTarget } from './support/demoDb';
 import { operatorMailTo } from './support/operatorMail';
 import { checkA11y } from './support/a11y';
 
 /** A demo target nobody scores in the seeded demo field: four barebow archers, 122 cm face, 12 ends of 6. */
 const TARGET = 11;
 const phone = devices['Pixel 7'];
-
-async function token(request: APIRequestContext, email: string): Promise<string> {
-  const res = await request.post('/api/auth/sign-in', { data: { email, password: DEMO_PASSWORD } });
-  expect(res.status()).toBe(200);
-  return ((await res.json()) as { accessToken: string }).accessToken;
-}
-
-/** A phone simulated through the API, for the ends this test does not tap by hand. */
-function apiPhone(request: APIRequestContext, bearer: string, name: string) {
-  const clientId = `e2e-${name}-${Date.now()}`;
-  let seq = 0;
-  const headers = { Authorization: `Bearer ${bearer}` };
-  return {
-    join: async (code: string, task: string) =>
-      expect((await request.post('/api/join', { headers, data: { code, task } })).status()).toBe(200),
-    push: async (changes: { kind: string; args: unknown }[]) => {
-      const mutations = changes.map((c) => ({
-        id: crypto.randomUUID(),
-        seq: ++seq,
-        at: new Date().toISOString(),
-        ...c,
-      }));
-      const res = await request.post('/api/sync/push', { headers, data: { clientId, mutations } });
-      expect(res.status()).toBe(200);
-      const body = (await res.json()) as { results: { status: string; reason?: string }[] };
-      expect(body.results.filter((r) => r.status === 'rejected')).toEqual([]);
-    },
-  };
-}
 
 async function signIn(browser: Browser, email: string): Promise<Page> {
   const page = await (await browser.newContext({ ...phone })).newPage();
@@ -60,20 +32,7 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   request,
 }) => {
   test.setTimeout(240_000);
-  const { code, session_id: sessionId } = readDemoDb<{ code: string; session_id: number }>(
-    'select code, session_id from join_codes where target_number = ? and revoked_at is null',
-    TARGET,
-  );
-  const eventId = readDemoDb<{ event_id: number }>(
-    'select event_id from event_sessions where id = ?',
-    sessionId,
-  ).event_id;
-  const archers = readDemoRows<{ entry_id: number; position: string; email: string }>(
-    `select t.entry_id, t.position, u.email from target_assignments t join entries e on e.id = t.entry_id
-     join users u on u.id = e.user_id where t.session_id = ? and t.target_number = ? order by t.position`,
-    sessionId,
-    TARGET,
-  );
+  const { code, sessionId, eventId, archers } = demoTarget(TARGET);
   const people = demoArchers();
   const [w1Email, w2Email, callerEmail] = [people[12]!.email, people[13]!.email, people[14]!.email];
   const w1 = apiPhone(request, await token(request, w1Email), 'w1');

@@ -1,5 +1,6 @@
 import type { Mutation } from '../../../src/contract/sync';
 import type { SigningKeys } from '../../signing/serverKeys';
+import { applyShootOff } from '../results/applyShootOff';
 import { applyCardSign } from './applyCardSign';
 import { applyEndSign } from './applyEndSign';
 import { applyEndWrite } from './applyEndWrite';
@@ -55,6 +56,9 @@ export async function applyMutation(
         break;
       case 'card.sign':
         await applyCardSign(batch, m.args, by, keysFor(signingKeys));
+        break;
+      case 'shootoff.record':
+        applyShootOff(batch, m.args, by);
         break;
     }
     return null;

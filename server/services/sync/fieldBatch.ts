@@ -15,6 +15,7 @@ import {
   type RulingRow,
   type SettlementRow,
 } from './fieldRows';
+import type { ShootOffArrowRow } from '../results/shootOffRows';
 import { loadPlacements, type FieldSession, type Placement } from './fieldPlacements';
 
 export type ChangeRecord =
@@ -34,7 +35,7 @@ export type CardSignatureHeld = Held<CardSignatureRow, CardSignatureDto>;
 type JudgeOp =
   | {
       op: 'insert';
-      table: 'end_rulings' | 'end_signatures' | 'card_signatures';
+      table: 'end_rulings' | 'end_signatures' | 'card_signatures' | 'shootoff_arrows';
       held: Held<object, { id: number }>;
     }
   | {
@@ -52,7 +53,7 @@ const endKey = (sessionId: number, entryId: number, endIndex: number) =>
 const cardKey = (sessionId: number, entryId: number) => `${sessionId}:${entryId}`;
 
 const hasEnd = (m: Mutation): m is Extract<Mutation, { args: { endIndex: number } }> =>
-  m.kind !== 'card.sign';
+  m.kind !== 'card.sign' && m.kind !== 'shootoff.record';
 
 /**
  * The pushes of one commit as a unit of work: everything their mutations are checked against is
@@ -368,6 +369,11 @@ export class FieldBatch {
     this.changes.push({ placement, change: { type: 'card-signature', record: held.dto } });
     if (card.archer && card.scorer)
       this.finalCards.push({ sessionId: row.session_id, entryId: row.entry_id });
+  }
+
+  /** A judge's shoot-off arrow; phones do not pull it (the standings read it), so no change row. */
+  putShootOffArrow(row: ShootOffArrowRow): void {
+    this.ops.push({ op: 'insert', table: 'shootoff_arrows', held: { id: undefined, row, dto: { id: 0 } } });
   }
 
   /**

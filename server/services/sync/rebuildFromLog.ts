@@ -65,7 +65,7 @@ export async function replayLog(db: Db): Promise<FieldState> {
       settlements.set(settlementKey(row), row);
     } else if (m.kind === 'end.rule') {
       rulings.push(rulingRow(JSON.parse(m.args_json) as EndRuleArgs, by));
-    } else if (m.kind !== 'end.sign' && m.kind !== 'card.sign') {
+    } else if (m.kind !== 'end.sign' && m.kind !== 'card.sign' && m.kind !== 'shootoff.record') {
       throw new Error(`The mutation log holds an applied change of unknown kind "${m.kind}".`);
     }
   }

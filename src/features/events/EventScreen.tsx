@@ -11,6 +11,7 @@ import { SessionsPart } from './parts/SessionsPart';
 import { EntriesPart } from './parts/EntriesPart';
 import { StaffPart } from './parts/StaffPart';
 import { TargetsPart } from './parts/TargetsPart';
+import { ResultsPart } from '../results/components/ResultsPart';
 
 /** The next thing to set up, in the order an event is built. */
 function nextStep(s: EventSummary): { text: string; part: string } | undefined {
@@ -38,6 +39,7 @@ function Overview({ summary }: { summary: EventSummary }) {
     { id: 'entries', label: 'Entry list', count: summary.counts.entries },
     { id: 'staff', label: 'Staff', count: summary.counts.organizers + summary.counts.judges },
     { id: 'targets', label: 'Targets & printing' },
+    { id: 'results', label: 'Results' },
   ];
   const eventId = summary.event.id;
   return (
@@ -57,7 +59,8 @@ function Overview({ summary }: { summary: EventSummary }) {
         {current === 'entries' && <EntriesPart summary={summary} />}
         {current === 'staff' && <StaffPart eventId={eventId} />}
         {current === 'targets' && <TargetsPart summary={summary} />}
-        {!['divisions', 'sessions', 'entries', 'staff', 'targets'].includes(current) && (
+        {current === 'results' && <ResultsPart summary={summary} />}
+        {!['divisions', 'sessions', 'entries', 'staff', 'targets', 'results'].includes(current) && (
           <DetailsPart summary={summary} />
         )}
       </section>

@@ -11,11 +11,13 @@ import type {
   TargetPackage,
 } from '../../../src/contract/sync';
 import type { CardSignArgs, EndRuleArgs, EndSignArgs } from '../../../src/contract/judging';
+import type { ShootOffRecordArgs } from '../../../src/contract/results';
 import type { Db } from '../../../server/db';
 import type { TestPerson } from './people';
 
 type WriteInput = Omit<EndWriteArgs, 'flags'> & { flags?: EndWriteArgs['flags'] };
 type SettleInput = Omit<EndSettleArgs, 'disputed'> & { disputed?: number[] };
+type ShootOffInput = Omit<ShootOffRecordArgs, 'closer'> & { closer?: boolean };
 
 /**
  * A simulated phone: one person, one client id, its own sequence of mutations. Making a
@@ -68,6 +70,11 @@ export class Phone {
   /** The archer's or the scorer's signature on a whole card. */
   signCard(args: CardSignArgs): Mutation {
     return this.next({ kind: 'card.sign', args });
+  }
+
+  /** A judge's shoot-off arrow. */
+  shootOff(args: ShootOffInput): Mutation {
+    return this.next({ kind: 'shootoff.record', args: { ...args, closer: args.closer ?? false } });
   }
 
   private next(change: Pick<Mutation, 'kind' | 'args'>): Mutation {

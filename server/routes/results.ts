@@ -1,0 +1,77 @@
+import { Router, type Request, type RequestHandler } from 'express';
+import { resultsSettingsSchema } from '../../src/contract/results';
+import type { AppContext } from '../context';
+import { requireEventRole } from '../auth/eventRoles';
+import { badRequest, notFound } from '../http/httpError';
+import { idParam } from '../http/params';
+import { validateBody } from '../http/validate';
+import { resultsCache } from '../services/results/resultsCache';
+import { resultsCsv } from '../services/results/resultsCsv';
+import { findResultsEvent, requireResultsViewer } from '../services/results/resultsEvent';
+import { updateResultsSettings } from '../services/results/resultsSettings';
+
+/**
+ * Results: the standings of an event (public once the organizer publishes them; before that for
+ * its organizers, judges and archers), as JSON with an ETag or as CSV, and the organizer's
+ * results settings. Shoot-off arrows arrive as mutations through /api/sync/push.
+ */
+export function resultsRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+  const cache = resultsCache(db);
+  // Signed-in people see unpublished results of their own events; nobody has to be signed in.
+  const maybeUser: RequestHandler = (req, res, next) =>
+    req.get('authorization') ? ctx.requireUser(req, res, next) : next();
+
+  const readable = async (req: Request) => {
+    const event = await findResultsEvent(db, idParam(req, 'eventId', 'event'));
+    await requireResultsViewer(db, event, req.user?.id);
+    return event;
+  };
+
+  router.get('/results/:eventId', maybeUser, async (req, res) => {
+    const event = await readable(req);
+    const version = await cache.version(event);
+    // Who may read is checked above; the tag only says whether the standings changed.
+    const etag = `"results-${event.id}-${version}"`;
+    res.setHeader('ETag', etag);
+    res.setHeader('Cache-Control', 'no-cache');
+    if (req.get('if-none-match') === etag) {
+      res.status(304).end();
+      return;
+    }
+    res.json(await cache.results(event, version));
+  });
+
+  router.get('/results/:eventId/csv', maybeUser, async (req, res) => {
+    const event = await readable(req);
+    const raw = req.query.division;
+    let divisionId: number | undefined;
+    if (raw !== undefined) {
+      divisionId = typeof raw === 'string' && /^\d{1,9}$/.test(raw) ? Number(raw) : NaN;
+      if (!(divisionId > 0)) throw badRequest('division must be the number of one of the event’s divisions.');
+    }
+    const results = await cache.results(event, await cache.version(event));
+    const known = results.sessions.some((s) => s.divisions.some((d) => d.divisionId === divisionId));
+    if (divisionId !== undefined && !known) throw notFound('That division has no standings in this event.');
+    const name = `results-${event.id}${divisionId ? `-division-${divisionId}` : ''}.csv`;
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    res.setHeader('Content-Disposition', `attachment; filename="${name}"`);
+    res.setHeader('Cache-Control', 'no-store');
+    res.send(resultsCsv(results, divisionId));
+  });
+
+  router.patch(
+    '/events/:eventId/results-settings',
+    ctx.requireUser,
+    requireEventRole(db, 'organizer'),
+    validateBody(resultsSettingsSchema),
+    async (req, res) => {
+      const eventId = Number(req.params.eventId);
+      await updateResultsSettings(db, eventId, req.user!.id, req.body);
+      const event = await findResultsEvent(db, eventId);
+      res.json(await cache.results(event, await cache.version(event)));
+    },
+  );
+  return router;
+}

@@ -1,0 +1,101 @@
+import { expect, test } from '@playwright/test';
+import { DEMO_JUDGES, DEMO_ORGANIZER } from '../../server/demo/demoPeople';
+import { checkA11y } from './support/a11y';
+import { apiPhone, token } from './support/apiPhone';
+import { demoTarget } from './support/demoDb';
+
+/** A demo target no other browser test scores (the demo field uses 1–3, others 9 and 11). */
+const TARGET = 12;
+const END = ['10', '9', '9', '8', '7', '6'];
+const DESKTOP = {
+  viewport: { width: 1920, height: 1080 },
+  deviceScaleFactor: 1,
+  isMobile: false,
+  hasTouch: false,
+};
+
+test('a judge signs an end and the public results page shows the new total without a reload; the field screen cycles', async ({
+  browser,
+  request,
+}) => {
+  test.setTimeout(180_000);
+  const { code, sessionId, eventId, archers } = demoTarget(TARGET);
+  const [a, b] = archers;
+  expect(b, `two archers on target ${TARGET}`).toBeDefined();
+
+  // The organizer publishes the results; until then a stranger is refused.
+  expect((await request.get(`/api/results/${eventId}`)).status()).toBe(403);
+  const organizer = await token(request, DEMO_ORGANIZER.email);
+  const published = await request.patch(`/api/events/${eventId}/results-settings`, {
+    headers: { Authorization: `Bearer ${organizer}` },
+    data: { published: true },
+  });
+  expect(published.status()).toBe(200);
+
+  // A spectator opens the public page on a phone, signed in nowhere.
+  const spectator = await (await browser.newContext()).newPage();
+  await spectator.goto(`/results/${eventId}`);
+  const row = spectator.getByTestId(`standing-${a!.entry_id}`);
+  await expect(row).toBeVisible({ timeout: 20_000 });
+  await expect(row.getByTestId('total')).toHaveText('0');
+  await expect(row).toContainText('provisional');
+  await checkA11y(spectator, 'public results (phone)');
+  await spectator.screenshot({ path: '.tmp/screens/results-phone.png', fullPage: true });
+
+  // Both writers enter end 1 of archer A; a judge signs it.
+  const w1 = apiPhone(request, await token(request, a!.email), 'results-w1');
+  const w2 = apiPhone(request, await token(request, b!.email), 'results-w2');
+  await w1.join(code, 'writer1');
+  await w2.join(code, 'writer2');
+  for (const [phone, slot] of [
+    [w1, 1],
+    [w2, 2],
+  ] as const)
+    await phone.push([
+      {
+        kind: 'end.write',
+        args: { sessionId, entryId: a!.entry_id, endIndex: 0, slot, arrows: END, flags: [] },
+      },
+    ]);
+  const judge = apiPhone(request, await token(request, DEMO_JUDGES[0]!.email), 'results-judge');
+  await judge.push([
+    { kind: 'end.sign', args: { sessionId, entryId: a!.entry_id, endIndex: 0, arrows: END } },
+  ]);
+
+  // The open page picks it up by itself (it polls with an ETag).
+  await expect(row.getByTestId('total')).toHaveText('49', { timeout: 30_000 });
+  await expect(row).toContainText('1/12');
+
+  // Offline, a reload still shows the last copy with its time.
+  await spectator.waitForFunction(() => navigator.serviceWorker.controller !== null);
+  // The query cache is saved to localStorage a moment after it changes (throttled).
+  await spectator.waitForFunction(() => localStorage.getItem('ringcall.query-cache')?.includes('"total":49'));
+  await spectator.context().setOffline(true);
+  await spectator.reload();
+  await expect(spectator.getByTestId(`standing-${a!.entry_id}`).getByTestId('total')).toHaveText('49', {
+    timeout: 20_000,
+  });
+  await expect(spectator.getByTestId('results-as-of')).toBeVisible();
+  await spectator.context().setOffline(false);
+
+  // The same page on a 1920×1080 screen, and the field screen cycling through the divisions.
+  const wide = await (await browser.newContext(DESKTOP)).newPage();
+  await wide.goto(`/results/${eventId}`);
+  await expect(wide.getByTestId(`standing-${a!.entry_id}`)).toBeVisible({ timeout: 20_000 });
+  await checkA11y(wide, 'public results (1920×1080)');
+  await wide.screenshot({ path: '.tmp/screens/results-desktop.png' });
+
+  await wide.goto(`/results/${eventId}/field?seconds=3`);
+  const heading = wide.getByTestId('field-division');
+  await expect(heading).toBeVisible({ timeout: 20_000 });
+  await checkA11y(wide, 'field screen');
+  await wide.screenshot({ path: '.tmp/screens/results-field.png' });
+  const first = await heading.textContent();
+  await expect(heading).not.toHaveText(first ?? '', { timeout: 10_000 });
+
+  const fieldPhone = await (await browser.newContext()).newPage();
+  await fieldPhone.goto(`/results/${eventId}/field`);
+  await expect(fieldPhone.getByTestId('field-division')).toBeVisible({ timeout: 20_000 });
+  await checkA11y(fieldPhone, 'field screen (phone)');
+  await fieldPhone.screenshot({ path: '.tmp/screens/results-field-phone.png' });
+});
