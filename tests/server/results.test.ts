@@ -158,6 +158,7 @@ describe('results: standings follow the cards', () => {
   });
 
   it('refuses a shoot-off with both a distance and "closer"', async () => {
+    const arrowsBefore = (await server.db('shootoff_arrows')).length;
     const res = await request(server.app)
       .post('/api/sync/push')
       .set(j.field.judge.auth)
@@ -180,8 +181,11 @@ describe('results: standings follow the cards', () => {
           },
         ],
       });
-    expect(res.status).toBe(400);
-    expect(res.body.error.message).toMatch(/either the measured distance or "closer"/);
+    // Refused on its own, with its reason, so the judge's phone moves past it (no blocked outbox).
+    expect(res.status).toBe(200);
+    expect(res.body.results[0]).toMatchObject({ status: 'rejected' });
+    expect(res.body.results[0].reason).toMatch(/either the measured distance or "closer"/);
+    expect(await server.db('shootoff_arrows')).toHaveLength(arrowsBefore);
   });
 });
 
