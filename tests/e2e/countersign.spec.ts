@@ -60,7 +60,7 @@ test('the scorer finds the card to sign on the home screen, signs it offline, an
   // Signed with no signal: the signature waits on the phone.
   await page.context().setOffline(true);
   await page.getByRole('button', { name: 'Sign as scorer' }).click();
-  await expect(page.getByText('Your signature is saved on this phone')).toBeVisible();
+  await expect(page.getByText('The signature is saved on this phone')).toBeVisible();
   await page.getByRole('link', { name: 'Ringcall' }).click();
   await page.getByRole('button', { name: 'Sign out' }).click();
   const warning = page.getByTestId('sign-out-warning');

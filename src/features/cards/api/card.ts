@@ -16,6 +16,9 @@ export const useCard = (sessionId: number, entryId: number) => useQuery(cardQuer
 export const myCardsQuery = queryOptions({
   queryKey: ['my-cards'],
   queryFn: () => apiRequest<MyCards>('/api/me/cards'),
+  // Cards leave "to sign" the moment a signature lands, often seconds after the list was read:
+  // look again whenever the list is shown (the last copy stays on screen meanwhile).
+  staleTime: 0,
 });
 
 export const useMyCards = () => useQuery(myCardsQuery);
