@@ -3,39 +3,14 @@ import { devices } from '@playwright/test';
 import { DEMO_JUDGES, DEMO_ORGANIZER, DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
 import type { CardView } from '../../src/contract/judging';
 import { checkA11y } from './support/a11y';
+import { apiPhone, token } from './support/apiPhone';
 import { readDemoDb, readDemoRows } from './support/demoDb';
 
 const phone = devices['Pixel 7'];
 
-async function token(request: APIRequestContext, email: string): Promise<string> {
-  const res = await request.post('/api/auth/sign-in', { data: { email, password: DEMO_PASSWORD } });
-  expect(res.status()).toBe(200);
-  return ((await res.json()) as { accessToken: string }).accessToken;
-}
-
-/** A phone simulated through the API, for what the test does not tap by hand. */
-async function apiPhone(request: APIRequestContext, email: string) {
-  const headers = { Authorization: `Bearer ${await token(request, email)}` };
-  const clientId = `e2e-pad-${email}-${Date.now()}`;
-  let seq = 0;
-  return {
-    headers,
-    join: async (code: string, task: string) =>
-      expect((await request.post('/api/join', { headers, data: { code, task } })).status()).toBe(200),
-    push: async (changes: { kind: string; args: unknown }[]) => {
-      const mutations = changes.map((c) => ({
-        id: crypto.randomUUID(),
-        seq: ++seq,
-        at: new Date().toISOString(),
-        ...c,
-      }));
-      const res = await request.post('/api/sync/push', { headers, data: { clientId, mutations } });
-      expect(res.status()).toBe(200);
-      const body = (await res.json()) as { results: { status: string; reason?: string }[] };
-      expect(body.results.filter((r) => r.status === 'rejected')).toEqual([]);
-    },
-  };
-}
+/** A demo person's phone simulated through the API, for what the test does not tap by hand. */
+const phoneOf = async (request: APIRequestContext, email: string) =>
+  apiPhone(request, await token(request, email), `pad-${email}`);
 
 async function signIn(browser: Browser, email: string): Promise<Page> {
   const page = await (await browser.newContext({ ...phone })).newPage();
@@ -102,8 +77,8 @@ test('a flag reaches the caller and stops the pull; a ruling reaches both pads w
   await checkA11y(writer1, 'writer 1 pad');
 
   // Writer 2 and the other archers' cards come through the API.
-  const w1 = await apiPhone(request, people[20]!.email);
-  const w2 = await apiPhone(request, people[21]!.email);
+  const w1 = await phoneOf(request, people[20]!.email);
+  const w2 = await phoneOf(request, people[21]!.email);
   const a = archers.find((x) => x.position === 'A')!;
   const write = (slot: 1 | 2, entryId: number, arrows: string[]) => ({
     kind: 'end.write',
@@ -132,7 +107,7 @@ test('a flag reaches the caller and stops the pull; a ruling reaches both pads w
   await expect(writer2.getByTestId('end-flags')).toContainText('Bounce-out on arrow 6', { timeout: 30_000 });
 
   // A judge rules: the bounce-out left a 7.
-  const judge = await apiPhone(request, DEMO_JUDGES[0]!.email);
+  const judge = await phoneOf(request, DEMO_JUDGES[0]!.email);
   await judge.push([
     {
       kind: 'end.rule',
@@ -183,8 +158,8 @@ test('the sign button does not come back after signing, even after a reload befo
   const { code, sessionId, archers } = targetOf(TARGET);
   const archer = archers.find((x) => x.email)!;
   const people = demoArchers();
-  const w1 = await apiPhone(request, people[24]!.email);
-  const w2 = await apiPhone(request, people[25]!.email);
+  const w1 = await phoneOf(request, people[24]!.email);
+  const w2 = await phoneOf(request, people[25]!.email);
   await w1.join(code, 'writer1');
   await w2.join(code, 'writer2');
   const organizer = { Authorization: `Bearer ${await token(request, DEMO_ORGANIZER.email)}` };
@@ -201,7 +176,7 @@ test('the sign button does not come back after signing, even after a reload befo
         args: { sessionId, entryId: archer.entry_id, endIndex: e.endIndex, slot, arrows: END, flags: [] },
       })),
     );
-  const judge = await apiPhone(request, DEMO_JUDGES[0]!.email);
+  const judge = await phoneOf(request, DEMO_JUDGES[0]!.email);
   await judge.push(
     card.ends.map((e) => ({
       kind: 'end.sign',
