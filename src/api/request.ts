@@ -1,6 +1,6 @@
 import type { ApiErrorBody } from '../contract/apiError';
 import { serverFetch } from './serverFetch';
-import { accessToken, forgetAccessToken, refreshSession } from '../features/auth/session';
+import { accessToken, forgetAccessToken, refreshSession } from './session';
 
 /** A failed API call, carrying the server's readable message. */
 export class ApiError extends Error {

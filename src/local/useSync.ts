@@ -3,7 +3,7 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import { localDb } from './db';
 import { syncLoop, type SyncStatus } from './syncLoop';
 import { summarizeWaiting, type WaitingSummary } from './waitingSummary';
-import { useMe } from '../features/auth/api/me';
+import { useMe } from './me';
 import { usePhoneOwner } from './phoneOwner';
 
 export function useSyncStatus(): SyncStatus {

@@ -5,7 +5,7 @@ import { apiRequest } from '../../api/request';
 import type { AcceptedInvitation } from '../../contract/auth';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
-import { checkMe, useMe } from './api/me';
+import { checkMe, useMe } from '../../local/me';
 
 /** Opened from an invitation mail: accept the role, signing in or creating an account first. */
 export function InviteScreen() {

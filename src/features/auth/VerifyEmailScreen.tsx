@@ -3,7 +3,7 @@ import { useMutation } from '@tanstack/react-query';
 import { Link, useSearchParams } from 'react-router-dom';
 import { apiRequest } from '../../api/request';
 import { Notice } from '../../ui/Notice';
-import { checkMe } from './api/me';
+import { checkMe } from '../../local/me';
 
 export function VerifyEmailScreen() {
   const [params] = useSearchParams();

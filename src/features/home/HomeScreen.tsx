@@ -3,7 +3,7 @@ import { SafetyNote } from '../../ui/SafetyNote';
 import { useOnline } from '../../local/online';
 import { useServerHealth } from './api/serverHealth';
 import { PersonHome } from './PersonHome';
-import { useMe } from '../auth/api/me';
+import { useMe } from '../../local/me';
 
 const STEPS = [
   {

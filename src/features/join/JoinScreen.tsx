@@ -1,7 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { TASKS, joinRequestSchema, type JoinRequest, type Task } from '../../contract/sync';
-import { useMe } from '../auth/api/me';
+import { useMe } from '../../local/me';
 import { isPending, useSignUp } from '../auth/api/signIn';
 import { AccountFields, checkAccount, emptyAccount, type AccountProblems } from '../auth/AccountFields';
 import { CheckYourMail } from '../auth/CheckYourMail';

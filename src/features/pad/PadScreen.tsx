@@ -4,7 +4,7 @@ import { endView, endsOfRound } from '../../core';
 import { endKeyOf, type JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
 import { SafetyNote } from '../../ui/SafetyNote';
-import { useMe } from '../auth/api/me';
+import { useMe } from '../../local/me';
 import { usePhoneOwner } from '../../local/phoneOwner';
 import { CardsToSignLink } from '../cards/CardsToSignLink';
 import { CallerView } from './CallerView';

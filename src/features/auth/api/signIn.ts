@@ -8,9 +8,9 @@ import type {
   SignUpInput,
   SignUpPending,
 } from '../../../contract/auth';
-import { setSession } from '../session';
+import { setSession } from '../../../api/session';
 import { releasePhone } from '../../../local/phoneOwner';
-import { checkMe, setMe } from './me';
+import { checkMe, setMe } from '../../../local/me';
 
 /** A sign-up under an unconfirmed account's address: nothing happens until the mailed link is used. */
 export const isPending = (answer: AuthSession | SignUpPending): answer is SignUpPending =>

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateEventInput, EventDetails } from '../../../contract/events';
-import { checkMe } from '../../auth/api/me';
+import { checkMe } from '../../../local/me';
 import { eventKeys, jsonBody, send } from './eventKeys';
 
 export const createEvent = (input: CreateEventInput) =>

@@ -1,5 +1,5 @@
-import { serverFetch } from '../../api/serverFetch';
-import type { AuthSession } from '../../contract/auth';
+import { serverFetch } from './serverFetch';
+import type { AuthSession } from '../contract/auth';
 
 /**
  * Where the phone keeps its sign-in: the short-lived access token only in memory (never in

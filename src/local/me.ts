@@ -1,7 +1,7 @@
 import { useEffect, useSyncExternalStore } from 'react';
-import { apiRequest, isSignedOutError } from '../../../api/request';
-import type { Me } from '../../../contract/auth';
-import { claimPhone } from '../../../local/phoneOwner';
+import { apiRequest, isSignedOutError } from '../api/request';
+import type { Me } from '../contract/auth';
+import { claimPhone } from './phoneOwner';
 
 /**
  * Who is signed in, and their roles. Kept apart from the query cache so the field screens (pad,
