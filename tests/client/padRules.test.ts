@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { endView, type ArrowValue } from '../../src/core';
 import type { EndRecordRow, RulingRow, SettlementRow } from '../../src/local/db';
 import { localEnd } from '../../src/local/endFacts';
-import { openFlags } from '../../src/features/pad/endFlags';
+import { openFlags } from '../../src/ui/scorecard/endFlags';
 import { feedKey, flushLoneOne } from '../../src/features/pad/keyEntry';
 import { pullAdvice } from '../../src/features/pad/pullAdvice';
 import { countedValues } from '../../src/features/pad/WriterPad';

@@ -10,8 +10,8 @@ import { RequireSignIn } from '../auth/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { RulingHistory } from '../../ui/scorecard/RulingHistory';
-import { END_STATE_LABELS } from '../pad/endStateLabel';
-import { SyncLine } from '../pad/SyncLine';
+import { END_STATE_LABELS } from '../../ui/scorecard/endStateLabel';
+import { SyncLine } from '../../ui/scorecard/SyncLine';
 import { useCard } from './api/card';
 import { PaperCountersign } from './PaperCountersign';
 

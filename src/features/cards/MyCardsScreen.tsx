@@ -1,7 +1,7 @@
 import { RequireSignIn } from '../auth/RequireSignIn';
 import { Notice } from '../../ui/Notice';
 import { useMyCards } from './api/card';
-import { CardsToSignList, OwnCardsList } from './CardLists';
+import { CardsToSignList, OwnCardsList } from '../../ui/scorecard/CardLists';
 
 function Lists() {
   const cards = useMyCards();

@@ -1,6 +1,6 @@
 import { TASKS, type Task } from '../../contract/fieldTerms';
 import { Notice } from '../../ui/Notice';
-import { TASK_LABELS } from '../pad/taskNames';
+import { TASK_LABELS } from '../../ui/scorecard/taskNames';
 import { useSetMemberTask, useTargetMembers } from './api/targetMembers';
 
 /**

@@ -1,7 +1,7 @@
 import { endView, endsOfRound, type ArrowValue, type EndView } from '../../core';
 import type { JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
-import { flagWords, openFlags } from '../pad/endFlags';
+import { flagWords, openFlags } from '../../ui/scorecard/endFlags';
 
 export type DeskItemKind = 'dispute' | 'incident' | 'mismatch' | 'to-sign';
 

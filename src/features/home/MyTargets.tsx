@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { localDb } from '../../local/db';
-import { TASK_LABELS } from '../pad/taskNames';
+import { TASK_LABELS } from '../../ui/scorecard/taskNames';
 
 /** Targets this phone has joined: they open offline, straight from IndexedDB. */
 export function MyTargets({ userId }: { userId: number }) {

@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import type { Me } from '../../contract/auth';
-import { CardsToSignList, OwnCardsList } from '../cards/CardLists';
+import { CardsToSignList, OwnCardsList } from '../../ui/scorecard/CardLists';
 import { useMyCards } from '../cards/api/card';
 
 const eventLink =

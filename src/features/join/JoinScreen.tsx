@@ -9,7 +9,7 @@ import { Field } from '../../ui/Field';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { useOnline } from '../../local/online';
-import { TASK_HINTS, TASK_LABELS } from '../pad/taskNames';
+import { TASK_HINTS, TASK_LABELS } from '../../ui/scorecard/taskNames';
 import { useJoinTarget } from './api/joinTarget';
 
 /**

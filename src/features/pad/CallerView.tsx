@@ -8,9 +8,9 @@ import { useLocalSave } from '../../local/useLocalSave';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { RulingHistory } from '../../ui/scorecard/RulingHistory';
-import { EndArrows } from './EndArrows';
-import { flagWords, openFlags } from './endFlags';
-import { endLabel } from './endStateLabel';
+import { EndArrows } from '../../ui/scorecard/EndArrows';
+import { flagWords, openFlags } from '../../ui/scorecard/endFlags';
+import { endLabel } from '../../ui/scorecard/endStateLabel';
 import { pullAdvice } from './pullAdvice';
 
 type Choice = ArrowValue | 'judge';

@@ -1,4 +1,4 @@
-import { flagWords, type MarkedArrow } from './endFlags';
+import { flagWords, type MarkedArrow } from '../../ui/scorecard/endFlags';
 
 /** The incidents of an end that wait for a judge, in words, on every phone of the target. */
 export function FlagNotes({ flags }: { flags: readonly MarkedArrow[] }) {

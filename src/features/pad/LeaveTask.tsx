@@ -4,7 +4,7 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import { apiRequest, messageOf } from '../../api/request';
 import { cardKeyOf, localDb, type JoinedTarget } from '../../local/db';
 import { useOnline } from '../../local/online';
-import { TASK_LABELS } from './taskNames';
+import { TASK_LABELS } from '../../ui/scorecard/taskNames';
 
 /** This person's changes on the target that have not reached the server yet. */
 function useUnsynced(target: JoinedTarget): number | undefined {

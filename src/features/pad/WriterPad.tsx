@@ -17,10 +17,10 @@ import { syncLoop } from '../../local/syncLoop';
 import { Notice } from '../../ui/Notice';
 import { RulingHistory } from '../../ui/scorecard/RulingHistory';
 import { ArrowKeypad } from './ArrowKeypad';
-import { EndArrows } from './EndArrows';
+import { EndArrows } from '../../ui/scorecard/EndArrows';
 import { addArrow, flagArrow, removeArrow, type EditableEnd } from './endEdits';
-import { FLAG_LABELS, openFlags } from './endFlags';
-import { endLabel } from './endStateLabel';
+import { FLAG_LABELS, openFlags } from '../../ui/scorecard/endFlags';
+import { endLabel } from '../../ui/scorecard/endStateLabel';
 import { FlagNotes } from './FlagNotes';
 
 type Props = {

@@ -1,6 +1,6 @@
 import { endView } from '../../core';
 import type { LocalEnd } from '../../local/endFacts';
-import { flagWords, openFlags } from './endFlags';
+import { flagWords, openFlags } from '../../ui/scorecard/endFlags';
 
 export type PullAdvice = { kind: 'pull' | 'wait' | 'hold'; text: string };
 
