@@ -4,8 +4,8 @@ import { resetPasswordSchema } from '../../contract/auth';
 import { Button } from '../../ui/Button';
 import { Field } from '../../ui/Field';
 import { Notice } from '../../ui/Notice';
-import { useResetPassword } from './api/signIn';
-import { PASSWORD_HINT, tapLinkClass } from './AccountFields';
+import { useResetPassword } from '../../account/signIn';
+import { PASSWORD_HINT, tapLinkClass } from '../../account/AccountFields';
 
 /** Opened from the mailed link: choose the new password; this phone is then signed in, every other one out. */
 export function ResetPasswordScreen() {

@@ -3,8 +3,8 @@ import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { Field } from '../../ui/Field';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
-import { useSignIn } from './api/signIn';
-import { tapLinkClass } from './AccountFields';
+import { useSignIn } from '../../account/signIn';
+import { tapLinkClass } from '../../account/AccountFields';
 
 /** Sign-in; `?next=` brings the person back where they were sent from. */
 export function SignInScreen() {

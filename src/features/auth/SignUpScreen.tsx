@@ -2,15 +2,15 @@ import { useState, type FormEvent } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
-import { isPending, useSignUp } from './api/signIn';
+import { isPending, useSignUp } from '../../account/signIn';
 import {
   AccountFields,
   checkAccount,
   emptyAccount,
   tapLinkClass,
   type AccountProblems,
-} from './AccountFields';
-import { CheckYourMail } from './CheckYourMail';
+} from '../../account/AccountFields';
+import { CheckYourMail } from '../../account/CheckYourMail';
 
 export function SignUpScreen() {
   const [params] = useSearchParams();

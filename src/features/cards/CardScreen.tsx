@@ -6,13 +6,13 @@ import { cardKeyOf, localDb } from '../../local/db';
 import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
 import { useLocalSave } from '../../local/useLocalSave';
-import { RequireSignIn } from '../auth/RequireSignIn';
+import { RequireSignIn } from '../../account/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { RulingHistory } from '../../ui/scorecard/RulingHistory';
 import { END_STATE_LABELS } from '../../ui/scorecard/endStateLabel';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
-import { useCard } from './api/card';
+import { useCard } from '../../api/card';
 import { PaperCountersign } from './PaperCountersign';
 
 const CARD_STATE_WORDS: Record<CardView['state'], string> = {

@@ -1,6 +1,6 @@
-import { RequireSignIn } from '../auth/RequireSignIn';
+import { RequireSignIn } from '../../account/RequireSignIn';
 import { Notice } from '../../ui/Notice';
-import { useMyCards } from './api/card';
+import { useMyCards } from '../../api/card';
 import { CardsToSignList, OwnCardsList } from '../../ui/scorecard/CardLists';
 
 function Lists() {

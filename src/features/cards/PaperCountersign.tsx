@@ -7,7 +7,7 @@ import { syncLoop } from '../../local/syncLoop';
 import { useOnline } from '../../local/online';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
-import { uploadPhoto } from '../desk/api/uploadPhoto';
+import { uploadPhoto } from '../../api/uploadPhoto';
 
 /**
  * A judge records the countersignature an archer without an account made on the paper card: a

@@ -9,7 +9,7 @@ import { Button } from '../../ui/Button';
 import { Field } from '../../ui/Field';
 import { Notice } from '../../ui/Notice';
 import { startingValues, type DeskItem } from './deskItems';
-import { uploadPhoto } from './api/uploadPhoto';
+import { uploadPhoto } from '../../api/uploadPhoto';
 
 /** A judge's ruling on one end: every value (any value valid on the face), a reason, and a photo if there is signal. */
 export function RuleForm({

@@ -1,6 +1,6 @@
 import { useParams, useSearchParams } from 'react-router-dom';
 import type { EventSummary } from '../../contract/events';
-import { RequireSignIn } from '../auth/RequireSignIn';
+import { RequireSignIn } from '../../account/RequireSignIn';
 import { Notice } from '../../ui/Notice';
 import { OrganizerGate } from './components/OrganizerGate';
 import { SectionNav, type Section } from './components/SectionNav';

@@ -1,7 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { createEventSchema } from '../../contract/events';
-import { RequireSignIn } from '../auth/RequireSignIn';
+import { RequireSignIn } from '../../account/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { useEvents } from './api/listEvents';

@@ -1,11 +1,11 @@
 import { useRef, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import type { EventSummary, Position } from '../../contract/events';
-import { RequireSignIn } from '../auth/RequireSignIn';
+import { RequireSignIn } from '../../account/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { archersOnTargets } from './components/archersOnTargets';
-import { useSessionTargets } from './api/sessionTargets';
+import { useSessionTargets } from '../../api/sessionTargets';
 import { useAssignTargets } from './api/assignTargets';
 import { useMoveArcher } from './api/moveArcher';
 import { useSwapArchers } from './api/swapArchers';

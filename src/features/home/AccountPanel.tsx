@@ -1,5 +1,5 @@
 import type { Me } from '../../contract/auth';
-import { SignOut } from '../auth/SignOut';
+import { SignOut } from '../../account/SignOut';
 
 /** Who is signed in, with the way out. */
 export function AccountPanel({ me }: { me: Me }) {

@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import type { Me } from '../../contract/auth';
 import { CardsToSignList, OwnCardsList } from '../../ui/scorecard/CardLists';
-import { useMyCards } from '../cards/api/card';
+import { useMyCards } from '../../api/card';
 
 const eventLink =
   'surface flex min-h-14 items-center justify-between rounded-xl border-2 border-ink bg-card p-3 text-xl font-bold';

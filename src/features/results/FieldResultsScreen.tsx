@@ -1,7 +1,7 @@
 import { useEffect, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import type { EventResults } from '../../contract/results';
-import { useEventResults } from './api/eventResults';
+import { useEventResults } from '../../api/eventResults';
 import { ResultsState } from './components/ResultsState';
 import { TRUST_LABEL, asOf, placeText, shootOffText } from './components/labels';
 

@@ -1,5 +1,5 @@
 import { Link, useParams } from 'react-router-dom';
-import { useEventResults } from './api/eventResults';
+import { useEventResults } from '../../api/eventResults';
 import { ResultsState } from './components/ResultsState';
 import { StandingsTable } from './components/StandingsTable';
 import { TeamsTable } from './components/TeamsTable';

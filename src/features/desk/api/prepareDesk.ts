@@ -1,7 +1,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { apiRequest } from '../../../api/request';
 import type { TargetPackage } from '../../../contract/sync';
-import { fetchSessionTargets } from '../../events/api/sessionTargets';
+import { fetchSessionTargets } from '../../../api/sessionTargets';
 import { localDb, targetKeyOf, type JoinedTarget } from '../../../local/db';
 import { syncLoop } from '../../../local/syncLoop';
 import { askPersistentStorage } from '../../../local/useSync';

@@ -1,6 +1,6 @@
 import type { AssignResult } from '../../../contract/events';
-import { jsonBody, send } from './eventKeys';
-import { sessionPath, useTargetMutation } from './sessionTargets';
+import { jsonBody, send } from '../../../api/eventKeys';
+import { sessionPath, useTargetMutation } from '../../../api/sessionTargets';
 
 /** Replaces the session's layout with the automatic one. */
 export const assignTargets = (eventId: number, sessionId: number) =>

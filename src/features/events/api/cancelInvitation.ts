@@ -1,4 +1,4 @@
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const cancelInvitation = (eventId: number, invitationId: number) =>
   send<void>(eventPath(eventId, `/staff/invitations/${invitationId}`), jsonBody('DELETE'));

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '../../../api/request';
 import type { CloseCheck } from '../../../contract/lateValues';
-import { sessionPath } from './sessionTargets';
+import { sessionPath } from '../../../api/sessionTargets';
 
 export const fetchCloseCheck = (eventId: number, sessionId: number) =>
   apiRequest<CloseCheck>(sessionPath(eventId, sessionId, '/close-check'));

@@ -1,5 +1,5 @@
 import type { EventSession } from '../../../contract/events';
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const closeSession = (eventId: number, sessionId: number) =>
   send<EventSession>(eventPath(eventId, `/sessions/${sessionId}/close`), jsonBody('POST'));

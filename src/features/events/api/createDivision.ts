@@ -1,5 +1,5 @@
 import type { Division, DivisionInput } from '../../../contract/events';
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const createDivision = (eventId: number, input: DivisionInput) =>
   send<Division>(eventPath(eventId, '/divisions'), jsonBody('POST', input));

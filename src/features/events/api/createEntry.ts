@@ -1,5 +1,5 @@
 import type { Entry, EntryInput } from '../../../contract/events';
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const createEntry = (eventId: number, input: EntryInput) =>
   send<Entry>(eventPath(eventId, '/entries'), jsonBody('POST', input));

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateEventInput, EventDetails } from '../../../contract/events';
 import { checkMe } from '../../../local/me';
-import { eventKeys, jsonBody, send } from './eventKeys';
+import { eventKeys, jsonBody, send } from '../../../api/eventKeys';
 
 export const createEvent = (input: CreateEventInput) =>
   send<EventDetails>('/api/events', jsonBody('POST', input));

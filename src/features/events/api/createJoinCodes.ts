@@ -1,6 +1,6 @@
 import type { TargetList } from '../../../contract/events';
-import { jsonBody, send } from './eventKeys';
-import { sessionPath, useTargetMutation } from './sessionTargets';
+import { jsonBody, send } from '../../../api/eventKeys';
+import { sessionPath, useTargetMutation } from '../../../api/sessionTargets';
 
 /** A code for every target that has archers but no code. */
 export const createJoinCodes = (eventId: number, sessionId: number) =>

@@ -1,5 +1,5 @@
 import type { EventSession, SessionInput } from '../../../contract/events';
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const createSession = (eventId: number, input: SessionInput) =>
   send<EventSession>(eventPath(eventId, '/sessions'), jsonBody('POST', input));

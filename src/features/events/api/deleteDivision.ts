@@ -1,4 +1,4 @@
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const deleteDivision = (eventId: number, divisionId: number) =>
   send<void>(eventPath(eventId, `/divisions/${divisionId}`), jsonBody('DELETE'));

@@ -1,4 +1,4 @@
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const deleteEntry = (eventId: number, entryId: number) =>
   send<void>(eventPath(eventId, `/entries/${entryId}`), jsonBody('DELETE'));

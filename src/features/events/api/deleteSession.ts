@@ -1,4 +1,4 @@
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const deleteSession = (eventId: number, sessionId: number) =>
   send<void>(eventPath(eventId, `/sessions/${sessionId}`), jsonBody('DELETE'));

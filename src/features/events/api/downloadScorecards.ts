@@ -1,6 +1,6 @@
 import { useMutation } from '@tanstack/react-query';
-import { downloadFile } from './downloadFile';
-import { sessionPath } from './sessionTargets';
+import { downloadFile } from '../../../api/downloadFile';
+import { sessionPath } from '../../../api/sessionTargets';
 
 export const downloadScorecards = (eventId: number, sessionId: number) =>
   downloadFile(sessionPath(eventId, sessionId, '/scorecards.pdf'), `scorecards-session-${sessionId}.pdf`);

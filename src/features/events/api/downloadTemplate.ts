@@ -1,6 +1,6 @@
 import { useMutation } from '@tanstack/react-query';
-import { eventPath } from './eventKeys';
-import { downloadFile } from './downloadFile';
+import { eventPath } from '../../../api/eventKeys';
+import { downloadFile } from '../../../api/downloadFile';
 
 export const downloadTemplate = (eventId: number) =>
   downloadFile(eventPath(eventId, '/entries/template.csv'), 'ringcall-entries.csv');

@@ -1,5 +1,5 @@
 import type { ImportResult } from '../../../contract/events';
-import { eventPath, send, useEventMutation } from './eventKeys';
+import { eventPath, send, useEventMutation } from '../../../api/eventKeys';
 import { csvForm } from './previewImport';
 
 /** Imports the whole file, or nothing (the server refuses with the problems). */

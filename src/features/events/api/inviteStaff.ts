@@ -1,5 +1,5 @@
 import type { InviteStaffInput, PendingInvitation } from '../../../contract/events';
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const inviteStaff = (eventId: number, input: InviteStaffInput) =>
   send<PendingInvitation>(eventPath(eventId, '/staff'), jsonBody('POST', input));

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '../../../api/request';
 import type { EntryList } from '../../../contract/events';
-import { eventKeys, eventPath } from './eventKeys';
+import { eventKeys, eventPath } from '../../../api/eventKeys';
 
 export const fetchEntries = (eventId: number) => apiRequest<EntryList>(eventPath(eventId, '/entries'));
 

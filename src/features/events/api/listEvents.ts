@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '../../../api/request';
 import type { EventList } from '../../../contract/events';
-import { eventKeys } from './eventKeys';
+import { eventKeys } from '../../../api/eventKeys';
 
 export const fetchEvents = () => apiRequest<EventList>('/api/events');
 

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '../../../api/request';
 import type { StaffList } from '../../../contract/events';
-import { eventKeys, eventPath } from './eventKeys';
+import { eventKeys, eventPath } from '../../../api/eventKeys';
 
 export const fetchStaff = (eventId: number) => apiRequest<StaffList>(eventPath(eventId, '/staff'));
 

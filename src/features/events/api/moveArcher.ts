@@ -1,6 +1,6 @@
 import type { MoveArcherInput, TargetList } from '../../../contract/events';
-import { jsonBody, send } from './eventKeys';
-import { sessionPath, useTargetMutation } from './sessionTargets';
+import { jsonBody, send } from '../../../api/eventKeys';
+import { sessionPath, useTargetMutation } from '../../../api/sessionTargets';
 
 export const moveArcher = (eventId: number, sessionId: number, input: MoveArcherInput) =>
   send<TargetList>(sessionPath(eventId, sessionId, '/assignments/move'), jsonBody('POST', input));

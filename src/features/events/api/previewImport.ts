@@ -1,6 +1,6 @@
 import { useMutation } from '@tanstack/react-query';
 import type { ImportPreview } from '../../../contract/events';
-import { eventPath, send } from './eventKeys';
+import { eventPath, send } from '../../../api/eventKeys';
 
 export const csvForm = (file: File) => {
   const form = new FormData();

@@ -1,6 +1,6 @@
 import type { TargetList } from '../../../contract/events';
-import { jsonBody, send } from './eventKeys';
-import { sessionPath, useTargetMutation } from './sessionTargets';
+import { jsonBody, send } from '../../../api/eventKeys';
+import { sessionPath, useTargetMutation } from '../../../api/sessionTargets';
 
 /** Revokes the target's code (if any) and issues a new one. */
 export const reissueJoinCode = (eventId: number, sessionId: number, targetNumber: number) =>

@@ -1,5 +1,5 @@
 import type { StaffRole } from '../../../contract/events';
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const removeStaff = (eventId: number, userId: number, role: StaffRole) =>
   send<void>(eventPath(eventId, `/staff/${userId}/${role}`), jsonBody('DELETE'));

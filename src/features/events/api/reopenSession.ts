@@ -1,5 +1,5 @@
 import type { EventSession } from '../../../contract/events';
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const reopenSession = (eventId: number, sessionId: number) =>
   send<EventSession>(eventPath(eventId, `/sessions/${sessionId}/reopen`), jsonBody('POST'));

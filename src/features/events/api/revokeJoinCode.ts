@@ -1,6 +1,6 @@
 import type { TargetList } from '../../../contract/events';
-import { jsonBody, send } from './eventKeys';
-import { sessionPath, useTargetMutation } from './sessionTargets';
+import { jsonBody, send } from '../../../api/eventKeys';
+import { sessionPath, useTargetMutation } from '../../../api/sessionTargets';
 
 export const revokeJoinCode = (eventId: number, sessionId: number, targetNumber: number) =>
   send<TargetList>(sessionPath(eventId, sessionId, `/targets/${targetNumber}/join-code`), jsonBody('DELETE'));

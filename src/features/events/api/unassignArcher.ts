@@ -1,6 +1,6 @@
 import type { TargetList } from '../../../contract/events';
-import { jsonBody, send } from './eventKeys';
-import { sessionPath, useTargetMutation } from './sessionTargets';
+import { jsonBody, send } from '../../../api/eventKeys';
+import { sessionPath, useTargetMutation } from '../../../api/sessionTargets';
 
 export const unassignArcher = (eventId: number, sessionId: number, entryId: number) =>
   send<TargetList>(sessionPath(eventId, sessionId, `/assignments/${entryId}`), jsonBody('DELETE'));

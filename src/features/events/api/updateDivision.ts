@@ -1,5 +1,5 @@
 import type { Division, DivisionInput } from '../../../contract/events';
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const updateDivision = (eventId: number, divisionId: number, input: DivisionInput) =>
   send<Division>(eventPath(eventId, `/divisions/${divisionId}`), jsonBody('PUT', input));

@@ -1,5 +1,5 @@
 import type { Entry, UpdateEntryInput } from '../../../contract/events';
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const updateEntry = (eventId: number, entryId: number, input: UpdateEntryInput) =>
   send<Entry>(eventPath(eventId, `/entries/${entryId}`), jsonBody('PATCH', input));

@@ -1,5 +1,5 @@
 import type { EventDetails, UpdateEventInput } from '../../../contract/events';
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const updateEvent = (eventId: number, input: UpdateEventInput) =>
   send<EventDetails>(eventPath(eventId), jsonBody('PATCH', input));

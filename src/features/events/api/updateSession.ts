@@ -1,5 +1,5 @@
 import type { EventSession, UpdateSessionInput } from '../../../contract/events';
-import { eventPath, jsonBody, send, useEventMutation } from './eventKeys';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
 export const updateSession = (eventId: number, sessionId: number, input: UpdateSessionInput) =>
   send<EventSession>(eventPath(eventId, `/sessions/${sessionId}`), jsonBody('PATCH', input));

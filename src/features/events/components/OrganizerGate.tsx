@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { ApiError } from '../../../api/request';
 import type { EventSummary } from '../../../contract/events';
 import { Notice } from '../../../ui/Notice';
-import { useEventSummary } from '../api/eventSummary';
+import { useEventSummary } from '../../../api/eventSummary';
 
 export const ONLY_ORGANIZERS = "Only the event's organizers can change its setup.";
 

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '../../../api/request';
 import type { EventResults, ResultsSettings } from '../../../contract/results';
-import { resultsKey } from './eventResults';
+import { resultsKey } from '../../../api/eventResults';
 
 export const updateResultsSettings = (eventId: number, settings: ResultsSettings) =>
   apiRequest<EventResults>(`/api/events/${eventId}/results-settings`, {

@@ -5,8 +5,8 @@ import type { EventResults } from '../../../contract/results';
 import { Button } from '../../../ui/Button';
 import { Field } from '../../../ui/Field';
 import { Notice } from '../../../ui/Notice';
-import { downloadFile } from '../../events/api/downloadFile';
-import { useEventResults } from '../api/eventResults';
+import { downloadFile } from '../../../api/downloadFile';
+import { useEventResults } from '../../../api/eventResults';
 import { useUpdateResultsSettings } from '../api/updateResultsSettings';
 
 const cutOf = (results: EventResults, divisionId: number) =>

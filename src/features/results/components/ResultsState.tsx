@@ -1,7 +1,7 @@
 import type { UseQueryResult } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
 import { Notice } from '../../../ui/Notice';
-import type { HeldResults } from '../api/eventResults';
+import type { HeldResults } from '../../../api/eventResults';
 import { asOf } from './labels';
 
 /**

@@ -1,4 +1,4 @@
-import { Notice } from '../../ui/Notice';
+import { Notice } from '../ui/Notice';
 
 /**
  * Sign-up under an address whose account was never confirmed: the person who reads that mailbox

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { apiRequest } from '../../../api/request';
-import type { CardView } from '../../../contract/judging';
-import type { MyCards } from '../../../contract/myCards';
+import { apiRequest } from './request';
+import type { CardView } from '../contract/judging';
+import type { MyCards } from '../contract/myCards';
 
 export const cardQuery = (sessionId: number, entryId: number) =>
   queryOptions({

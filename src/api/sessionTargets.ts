@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { apiRequest } from '../../../api/request';
-import type { TargetList } from '../../../contract/events';
+import { apiRequest } from './request';
+import type { TargetList } from '../contract/events';
 import { eventKeys, eventPath } from './eventKeys';
 
 export const sessionPath = (eventId: number, sessionId: number, rest = '') =>

@@ -1,4 +1,4 @@
-import { apiRequest } from '../../../api/request';
+import { apiRequest } from './request';
 
 /** Uploads a photo of the target for a ruling; photos need signal (rulings do not). */
 export async function uploadPhoto(eventId: number, file: File): Promise<{ photoId: number }> {

@@ -1,16 +1,16 @@
 import { useMutation } from '@tanstack/react-query';
-import { ApiError, apiRequest } from '../../../api/request';
-import { serverFetch } from '../../../api/serverFetch';
+import { ApiError, apiRequest } from '../api/request';
+import { serverFetch } from '../api/serverFetch';
 import type {
   AuthSession,
   ResetPasswordInput,
   SignInInput,
   SignUpInput,
   SignUpPending,
-} from '../../../contract/auth';
-import { setSession } from '../../../api/session';
-import { releasePhone } from '../../../local/phoneOwner';
-import { checkMe, setMe } from '../../../local/me';
+} from '../contract/auth';
+import { setSession } from '../api/session';
+import { releasePhone } from '../local/phoneOwner';
+import { checkMe, setMe } from '../local/me';
 
 /** A sign-up under an unconfirmed account's address: nothing happens until the mailed link is used. */
 export const isPending = (answer: AuthSession | SignUpPending): answer is SignUpPending =>

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { apiRequest } from '../../../api/request';
-import type { EventSummary } from '../../../contract/events';
+import { apiRequest } from './request';
+import type { EventSummary } from '../contract/events';
 import { eventKeys, eventPath } from './eventKeys';
 
 export const fetchEventSummary = (eventId: number) => apiRequest<EventSummary>(eventPath(eventId));

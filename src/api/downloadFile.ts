@@ -1,4 +1,4 @@
-import { apiDownload } from '../../../api/request';
+import { apiDownload } from './request';
 
 /** Fetches a file with the person's sign-in and hands it to the browser as a download. */
 export async function downloadFile(path: string, filename: string): Promise<void> {

@@ -1,14 +1,14 @@
 import { useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { useLiveQuery } from 'dexie-react-hooks';
-import { cardQuery, myCardsQuery } from '../cards/api/card';
-import { localDb } from '../../local/db';
-import { saveWaitingFile } from '../../local/saveWaitingFile';
-import { syncLoop } from '../../local/syncLoop';
-import { waitingInWords } from '../../local/waitingInWords';
-import { Button } from '../../ui/Button';
-import { Notice } from '../../ui/Notice';
-import { useSignOut } from './api/signIn';
+import { cardQuery, myCardsQuery } from '../api/card';
+import { localDb } from '../local/db';
+import { saveWaitingFile } from '../local/saveWaitingFile';
+import { syncLoop } from '../local/syncLoop';
+import { waitingInWords } from '../local/waitingInWords';
+import { Button } from '../ui/Button';
+import { Notice } from '../ui/Notice';
+import { useSignOut } from './signIn';
 
 /** Names of archers whose cards this person looked at, from the query cache. */
 function useCardNames() {

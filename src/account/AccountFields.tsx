@@ -1,5 +1,5 @@
-import { signUpSchema, type SignUpInput } from '../../contract/auth';
-import { Field } from '../../ui/Field';
+import { signUpSchema, type SignUpInput } from '../contract/auth';
+import { Field } from '../ui/Field';
 
 export type AccountForm = { displayName: string; email: string; password: string };
 export const emptyAccount: AccountForm = { displayName: '', email: '', password: '' };

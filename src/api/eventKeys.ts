@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiRequest } from '../../../api/request';
+import { apiRequest } from './request';
 
 /** Query keys of the event setup: everything of one event sits under ['events', id]. */
 export const eventKeys = {

@@ -1,8 +1,8 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { errorFrom } from '../../../api/request';
-import { serverFetch } from '../../../api/serverFetch';
-import type { EventResults } from '../../../contract/results';
-import { accessToken, onSessionChange } from '../../../api/session';
+import { errorFrom } from './request';
+import { serverFetch } from './serverFetch';
+import type { EventResults } from '../contract/results';
+import { accessToken, onSessionChange } from './session';
 
 /** The standings with the tag the server gave them, so the next poll can answer 304. */
 export type HeldResults = { etag: string | null; results: EventResults };

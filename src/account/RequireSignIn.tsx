@@ -1,8 +1,8 @@
 import type { ReactNode } from 'react';
 import { Navigate, useLocation } from 'react-router-dom';
-import type { Me } from '../../contract/auth';
-import { Notice } from '../../ui/Notice';
-import { useMe } from '../../local/me';
+import type { Me } from '../contract/auth';
+import { Notice } from '../ui/Notice';
+import { useMe } from '../local/me';
 
 /** Renders its children for a signed-in person, otherwise sends them to sign in and back. */
 export function RequireSignIn({ children }: { children: (me: Me) => ReactNode }) {
