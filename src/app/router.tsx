@@ -4,6 +4,7 @@ import { AppLayout } from './AppLayout';
 import { lazyScreen } from './lazyScreen';
 import { RouteBoundary } from './RouteBoundary';
 import { authRoutes } from '../features/auth/routes';
+import { joinRoutes } from '../features/join/routes';
 import { padRoutes } from '../features/pad/routes';
 import { deskRoutes } from '../features/desk/routes';
 import { verifyRoutes } from '../features/verify/routes';
@@ -41,6 +42,7 @@ const routes: RouteObject[] = [
             element: lazyScreen(async () => (await import('../features/home/HomeScreen')).HomeScreen),
           },
           ...authRoutes,
+          ...joinRoutes,
           ...padRoutes,
           ...deskRoutes,
           ...verifyRoutes,

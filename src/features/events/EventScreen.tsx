@@ -11,7 +11,7 @@ import { SessionsPart } from './parts/SessionsPart';
 import { EntriesPart } from './parts/EntriesPart';
 import { StaffPart } from './parts/StaffPart';
 import { TargetsPart } from './parts/TargetsPart';
-import { ResultsPart } from '../results/components/ResultsPart';
+import { ResultsPart } from './parts/ResultsPart';
 
 /** The next thing to set up, in the order an event is built. */
 function nextStep(s: EventSummary): { text: string; part: string } | undefined {

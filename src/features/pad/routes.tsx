@@ -2,7 +2,6 @@ import type { RouteObject } from 'react-router-dom';
 import { lazyScreen } from '../../app/lazyScreen';
 
 export const padRoutes: RouteObject[] = [
-  { path: 'join', element: lazyScreen(async () => (await import('../join/JoinScreen')).JoinScreen) },
   {
     path: 'pad/:sessionId/:targetNumber',
     // Works from IndexedDB alone: the field screen loads without the query library.
