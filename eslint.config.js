@@ -2,6 +2,7 @@ import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 import reactHooks from 'eslint-plugin-react-hooks';
 import globals from 'globals';
+import { layersPlugin } from './lint/layerImports.js';
 
 export default tseslint.config(
   { ignores: ['dist', 'node_modules', 'data', '.tmp', 'test-results', 'playwright-report', 'dev-dist'] },
@@ -40,12 +41,19 @@ export default tseslint.config(
     },
   },
   {
+    // Layers that show in the folders: features stay apart, shared code stays below them.
+    files: ['src/**/*.{ts,tsx}'],
+    plugins: { layers: layersPlugin },
+    rules: { 'layers/layer-imports': 'error' },
+  },
+  {
     files: [
       'server/**/*.ts',
       'migrations/**/*.ts',
-      'tests/{server,e2e,support}/**/*.ts',
+      'tests/{server,e2e,support,lint}/**/*.ts',
       'bench/**/*.ts',
       'scripts/**/*.ts',
+      'lint/**/*.js',
       '*.config.{ts,js}',
     ],
     languageOptions: { globals: globals.node },
