@@ -2,10 +2,10 @@ import bcrypt from 'bcryptjs';
 import type { Db } from '../db';
 import { nowIso } from '../time';
 import { getRound } from '../../src/core';
-import { ensureJoinCodes } from '../services/joinCodes';
-import { planTargets } from '../services/targetAssignment';
-import { loadLayout } from '../services/targetLayout';
-import type { SessionRow } from '../services/sessions';
+import { ensureJoinCodes } from '../services/organizer/joinCodes';
+import { planTargets } from '../services/organizer/targetAssignment';
+import { loadLayout } from '../services/organizer/targetLayout';
+import type { SessionRow } from '../services/organizer/sessions';
 import type { SigningKeys } from '../signing/serverKeys';
 import { playDemoField } from './demoField';
 import {

@@ -4,7 +4,7 @@ import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
 import { idParam } from '../http/params';
 import { validateBody } from '../http/validate';
-import { createDivision, deleteDivision, listDivisions, updateDivision } from '../services/divisions';
+import { createDivision, deleteDivision, listDivisions, updateDivision } from '../services/organizer/divisions';
 
 /** Divisions of an event: a bow style and a class. Organizers change them; staff read them. */
 export function divisionRoutes(ctx: AppContext): Router {

@@ -5,8 +5,8 @@ import { requireEventRole } from '../auth/eventRoles';
 import { csvUpload } from '../http/csvUpload';
 import { idParam } from '../http/params';
 import { validateBody } from '../http/validate';
-import { createEntry, deleteEntry, listEntries, updateEntry } from '../services/entries';
-import { entryTemplateCsv, importEntries, previewEntryImport } from '../services/entryImport';
+import { createEntry, deleteEntry, listEntries, updateEntry } from '../services/organizer/entries';
+import { entryTemplateCsv, importEntries, previewEntryImport } from '../services/organizer/entryImport';
 
 /** The entry list: by form, or a CSV file checked in full before anything is stored. */
 export function entryRoutes(ctx: AppContext): Router {

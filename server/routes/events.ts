@@ -3,7 +3,7 @@ import { createEventSchema, updateEventSchema } from '../../src/contract/events'
 import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
 import { validateBody } from '../http/validate';
-import { createEvent, listEventsFor, loadEventSummary, updateEvent } from '../services/events';
+import { createEvent, listEventsFor, loadEventSummary, updateEvent } from '../services/organizer/events';
 
 /** Events: anyone signed in may create one (and becomes its organizer); each person sees their own. */
 export function eventRoutes(ctx: AppContext): Router {

@@ -12,7 +12,7 @@ import { cardView, sessionCards } from '../services/judging/cardViews';
 import { sendFinalCard } from '../services/judging/finalCard';
 import { judgeDesk } from '../services/judging/judgeDesk';
 import { readPhoto, storePhoto } from '../services/judging/photos';
-import { findSession } from '../services/sessions';
+import { findSession } from '../services/organizer/sessions';
 import { verifySignature } from '../services/signing/verify';
 
 /**

@@ -4,8 +4,8 @@ import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
 import { idParam } from '../http/params';
 import { validateBody } from '../http/validate';
-import { sessionCloseCheck } from '../services/sessionCloseCheck';
-import { findSession } from '../services/sessions';
+import { sessionCloseCheck } from '../services/organizer/sessionCloseCheck';
+import { findSession } from '../services/organizer/sessions';
 import { acceptLateValue, listLateValues, rejectLateValue } from '../services/sync/lateValues';
 
 /**

@@ -2,7 +2,7 @@ import { Router, type Request, type Response } from 'express';
 import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
 import { idParam } from '../http/params';
-import { findSession } from '../services/sessions';
+import { findSession } from '../services/organizer/sessions';
 import { loadPrintSession } from '../services/printouts/printSession';
 import { scorecardsPdf } from '../services/printouts/scorecards';
 import { targetSheetsPdf } from '../services/printouts/targetSheets';

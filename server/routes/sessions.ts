@@ -10,7 +10,7 @@ import {
   listSessions,
   setSessionClosed,
   updateSession,
-} from '../services/sessions';
+} from '../services/organizer/sessions';
 
 /** Sessions of shooting and the round each division shoots in them. */
 export function sessionRoutes(ctx: AppContext): Router {

@@ -5,7 +5,7 @@ import { requireEventRole } from '../auth/eventRoles';
 import { notFound } from '../http/httpError';
 import { idParam } from '../http/params';
 import { validateBody } from '../http/validate';
-import { cancelInvitation, inviteStaff, listStaff, removeStaffRole } from '../services/staff';
+import { cancelInvitation, inviteStaff, listStaff, removeStaffRole } from '../services/organizer/staff';
 
 /** Organizers and judges: invited by e-mail, listed with pending invitations, removed by role. */
 export function staffRoutes(ctx: AppContext): Router {

@@ -6,7 +6,7 @@ import { requireEventRole } from '../auth/eventRoles';
 import { notFound } from '../http/httpError';
 import { idParam } from '../http/params';
 import { validateBody } from '../http/validate';
-import { findSession } from '../services/sessions';
+import { findSession } from '../services/organizer/sessions';
 import { setMemberTask, targetMembers } from '../services/sync/targetTasks';
 
 /** Organizers and judges see who keeps which task on a target, and free or reassign a task. */

@@ -5,17 +5,17 @@ import { requireEventRole } from '../auth/eventRoles';
 import { notFound } from '../http/httpError';
 import { idParam } from '../http/params';
 import { validateBody } from '../http/validate';
-import { reissueJoinCode, revokeJoinCode } from '../services/joinCodes';
+import { reissueJoinCode, revokeJoinCode } from '../services/organizer/joinCodes';
 import { audit } from '../services/audit';
-import { findSession } from '../services/sessions';
+import { findSession } from '../services/organizer/sessions';
 import {
   assignAutomatically,
   createMissingJoinCodes,
   moveArcher,
   swapArchers,
   unassignArcher,
-} from '../services/targetAssignment';
-import { loadTargetList } from '../services/targetLayout';
+} from '../services/organizer/targetAssignment';
+import { loadTargetList } from '../services/organizer/targetLayout';
 
 /** Target assignments and join codes of one session. Every change answers with the new layout. */
 export function targetRoutes(ctx: AppContext): Router {

@@ -3,10 +3,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Conflict, Target, TargetList } from '../../src/contract/events';
 import { startTestServer, type TestServer } from './support/testServer';
 import { addArchers, setUpEvent, type SetUpEvent } from './support/eventSetup';
-import { planTargets } from '../../server/services/targetAssignment';
-import { findConflicts, type PlacedArcher } from '../../server/services/targetConflicts';
-import { JOIN_CODE_ALPHABET, JOIN_CODE_LENGTH, randomJoinCode } from '../../server/services/joinCodes';
-import { facesPerTarget } from '../../server/services/targetFaces';
+import { planTargets } from '../../server/services/organizer/targetAssignment';
+import { findConflicts, type PlacedArcher } from '../../server/services/organizer/targetConflicts';
+import { JOIN_CODE_ALPHABET, JOIN_CODE_LENGTH, randomJoinCode } from '../../server/services/organizer/joinCodes';
+import { facesPerTarget } from '../../server/services/organizer/targetFaces';
 import { getRound } from '../../src/core';
 
 let server: TestServer;

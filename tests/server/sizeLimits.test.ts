@@ -2,7 +2,7 @@ import type { AddressInfo } from 'node:net';
 import { createServer, type Server } from 'node:http';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { EVENT_LIMITS } from '../../server/services/eventLimits';
+import { EVENT_LIMITS } from '../../server/services/organizer/eventLimits';
 import { nowIso } from '../../server/time';
 import { startTestServer, type TestServer } from './support/testServer';
 import { addArchers, pdfPageCount, setUpEvent, type SetUpEvent } from './support/eventSetup';

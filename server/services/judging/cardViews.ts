@@ -9,7 +9,7 @@ import {
 import type { Position } from '../../../src/contract/events';
 import type { CardState, CardView, SessionCardItem, SessionCards } from '../../../src/contract/judging';
 import type { Db } from '../../db';
-import type { SessionRow } from '../sessions';
+import type { SessionRow } from '../organizer/sessions';
 import { isFinal, type CardData, type cardRelation } from './cardData';
 import { endFactsOf, loadEndRecords } from './endRecords';
 

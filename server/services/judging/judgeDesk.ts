@@ -2,7 +2,7 @@ import { endView, endTotal, endsOfRound, type RoundDefinition } from '../../../s
 import type { Position } from '../../../src/contract/events';
 import type { JudgeDeskItem } from '../../../src/contract/judging';
 import type { Db } from '../../db';
-import type { SessionRow } from '../sessions';
+import type { SessionRow } from '../organizer/sessions';
 import { loadEndRecords, type StoredEnd } from './endRecords';
 import { arrowsInWords, differingPositions, incidentsInWords, incidentsOf } from './endWords';
 

@@ -2,11 +2,11 @@ import type { Position } from '../../../src/contract/events';
 import type { RoundDefinition } from '../../../src/core';
 import type { Db } from '../../db';
 import { conflict } from '../../http/httpError';
-import { loadEvent } from '../events';
-import { activeJoinCodes, joinUrl } from '../joinCodes';
-import type { SessionRow } from '../sessions';
-import { facesPerTarget } from '../targetFaces';
-import { loadLayout } from '../targetLayout';
+import { loadEvent } from '../organizer/events';
+import { activeJoinCodes, joinUrl } from '../organizer/joinCodes';
+import type { SessionRow } from '../organizer/sessions';
+import { facesPerTarget } from '../organizer/targetFaces';
+import { loadLayout } from '../organizer/targetLayout';
 
 export type PrintArcher = {
   entryId: number;

@@ -1,7 +1,7 @@
 import type { Writable } from 'node:stream';
 import { POSITIONS } from '../../../src/contract/events';
 import { getFace } from '../../../src/core';
-import { faceIsPerPosition } from '../targetFaces';
+import { faceIsPerPosition } from '../organizer/targetFaces';
 import { PrintDocument } from './pdfDocument';
 import type { PrintSession } from './printSession';
 

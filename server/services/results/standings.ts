@@ -18,7 +18,7 @@ import type {
 import type { Db } from '../../db';
 import { nowIso } from '../../time';
 import { loadEndRecords } from '../judging/endRecords';
-import { parseRound, sessionDivisions } from '../sessions';
+import { parseRound, sessionDivisions } from '../organizer/sessions';
 import type { ResultsEvent } from './resultsEvent';
 
 type ArcherRow = {

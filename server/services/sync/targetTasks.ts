@@ -3,7 +3,7 @@ import type { Task } from '../../../src/contract/sync';
 import type { Db } from '../../db';
 import { notFound } from '../../http/httpError';
 import { audit } from '../audit';
-import type { SessionRow } from '../sessions';
+import type { SessionRow } from '../organizer/sessions';
 import { TASK_ORDER, isSingleHolderTask } from './tasks';
 
 /** The people who joined a target with its code, writers first. */

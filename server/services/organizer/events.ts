@@ -1,16 +1,16 @@
-import type { EventRole } from '../../src/contract/auth';
+import type { EventRole } from '../../../src/contract/auth';
 import type {
   CreateEventInput,
   EventDetails,
   EventList,
   EventSummary,
   UpdateEventInput,
-} from '../../src/contract/events';
-import type { Db } from '../db';
-import { badRequest, notFound } from '../http/httpError';
-import { nowIso } from '../time';
-import { audit } from './audit';
-import { grantRole } from './accounts';
+} from '../../../src/contract/events';
+import type { Db } from '../../db';
+import { badRequest, notFound } from '../../http/httpError';
+import { nowIso } from '../../time';
+import { audit } from '../audit';
+import { grantRole } from '../accounts';
 import { listDivisions } from './divisions';
 import { listSessions } from './sessions';
 

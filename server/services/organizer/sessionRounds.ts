@@ -1,4 +1,4 @@
-import type { BowStyleName, RoundSummary, SessionRoundInput } from '../../src/contract/events';
+import type { BowStyleName, RoundSummary, SessionRoundInput } from '../../../src/contract/events';
 import {
   ScoringError,
   defineCustomRound,
@@ -8,8 +8,8 @@ import {
   roundEndCount,
   roundMaxScore,
   type RoundDefinition,
-} from '../../src/core';
-import { badRequest } from '../http/httpError';
+} from '../../../src/core';
+import { badRequest } from '../../http/httpError';
 
 /** What a screen shows of a round: its distances with face names, arrows, ends and the maximum. */
 export function roundSummary(round: RoundDefinition, custom: boolean): RoundSummary {

@@ -1,4 +1,4 @@
-import type { Conflict } from '../../src/contract/events';
+import type { Conflict } from '../../../src/contract/events';
 
 /** Most archers one target takes: positions A–D. */
 export const ARCHERS_PER_TARGET = 4;

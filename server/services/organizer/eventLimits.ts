@@ -1,5 +1,5 @@
-import type { Db } from '../db';
-import { HttpError } from '../http/httpError';
+import type { Db } from '../../db';
+import { HttpError } from '../../http/httpError';
 
 /**
  * How much one event may hold. Each is well above the largest tournaments (a world championship

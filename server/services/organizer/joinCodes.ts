@@ -1,9 +1,9 @@
 import { randomInt } from 'node:crypto';
 import QRCode from 'qrcode';
-import type { JoinCode } from '../../src/contract/events';
-import type { Db } from '../db';
-import { conflict, notFound } from '../http/httpError';
-import { nowIso } from '../time';
+import type { JoinCode } from '../../../src/contract/events';
+import type { Db } from '../../db';
+import { conflict, notFound } from '../../http/httpError';
+import { nowIso } from '../../time';
 
 /**
  * Join codes are read off a target sheet and typed on a phone in the field, so the alphabet

@@ -3,11 +3,11 @@ import {
   type MoveArcherInput,
   type Position,
   type SwapArchersInput,
-} from '../../src/contract/events';
-import type { Db } from '../db';
-import { conflict, notFound } from '../http/httpError';
-import { audit } from './audit';
-import { scoresExist } from './fieldData';
+} from '../../../src/contract/events';
+import type { Db } from '../../db';
+import { conflict, notFound } from '../../http/httpError';
+import { audit } from '../audit';
+import { scoresExist } from '../fieldData';
 import { assignedTargetNumbers, ensureJoinCodes } from './joinCodes';
 import { requireOpen, type SessionRow } from './sessions';
 import { ARCHERS_PER_TARGET } from './targetConflicts';

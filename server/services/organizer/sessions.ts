@@ -1,11 +1,11 @@
-import type { EventSession, SessionInput, SessionRound, UpdateSessionInput } from '../../src/contract/events';
-import type { RoundDefinition } from '../../src/core';
-import type { Db } from '../db';
+import type { EventSession, SessionInput, SessionRound, UpdateSessionInput } from '../../../src/contract/events';
+import type { RoundDefinition } from '../../../src/core';
+import type { Db } from '../../db';
 import { refuseOverLimit } from './eventLimits';
-import { badRequest, conflict, notFound } from '../http/httpError';
-import { nowIso } from '../time';
-import { audit } from './audit';
-import { scoresExist } from './fieldData';
+import { badRequest, conflict, notFound } from '../../http/httpError';
+import { nowIso } from '../../time';
+import { audit } from '../audit';
+import { scoresExist } from '../fieldData';
 import { resolveRound, roundSummary } from './sessionRounds';
 
 export type SessionRow = {

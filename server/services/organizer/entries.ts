@@ -1,12 +1,12 @@
-import type { Entry, EntryInput, EntryList, UpdateEntryInput } from '../../src/contract/events';
-import type { Db } from '../db';
+import type { Entry, EntryInput, EntryList, UpdateEntryInput } from '../../../src/contract/events';
+import type { Db } from '../../db';
 import { refuseOverLimit } from './eventLimits';
-import { conflict, notFound } from '../http/httpError';
-import { nowIso } from '../time';
-import { audit } from './audit';
-import { grantRole } from './accounts';
+import { conflict, notFound } from '../../http/httpError';
+import { nowIso } from '../../time';
+import { audit } from '../audit';
+import { grantRole } from '../accounts';
 import { findDivision } from './divisions';
-import { scoresExist } from './fieldData';
+import { scoresExist } from '../fieldData';
 
 type EntryRow = {
   id: number;

@@ -1,9 +1,9 @@
-import type { BowStyleName, Division, DivisionInput } from '../../src/contract/events';
-import type { RoundDefinition } from '../../src/core';
-import type { Db } from '../db';
+import type { BowStyleName, Division, DivisionInput } from '../../../src/contract/events';
+import type { RoundDefinition } from '../../../src/core';
+import type { Db } from '../../db';
 import { refuseOverLimit } from './eventLimits';
-import { conflict, notFound } from '../http/httpError';
-import { audit } from './audit';
+import { conflict, notFound } from '../../http/httpError';
+import { audit } from '../audit';
 
 type DivisionRow = {
   id: number;

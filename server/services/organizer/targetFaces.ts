@@ -1,4 +1,4 @@
-import type { FaceId, RoundDefinition } from '../../src/core';
+import type { FaceId, RoundDefinition } from '../../../src/core';
 
 /**
  * Faces each position shoots on its own: the 80 cm six-ring and the 40 cm triple (product brief:

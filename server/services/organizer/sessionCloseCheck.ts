@@ -1,7 +1,7 @@
-import { endView, endsOfRound, type RoundDefinition } from '../../src/core';
-import type { CloseCheck, CloseCheckTarget } from '../../src/contract/lateValues';
-import type { Db } from '../db';
-import { loadEndRecords } from './judging/endRecords';
+import { endView, endsOfRound, type RoundDefinition } from '../../../src/core';
+import type { CloseCheck, CloseCheckTarget } from '../../../src/contract/lateValues';
+import type { Db } from '../../db';
+import { loadEndRecords } from '../judging/endRecords';
 import type { SessionRow } from './sessions';
 
 /**

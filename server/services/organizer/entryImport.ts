@@ -1,18 +1,18 @@
 import Papa from 'papaparse';
-import { emailSchema } from '../../src/contract/auth';
+import { emailSchema } from '../../../src/contract/auth';
 import {
   ENTRY_CSV_COLUMNS,
   ENTRY_CSV_MAX_ROWS,
   type ImportPreview,
   type ImportResult,
   type ImportRow,
-} from '../../src/contract/events';
-import { cleanText } from '../../src/core';
-import type { Db } from '../db';
+} from '../../../src/contract/events';
+import { cleanText } from '../../../src/core';
+import type { Db } from '../../db';
 import { refuseOverLimit } from './eventLimits';
-import { HttpError, badRequest } from '../http/httpError';
-import { nowIso } from '../time';
-import { audit } from './audit';
+import { HttpError, badRequest } from '../../http/httpError';
+import { nowIso } from '../../time';
+import { audit } from '../audit';
 import { archerKey, linkEntryToAccount } from './entries';
 
 type Column = (typeof ENTRY_CSV_COLUMNS)[number];

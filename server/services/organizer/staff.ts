@@ -1,12 +1,12 @@
-import type { InviteStaffInput, PendingInvitation, StaffList, StaffRole } from '../../src/contract/events';
-import type { Db } from '../db';
-import type { Mailer } from '../mail/mailer';
-import { conflict, notFound } from '../http/httpError';
-import { nowIso } from '../time';
-import { audit } from './audit';
-import { createEmailToken } from './emailTokens';
+import type { InviteStaffInput, PendingInvitation, StaffList, StaffRole } from '../../../src/contract/events';
+import type { Db } from '../../db';
+import type { Mailer } from '../../mail/mailer';
+import { conflict, notFound } from '../../http/httpError';
+import { nowIso } from '../../time';
+import { audit } from '../audit';
+import { createEmailToken } from '../emailTokens';
 import { loadEvent } from './events';
-import { reserveMail } from './limits/mailLimits';
+import { reserveMail } from '../limits/mailLimits';
 
 const ROLE_WORDS: Record<StaffRole, string> = { organizer: 'an organizer', judge: 'a judge' };
 

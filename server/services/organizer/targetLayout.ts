@@ -5,10 +5,10 @@ import type {
   TargetArcher,
   TargetList,
   UnassignedEntry,
-} from '../../src/contract/events';
-import { canonicalJson, type RoundDefinition } from '../../src/core';
-import type { LinkAddress } from '../../src/contract/linkAddress';
-import type { Db } from '../db';
+} from '../../../src/contract/events';
+import { canonicalJson, type RoundDefinition } from '../../../src/core';
+import type { LinkAddress } from '../../../src/contract/linkAddress';
+import type { Db } from '../../db';
 import { activeJoinCodes, toJoinCode } from './joinCodes';
 import { parseRound, sessionDivisions, type SessionRow } from './sessions';
 import { findConflicts, type PlacedArcher } from './targetConflicts';
