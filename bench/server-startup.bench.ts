@@ -9,7 +9,7 @@ import type { AddressInfo } from 'node:net';
 import { createApp } from '../server/app';
 import { migrate, openDb } from '../server/db';
 import { seedDemoIfEmpty } from '../server/demo/seedDemo';
-import { loadSigningKeys } from '../server/signing/serverKeys';
+import { loadSigningKeys } from '../server/services/signing/serverKeys';
 import { percentile } from './support/stats';
 
 const dir = mkdtempSync(join(tmpdir(), 'ringcall-bench-'));

@@ -5,7 +5,7 @@ import type { LinkAddress } from '../src/contract/linkAddress';
 import type { Db } from './db';
 import type { Mailer } from './mail/mailer';
 import type { AppContext } from './context';
-import type { SigningKeys } from './signing/serverKeys';
+import type { SigningKeys } from './services/signing/serverKeys';
 import { securityHeaders } from './http/security';
 import { checkBodyShape } from './http/bodyShape';
 import { noStore } from './http/noStore';

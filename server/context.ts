@@ -2,7 +2,7 @@ import type { RequestHandler } from 'express';
 import type { LinkAddress } from '../src/contract/linkAddress';
 import type { Db } from './db';
 import type { Mailer } from './mail/mailer';
-import type { SigningKeys } from './signing/serverKeys';
+import type { SigningKeys } from './services/signing/serverKeys';
 
 /** What every route module receives: the database, the signing secret, mail, and settings. */
 export type AppContext = {

@@ -10,7 +10,7 @@ import { loadAuthSecret } from './auth/secret';
 import { lanAddresses, linkAddressLine, resolveLinkAddress } from './linkAddress';
 import { loadMailInboxKey } from './mail/inboxKey';
 import { setUpMail } from './mail/setUpMail';
-import { loadSigningKeys } from './signing/serverKeys';
+import { loadSigningKeys } from './services/signing/serverKeys';
 
 async function main(): Promise<void> {
   const config = readConfig();

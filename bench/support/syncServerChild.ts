@@ -9,7 +9,7 @@ import { dirname } from 'node:path';
 import type { AddressInfo } from 'node:net';
 import { createApp } from '../../server/app';
 import { migrate, openDb } from '../../server/db';
-import { loadSigningKeys } from '../../server/signing/serverKeys';
+import { loadSigningKeys } from '../../server/services/signing/serverKeys';
 import { BENCH_SECRET } from './syncField';
 
 const file = process.argv[2];

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { cardTotals, endsOfRound, sortEnd, type ArrowValue, type RoundDefinition } from '../../src/core';
 import type { Mutation } from '../../src/contract/sync';
 import type { Db } from '../db';
-import type { SigningKeys } from '../signing/serverKeys';
+import type { SigningKeys } from '../services/signing/serverKeys';
 import { pushBatch } from '../services/sync/pushBatch';
 
 /*

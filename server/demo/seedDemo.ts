@@ -6,7 +6,7 @@ import { ensureJoinCodes } from '../services/organizer/joinCodes';
 import { planTargets } from '../services/organizer/targetAssignment';
 import { loadLayout } from '../services/organizer/targetLayout';
 import type { SessionRow } from '../services/organizer/sessions';
-import type { SigningKeys } from '../signing/serverKeys';
+import type { SigningKeys } from '../services/signing/serverKeys';
 import { playDemoField } from './demoField';
 import {
   DEMO_ARCHER_EMAIL,

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from './support/testServer';
 import { openDb, migrate } from '../../server/db';
 import { loadAuthSecret } from '../../server/auth/secret';
-import { loadSigningKeys } from '../../server/signing/serverKeys';
+import { loadSigningKeys } from '../../server/services/signing/serverKeys';
 
 let server: TestServer;
 beforeAll(async () => {

@@ -18,7 +18,7 @@ import {
   type JudgingField,
 } from './support/judging';
 import { sendFinalCard, mailFinalCards } from '../../server/services/judging/finalCard';
-import { SIGNING_KEY_FILE, loadSigningKeys } from '../../server/signing/serverKeys';
+import { SIGNING_KEY_FILE, loadSigningKeys } from '../../server/services/signing/serverKeys';
 
 /*
  * Signatures that can be checked: the server signs ends and cards with its own key (ES256),

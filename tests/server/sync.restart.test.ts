@@ -5,7 +5,7 @@ import { startTestServer, TEST_BCRYPT_COST, TEST_LINK_ADDRESS, type TestServer }
 import { TEST_SECRET, makePerson } from './support/people';
 import { setUpMixedField } from './support/fieldSetup';
 import { Phone } from './support/phone';
-import { loadSigningKeys } from '../../server/signing/serverKeys';
+import { loadSigningKeys } from '../../server/services/signing/serverKeys';
 
 /*
  * A server restart (a new app and a new connection on the same database file) keeps every

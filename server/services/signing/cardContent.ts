@@ -1,6 +1,6 @@
 import { cardTotals, sortEnd, type ArrowValue, type RoundDefinition } from '../../../src/core';
 import type { Position } from '../../../src/contract/events';
-import { contentHash } from '../../signing/contentHash';
+import { contentHash } from './contentHash';
 
 /** Where a card lives: what a card signature's `ref` names. */
 export type CardRef = { eventId: number; sessionId: number; entryId: number };

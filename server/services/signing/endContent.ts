@@ -1,5 +1,5 @@
 import { sortEnd, type ArrowValue } from '../../../src/core';
-import { contentHash } from '../../signing/contentHash';
+import { contentHash } from './contentHash';
 
 /** Where an end lives: what a signature's `ref` names, so a verifier can find it again. */
 export type EndRef = { eventId: number; sessionId: number; entryId: number; endIndex: number };

@@ -1,9 +1,9 @@
 import type { CardSignArgs } from '../../../src/contract/judging';
-import type { SigningKeys } from '../../signing/serverKeys';
-import { signClaim } from '../../signing/signatures';
+import type { SigningKeys } from '../signing/serverKeys';
+import { signClaim } from '../signing/signatures';
 import { listInWords } from '../judging/endWords';
 import { canonicalJson } from '../../../src/core';
-import { contentHash } from '../../signing/contentHash';
+import { contentHash } from '../signing/contentHash';
 import { nowIso } from '../../time';
 import { cardContent, cardTotalsOf, paperWords, type CardFacts } from '../signing/cardContent';
 import type { Author } from './effects';

@@ -1,7 +1,7 @@
 import { endView, sortEnd } from '../../../src/core';
 import type { EndSignArgs } from '../../../src/contract/judging';
-import type { SigningKeys } from '../../signing/serverKeys';
-import { signClaim } from '../../signing/signatures';
+import type { SigningKeys } from '../signing/serverKeys';
+import { signClaim } from '../signing/signatures';
 import { whyNotSignable } from '../judging/endWords';
 import { endContentHash, type EndRef } from '../signing/endContent';
 import type { Author } from './effects';

@@ -1,5 +1,5 @@
 import type { Mutation } from '../../../src/contract/sync';
-import type { SigningKeys } from '../../signing/serverKeys';
+import type { SigningKeys } from '../signing/serverKeys';
 import { applyShootOff } from '../results/applyShootOff';
 import { applyCardSign } from './applyCardSign';
 import { applyEndSign } from './applyEndSign';

@@ -7,7 +7,7 @@ import {
 import type { Db } from '../../db';
 import type { Outcome } from '../../groupCommit';
 import { forbidden } from '../../http/httpError';
-import type { SigningKeys } from '../../signing/serverKeys';
+import type { SigningKeys } from '../signing/serverKeys';
 import { nowIso } from '../../time';
 import { applyMutation } from './applyMutation';
 import type { Author } from './effects';

@@ -1,7 +1,7 @@
 import type { PushResponse, ReceivedPush } from '../../../src/contract/sync';
 import type { Db } from '../../db';
 import { GroupCommit } from '../../groupCommit';
-import type { SigningKeys } from '../../signing/serverKeys';
+import type { SigningKeys } from '../signing/serverKeys';
 import { applyPushes, type CardRef, type Push, type PushDone } from './applyPushes';
 
 export type PushOptions = {

@@ -7,7 +7,7 @@ import { createApp } from '../../../server/app';
 import { migrate, openDb, type Db } from '../../../server/db';
 import { startMailCatcher } from '../../../server/mail/mailCatcher';
 import { createMailer } from '../../../server/mail/mailer';
-import { loadSigningKeys, type SigningKeys } from '../../../server/signing/serverKeys';
+import { loadSigningKeys, type SigningKeys } from '../../../server/services/signing/serverKeys';
 import { TEST_SECRET } from './people';
 
 export type TestServer = {

@@ -1,6 +1,6 @@
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { makePrivateDir } from '../privateFiles';
+import { makePrivateDir } from '../../privateFiles';
 import {
   exportJWK,
   generateKeyPair,

@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { canonicalJson } from '../../src/core';
+import { canonicalJson } from '../../../src/core';
 
 /** SHA-256 (base64url) of the canonical JSON of what was signed: any later change shows. */
 export const contentHash = (content: unknown): string =>
