@@ -298,7 +298,7 @@ export const swapArchersSchema = z
   });
 export type SwapArchersInput = z.infer<typeof swapArchersSchema>;
 
-export type TargetArcher = {
+export type TargetListArcher = {
   entryId: number;
   position: Position;
   name: string;
@@ -315,7 +315,7 @@ export type JoinCode = { code: string; joinUrl: string; qrDataUrl: string; creat
 
 export type Target = {
   targetNumber: number;
-  archers: TargetArcher[];
+  archers: TargetListArcher[];
   /** Faces to hang on the boss: 1 for a shared face, one per archer when each position has its own. */
   facesPerTarget: number;
   /** Whether the archers share one face or each shoots their own (the six-ring and triple faces). */

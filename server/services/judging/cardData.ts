@@ -8,7 +8,7 @@ import type { CardFacts } from '../signing/cardContent';
 import { loadEndRecords, type StoredEnd } from './endRecords';
 
 /** A card signature with the name it shows (the archer's, for one made on paper) and its paper label. */
-export type CardSignatureHeld = CardSignatureRow & { id: number; name: string; onPaper?: string };
+export type LoadedCardSignature = CardSignatureRow & { id: number; name: string; onPaper?: string };
 
 /**
  * One archer's card in a session, as stored now: what the card views, the PDF and verification
@@ -31,7 +31,7 @@ export type StoredCard<Target = number | null, Place = Position | null> = {
   round: RoundDefinition;
   ends: { endIndex: number; distanceIndex: number; view: EndView; stored: StoredEnd }[];
   /** Current (not superseded) card signatures by role. */
-  signatures: Partial<Record<'archer' | 'scorer', CardSignatureHeld>>;
+  signatures: Partial<Record<'archer' | 'scorer', LoadedCardSignature>>;
   /** The card as its signatures cover it: every end's current judge signature. */
   facts: CardFacts;
 };

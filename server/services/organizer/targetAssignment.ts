@@ -13,7 +13,7 @@ import { requireOpen, type SessionRow } from './sessions';
 import { ARCHERS_PER_TARGET } from './targetConflicts';
 import { loadLayout, type LayoutEntry } from './targetLayout';
 
-export type Placement = { entryId: number; targetNumber: number; position: Position };
+export type TargetPosition = { entryId: number; targetNumber: number; position: Position };
 
 /**
  * Automatic layout: archers are grouped by round (distances and faces) and division, each group
@@ -25,7 +25,7 @@ export type Placement = { entryId: number; targetNumber: number; position: Posit
  */
 export function planTargets(
   entries: readonly Pick<LayoutEntry, 'entryId' | 'name' | 'divisionId' | 'setupKey' | 'club'>[],
-): Placement[] {
+): TargetPosition[] {
   const groups = new Map<string, (typeof entries)[number][]>();
   const setupOrder: string[] = [];
   for (const e of entries) {
@@ -39,7 +39,7 @@ export function planTargets(
     const [sb, db] = b.split('|').map(Number) as [number, number];
     return sa - sb || da - db;
   });
-  const placements: Placement[] = [];
+  const placements: TargetPosition[] = [];
   let nextTarget = 1;
   for (const [, group] of ordered) {
     const archers = [...group].sort((x, y) => x.name.localeCompare(y.name) || x.entryId - y.entryId);

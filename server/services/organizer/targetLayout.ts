@@ -2,7 +2,7 @@ import type {
   BowStyleName,
   Position,
   Target,
-  TargetArcher,
+  TargetListArcher,
   TargetList,
   UnassignedEntry,
 } from '../../../src/contract/events';
@@ -108,7 +108,7 @@ export async function loadTargetList(db: Db, session: SessionRow, link: LinkAddr
       };
       targets.push(target);
     }
-    const archer: TargetArcher = {
+    const archer: TargetListArcher = {
       entryId: entry.entryId,
       position: entry.position!,
       name: entry.name,

@@ -3,12 +3,12 @@ import type { Position } from '../../../src/contract/events';
 import { contentHash } from './contentHash';
 
 /** Where a card lives: what a card signature's `ref` names. */
-export type CardRef = { eventId: number; sessionId: number; entryId: number };
+export type SignedCardRef = { eventId: number; sessionId: number; entryId: number };
 
 export type CardTotalsSigned = { total: number; tens: number; xs: number; hits: number };
 
 /** Everything a card signature covers, as read from the entry list, the session and the signed ends. */
-export type CardFacts = CardRef & {
+export type CardFacts = SignedCardRef & {
   event: { name: string; startsOn: string; endsOn: string };
   session: { name: string; startsAt: string };
   archer: { name: string; club: string; division: string };
