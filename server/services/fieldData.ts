@@ -20,7 +20,6 @@ export async function scoresExist(
 ): Promise<boolean> {
   if (where.entryIds && where.entryIds.length === 0) return false;
   for (const table of SCORE_TABLES) {
-    if (!(await db.schema.hasTable(table))) continue;
     const query = db(table).first('id');
     if (where.sessionId !== undefined) query.where({ session_id: where.sessionId });
     if (where.entryIds) query.whereIn('entry_id', where.entryIds);

@@ -1,4 +1,5 @@
 import { cardTotals, isTen, isX, type ArrowValue } from '../../../src/core';
+import type { CardSendResult } from '../../../src/contract/judging';
 import type { Db } from '../../db';
 import type { Mailer } from '../../mail/mailer';
 import { conflict, HttpError } from '../../http/httpError';
@@ -114,7 +115,7 @@ export async function sendFinalCard(
   baseUrl: string,
   /** Who asked for it again (counted against the mail limits); absent when the last signature sends it. */
   requestedBy?: number,
-): Promise<{ sentTo: string }> {
+): Promise<CardSendResult> {
   const card = await loadCard(db, sessionId, entryId);
   if (!isFinal(card))
     throw conflict(

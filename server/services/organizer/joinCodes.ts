@@ -108,10 +108,6 @@ export async function revokeJoinCode(db: Db, sessionId: number, targetNumber: nu
   return current.code;
 }
 
-export async function qrPng(url: string, width = 600): Promise<Buffer> {
-  return QRCode.toBuffer(url, { errorCorrectionLevel: 'M', margin: 2, width });
-}
-
 export async function toJoinCode(row: JoinCodeRow, baseUrl: string): Promise<JoinCode> {
   const url = joinUrl(baseUrl, row.code);
   return {

@@ -1,6 +1,5 @@
 import { cardTotals, sortEnd, type ArrowValue, type RoundDefinition } from '../../../src/core';
 import type { Position } from '../../../src/contract/events';
-import { contentHash } from './contentHash';
 
 /** Where a card lives: what a card signature's `ref` names. */
 export type SignedCardRef = { eventId: number; sessionId: number; entryId: number };
@@ -62,6 +61,3 @@ export function cardContent(card: CardFacts, paper?: PaperCountersign) {
   };
 }
 export type CardContent = ReturnType<typeof cardContent>;
-
-export const cardContentHash = (card: CardFacts, paper?: PaperCountersign): string =>
-  contentHash(cardContent(card, paper));
