@@ -2,281 +2,28 @@ import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from './support/testServer';
-import { giveRole, makeEvent, makePerson, type TestPerson } from './support/people';
+import { giveRole, makeEvent, makePerson } from './support/people';
+import { listRoutes } from './support/routeList';
+import {
+  CALLERS,
+  PNG,
+  ROUTES,
+  ev,
+  photo,
+  se,
+  type Caller,
+  type Fixture,
+  type RouteRule,
+} from './support/routeRoles';
 
 /*
- * Who may call which route. Every route is tried as each kind of caller against a fresh event:
- * an allowed caller gets the route's success status, a signed-in caller without the right role
- * gets 403, and an anonymous caller gets 401 — always with a readable error message.
- *
- * To add a route, add a row to ROUTES: its method, a path built from the fixture, a valid body
- * (or upload), the callers allowed, and the status an allowed call answers. Callers that are
- * refused run first, so a refused call that changed anything would break the allowed one.
+ * Every route is tried as each kind of caller against a fresh event: an allowed caller gets the
+ * route's success status, a signed-in caller without the right role gets 403, and an anonymous
+ * caller gets 401 — always with a readable error message. The expected table is
+ * support/routeRoles.ts; the routes themselves are read from the app's router, so a route without
+ * a row fails here. Callers that are refused run first, so a refused call that changed anything
+ * would break the allowed one.
  */
-
-type Caller = 'organizer' | 'judge' | 'archer' | 'stranger' | 'anonymous';
-const CALLERS: Caller[] = ['organizer', 'judge', 'archer', 'stranger', 'anonymous'];
-const SIGNED_IN: Caller[] = ['organizer', 'judge', 'archer', 'stranger'];
-const EVENT_ROLES: Caller[] = ['organizer', 'judge', 'archer'];
-const STAFF: Caller[] = ['organizer', 'judge'];
-const ORGANIZER: Caller[] = ['organizer'];
-const JUDGE: Caller[] = ['judge'];
-
-type Fixture = {
-  people: Record<Exclude<Caller, 'anonymous'>, TestPerson>;
-  eventId: number;
-  divisionId: number;
-  emptyDivisionId: number;
-  sessionId: number;
-  /** A second session, closed, for reopening. */
-  closedSessionId: number;
-  entryIds: number[];
-  invitationId: number;
-  /** The join code of target 1. */
-  joinCode: string;
-  /** A photo of a target, uploaded by the organizer. */
-  photoId: number;
-};
-
-type Upload = { upload: { field: string; content: string | Buffer; filename: string; contentType?: string } };
-type RouteRule = {
-  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
-  path: (f: Fixture) => string;
-  body?: (f: Fixture) => object | Upload;
-  allowed: Caller[];
-  /** What an allowed call answers. */
-  ok: number;
-};
-
-const csv = 'name,club,email,division\nUpload Archer,Test Club,,Recurve Women\n';
-/** A 1 × 1 PNG; each upload gets its own trailing bytes, so each is a new photo. */
-const PNG = Buffer.from(
-  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==',
-  'base64',
-);
-let photoCount = 0;
-const photo = (): Upload => ({
-  upload: {
-    field: 'photo',
-    content: Buffer.concat([PNG, Buffer.from(`#${(photoCount += 1)}`)]),
-    filename: 'target.png',
-    contentType: 'image/png',
-  },
-});
-const ev = (f: Fixture) => `/api/events/${f.eventId}`;
-const se = (f: Fixture) => `${ev(f)}/sessions/${f.sessionId}`;
-
-export const ROUTES: RouteRule[] = [
-  // Events
-  {
-    method: 'post',
-    path: () => '/api/events',
-    body: () => ({ name: 'New', startsOn: '2027-01-01', endsOn: '2027-01-01', timeZone: 'UTC' }),
-    allowed: SIGNED_IN,
-    ok: 201,
-  },
-  { method: 'get', path: () => '/api/events', allowed: SIGNED_IN, ok: 200 },
-  { method: 'get', path: ev, allowed: EVENT_ROLES, ok: 200 },
-  { method: 'patch', path: ev, body: () => ({ venue: 'Elsewhere' }), allowed: ORGANIZER, ok: 200 },
-  // Divisions
-  { method: 'get', path: (f) => `${ev(f)}/divisions`, allowed: EVENT_ROLES, ok: 200 },
-  {
-    method: 'post',
-    path: (f) => `${ev(f)}/divisions`,
-    body: () => ({ bowStyle: 'barebow', className: 'Open' }),
-    allowed: ORGANIZER,
-    ok: 201,
-  },
-  {
-    method: 'put',
-    path: (f) => `${ev(f)}/divisions/${f.divisionId}`,
-    body: () => ({ bowStyle: 'recurve', className: 'Ladies' }),
-    allowed: ORGANIZER,
-    ok: 200,
-  },
-  { method: 'delete', path: (f) => `${ev(f)}/divisions/${f.emptyDivisionId}`, allowed: ORGANIZER, ok: 204 },
-  // Sessions
-  { method: 'get', path: (f) => `${ev(f)}/sessions`, allowed: EVENT_ROLES, ok: 200 },
-  {
-    method: 'post',
-    path: (f) => `${ev(f)}/sessions`,
-    body: (f) => ({
-      name: 'Second',
-      startsAt: '2026-12-12T14:00',
-      rounds: [{ divisionId: f.divisionId, roundId: '18m' }],
-    }),
-    allowed: ORGANIZER,
-    ok: 201,
-  },
-  { method: 'patch', path: se, body: () => ({ name: 'Renamed' }), allowed: ORGANIZER, ok: 200 },
-  { method: 'delete', path: se, allowed: ORGANIZER, ok: 204 },
-  { method: 'post', path: (f) => `${se(f)}/close`, allowed: ORGANIZER, ok: 200 },
-  {
-    method: 'post',
-    path: (f) => `${ev(f)}/sessions/${f.closedSessionId}/reopen`,
-    allowed: ORGANIZER,
-    ok: 200,
-  },
-  // Entries
-  { method: 'get', path: (f) => `${ev(f)}/entries`, allowed: STAFF, ok: 200 },
-  { method: 'get', path: (f) => `${ev(f)}/entries/template.csv`, allowed: ORGANIZER, ok: 200 },
-  {
-    method: 'post',
-    path: (f) => `${ev(f)}/entries`,
-    body: (f) => ({ name: 'Form Archer', divisionId: f.divisionId }),
-    allowed: ORGANIZER,
-    ok: 201,
-  },
-  {
-    method: 'patch',
-    path: (f) => `${ev(f)}/entries/${f.entryIds[0]}`,
-    body: () => ({ club: 'Other Club' }),
-    allowed: ORGANIZER,
-    ok: 200,
-  },
-  { method: 'delete', path: (f) => `${ev(f)}/entries/${f.entryIds[0]}`, allowed: ORGANIZER, ok: 204 },
-  {
-    method: 'post',
-    path: (f) => `${ev(f)}/entries/import/preview`,
-    body: () => ({ upload: { field: 'file', content: csv, filename: 'e.csv' } }),
-    allowed: ORGANIZER,
-    ok: 200,
-  },
-  {
-    method: 'post',
-    path: (f) => `${ev(f)}/entries/import`,
-    body: () => ({ upload: { field: 'file', content: csv, filename: 'e.csv' } }),
-    allowed: ORGANIZER,
-    ok: 201,
-  },
-  // Staff
-  { method: 'get', path: (f) => `${ev(f)}/staff`, allowed: STAFF, ok: 200 },
-  {
-    method: 'post',
-    path: (f) => `${ev(f)}/staff`,
-    body: () => ({ email: 'new.judge@example.org', role: 'judge' }),
-    allowed: ORGANIZER,
-    ok: 201,
-  },
-  {
-    method: 'delete',
-    path: (f) => `${ev(f)}/staff/invitations/${f.invitationId}`,
-    allowed: ORGANIZER,
-    ok: 204,
-  },
-  { method: 'delete', path: (f) => `${ev(f)}/staff/${f.people.judge.id}/judge`, allowed: ORGANIZER, ok: 204 },
-  // Targets and join codes
-  { method: 'get', path: (f) => `${se(f)}/targets`, allowed: STAFF, ok: 200 },
-  { method: 'post', path: (f) => `${se(f)}/assign`, allowed: ORGANIZER, ok: 200 },
-  {
-    method: 'post',
-    path: (f) => `${se(f)}/assignments/move`,
-    body: (f) => ({ entryId: f.entryIds[0], targetNumber: 7, position: 'D' }),
-    allowed: ORGANIZER,
-    ok: 200,
-  },
-  {
-    method: 'post',
-    path: (f) => `${se(f)}/assignments/swap`,
-    body: (f) => ({ entryId: f.entryIds[0], otherEntryId: f.entryIds[1] }),
-    allowed: ORGANIZER,
-    ok: 200,
-  },
-  { method: 'delete', path: (f) => `${se(f)}/assignments/${f.entryIds[0]}`, allowed: ORGANIZER, ok: 200 },
-  { method: 'post', path: (f) => `${se(f)}/join-codes`, allowed: ORGANIZER, ok: 200 },
-  { method: 'post', path: (f) => `${se(f)}/targets/1/join-code`, allowed: ORGANIZER, ok: 200 },
-  { method: 'delete', path: (f) => `${se(f)}/targets/1/join-code`, allowed: ORGANIZER, ok: 200 },
-  // Printouts
-  { method: 'get', path: (f) => `${se(f)}/scorecards.pdf`, allowed: STAFF, ok: 200 },
-  { method: 'get', path: (f) => `${se(f)}/target-sheets.pdf`, allowed: STAFF, ok: 200 },
-  // Field loop: the code opens a target group to anyone signed in; a push from someone without a
-  // task there is accepted as a request and each of its changes rejected (tests/server/sync.push.test.ts).
-  {
-    method: 'post',
-    path: () => '/api/join',
-    body: (f) => ({ code: f.joinCode, task: 'follower' }),
-    allowed: SIGNED_IN,
-    ok: 200,
-  },
-  { method: 'get', path: (f) => `/api/targets/${f.sessionId}/1`, allowed: STAFF, ok: 200 },
-  { method: 'get', path: (f) => `/api/targets/${f.sessionId}/1/ends`, allowed: STAFF, ok: 200 },
-  { method: 'post', path: (f) => `/api/targets/${f.sessionId}/1/leave`, allowed: SIGNED_IN, ok: 204 },
-  {
-    method: 'post',
-    path: () => '/api/sync/push',
-    body: (f) => ({
-      clientId: `table-${randomUUID()}`,
-      mutations: [
-        {
-          id: randomUUID(),
-          seq: 1,
-          at: '2026-12-12T09:30:00.000Z',
-          kind: 'end.write',
-          args: { sessionId: f.sessionId, entryId: f.entryIds[0], endIndex: 0, slot: 1, arrows: ['10'] },
-        },
-      ],
-    }),
-    allowed: SIGNED_IN,
-    ok: 200,
-  },
-  { method: 'get', path: () => '/api/sync/pull?cursor=0', allowed: SIGNED_IN, ok: 200 },
-  // A phone registers its signing key for its own client id (tests/server/sync.import.test.ts).
-  {
-    method: 'post',
-    path: () => '/api/sync/device-key',
-    body: () => ({
-      clientId: `keyed-${randomUUID()}`,
-      publicJwk: { kty: 'EC', crv: 'P-256', x: 'x'.repeat(43), y: 'y'.repeat(43) },
-    }),
-    allowed: SIGNED_IN,
-    ok: 204,
-  },
-  // A phone's saved changes, brought in by a judge of the event (tests/server/sync.import.test.ts).
-  {
-    method: 'post',
-    path: (f) => `${ev(f)}/waiting-changes`,
-    body: (f) => ({
-      format: 'ringcall-waiting-changes',
-      version: 1,
-      exportedAt: '2026-12-12T10:00:00.000Z',
-      clients: [
-        {
-          clientId: `saved-${randomUUID()}`,
-          userId: f.people.judge.id,
-          mutations: [
-            {
-              id: randomUUID(),
-              seq: 1,
-              at: '2026-12-12T09:30:00.000Z',
-              kind: 'end.write',
-              args: { sessionId: f.sessionId, entryId: f.entryIds[0], endIndex: 0, slot: 1, arrows: ['10'] },
-            },
-          ],
-        },
-      ],
-    }),
-    allowed: JUDGE,
-    ok: 200,
-  },
-  // Judging: rulings and signatures are pushed mutations (tests/server/judging.rules.test.ts);
-  // the public key and the verification of a signature are open to anyone.
-  { method: 'get', path: () => '/.well-known/jwks.json', allowed: CALLERS, ok: 200 },
-  { method: 'get', path: () => '/api/verify?sig=not.a.signature', allowed: CALLERS, ok: 200 },
-  { method: 'get', path: (f) => `${se(f)}/judge-desk`, allowed: STAFF, ok: 200 },
-  { method: 'get', path: (f) => `${se(f)}/judge-desk?target=1`, allowed: STAFF, ok: 200 },
-  { method: 'get', path: (f) => `${se(f)}/cards`, allowed: STAFF, ok: 200 },
-  // The archer sees their own card (the fixture's archer keeps the first entry).
-  { method: 'get', path: (f) => `/api/cards/${f.sessionId}/${f.entryIds[0]}`, allowed: EVENT_ROLES, ok: 200 },
-  // Past the role check, the fixture's card is not final yet: 409 with the reason.
-  {
-    method: 'post',
-    path: (f) => `/api/cards/${f.sessionId}/${f.entryIds[0]}/send`,
-    allowed: ORGANIZER,
-    ok: 409,
-  },
-  { method: 'post', path: (f) => `${ev(f)}/photos`, body: photo, allowed: STAFF, ok: 201 },
-  { method: 'get', path: (f) => `/api/photos/${f.photoId}`, allowed: STAFF, ok: 200 },
-];
 
 let server: TestServer;
 beforeAll(async () => {
@@ -361,6 +108,11 @@ function call(rule: RouteRule, f: Fixture, caller: Caller) {
   return body ? req.send(body) : req;
 }
 
+const NAMING_FIXTURE = {
+  entryIds: [0],
+  people: { judge: { id: 0 }, archer: { id: 0 } },
+} as unknown as Fixture;
+
 describe('authorization table: every route × every kind of caller', () => {
   it('the archer in the fixture holds the archer role (linked through their entry)', async () => {
     const f = await makeFixture();
@@ -371,14 +123,33 @@ describe('authorization table: every route × every kind of caller', () => {
     expect(role.role).toBe('archer');
   });
 
+  it('every route the app serves has a row, and every row names a route the app serves', () => {
+    const served = listRoutes(server.app);
+    const covered = new Set(ROUTES.map((r) => `${r.method.toUpperCase()} ${r.route}`));
+    expect(served.filter((r) => !covered.has(r))).toEqual([]);
+    expect([...covered].filter((r) => !served.includes(r))).toEqual([]);
+  });
+
+  it("each row's path is an address of the route it names", async () => {
+    const f = await makeFixture();
+    for (const rule of ROUTES) {
+      const pattern = new RegExp(`^${rule.route.replace(/\./g, '\\.').replace(/:\w+/g, '[^/]+')}$`);
+      expect(rule.path(f).split('?')[0], rule.route).toMatch(pattern);
+    }
+  });
+
   for (const rule of ROUTES) {
-    const label = `${rule.method.toUpperCase()} ${rule.path({ eventId: ':eventId', sessionId: ':sessionId', divisionId: ':divisionId', emptyDivisionId: ':divisionId', entryIds: [':entryId' as unknown as number], invitationId: ':invitationId', photoId: ':photoId', people: { judge: { id: ':userId' } } } as unknown as Fixture)}`;
-    it(`${label} → allowed: ${rule.allowed.join(', ')}`, async () => {
+    // Only the query, to tell rows of one route apart (no fixture exists yet when tests are named).
+    const query = rule.path(NAMING_FIXTURE).split('?')[1];
+    const label = `${rule.method.toUpperCase()} ${rule.route}${query ? `?${query}` : ''}`;
+    it(`${label} → allowed: ${rule.allowed.join(', ') || 'no app caller'}`, async () => {
       const f = await makeFixture();
       const refused = CALLERS.filter((c) => !rule.allowed.includes(c));
       for (const caller of [...refused, ...rule.allowed]) {
         const res = await call(rule, f, caller);
-        const expected = rule.allowed.includes(caller) ? rule.ok : caller === 'anonymous' ? 401 : 403;
+        const expected = rule.allowed.includes(caller)
+          ? rule.ok
+          : (rule.refused ?? (caller === 'anonymous' ? 401 : 403));
         expect(res.status, `${label} as ${caller}: ${JSON.stringify(res.body)}`).toBe(expected);
         if (expected >= 400) expect(res.body.error.message, `${label} as ${caller}`).toMatch(/\w{3,}.*\./);
       }
