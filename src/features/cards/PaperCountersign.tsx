@@ -6,6 +6,7 @@ import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
 import { useOnline } from '../../local/online';
 import { Button } from '../../ui/Button';
+import { FileField, photoInput } from '../../ui/FileField';
 import { Notice } from '../../ui/Notice';
 import { uploadPhoto } from '../../api/uploadPhoto';
 
@@ -52,18 +53,13 @@ export function PaperCountersign({ card, userId }: { card: CardView; userId: num
         {card.totals.total}, record it here with a photo of that card. The signature will say it was made on
         paper and recorded by you.
       </p>
-      <label className="block">
-        <span className="block font-bold">Photo of the signed paper card</span>
-        <input
-          type="file"
-          accept="image/jpeg,image/png,image/webp"
-          capture="environment"
-          disabled={!online || busy}
-          onChange={(e) => setPhoto(e.target.files?.[0])}
-          className="mt-1 block min-h-14 w-full text-base"
-        />
-      </label>
-      {!online && <p className="text-base">The photo needs signal.</p>}
+      <FileField
+        label="Photo of the signed paper card"
+        hint={online ? undefined : 'The photo needs signal.'}
+        {...photoInput}
+        disabled={!online || busy}
+        onChange={(e) => setPhoto(e.target.files?.[0])}
+      />
       <Button className="w-full" disabled={!online || busy} onClick={() => void record()}>
         {busy ? 'Saving…' : '✍ Record the countersignature made on paper'}
       </Button>

@@ -1,14 +1,13 @@
-import { useId } from 'react';
 import { useMutation } from '@tanstack/react-query';
 import { apiRequest } from '../../api/request';
 import type { WaitingChangesImport } from '../../contract/waitingChanges';
 import { useOnline } from '../../local/online';
+import { FileField } from '../../ui/FileField';
 import { Notice } from '../../ui/Notice';
 
 /** Brings in the file a phone saved when it could not sync ("Save waiting changes as a file"). */
 export function ImportWaiting({ eventId }: { eventId: number }) {
   const online = useOnline();
-  const fileId = useId();
   const upload = useMutation({
     mutationFn: async (file: File) => {
       let body: unknown;
@@ -42,21 +41,16 @@ export function ImportWaiting({ eventId }: { eventId: number }) {
         Load the file its writer saved with "Save waiting changes as a file". Each change counts once, even if
         the phone syncs later.
       </p>
-      <label htmlFor={fileId} className="block font-bold">
-        File of waiting changes
-      </label>
-      <input
-        id={fileId}
-        type="file"
+      <FileField
+        label="File of waiting changes"
+        hint={online ? undefined : 'Importing needs signal.'}
         accept="application/json,.json"
         disabled={!online || upload.isPending}
         onChange={(e) => {
           const file = e.target.files?.[0];
           if (file) upload.mutate(file);
         }}
-        className="block min-h-14 w-full text-base"
       />
-      {!online && <p className="text-base">Importing needs signal.</p>}
       {upload.error && <Notice tone="error">{upload.error.message}</Notice>}
       {totals && (
         <Notice tone={totals.refused ? 'error' : 'success'}>

@@ -11,6 +11,7 @@ import { useOnline } from '../../local/online';
 import { RequireSignIn } from '../../account/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
+import { SelectField } from '../../ui/SelectField';
 import { RulingHistory } from '../../ui/scorecard/RulingHistory';
 import { EndArrows } from '../../ui/scorecard/EndArrows';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
@@ -139,24 +140,18 @@ function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: numb
       {prepare.error && <Notice tone="error">{prepare.error.message}</Notice>}
       {first && <Rejections rows={data.rejected} target={first} />}
 
-      <label className="block">
-        <span className="block font-bold" aria-hidden="true">
-          Target
-        </span>
-        <select
-          aria-label="Target"
-          value={targetFilter}
-          onChange={(e) => setTargetFilter(e.target.value === 'all' ? 'all' : Number(e.target.value))}
-          className="surface min-h-14 w-full rounded-lg border-2 border-line bg-card px-3 text-lg"
-        >
-          <option value="all">All targets</option>
-          {data.targets.map((t) => (
-            <option key={t.key} value={t.targetNumber}>
-              Target {t.targetNumber}
-            </option>
-          ))}
-        </select>
-      </label>
+      <SelectField
+        label="Target"
+        value={targetFilter}
+        onChange={(e) => setTargetFilter(e.target.value === 'all' ? 'all' : Number(e.target.value))}
+      >
+        <option value="all">All targets</option>
+        {data.targets.map((t) => (
+          <option key={t.key} value={t.targetNumber}>
+            Target {t.targetNumber}
+          </option>
+        ))}
+      </SelectField>
 
       {targetFilter !== 'all' && (
         <TargetGroup eventId={eventId} sessionId={sessionId} targetNumber={targetFilter} />

@@ -7,6 +7,7 @@ import { syncLoop } from '../../local/syncLoop';
 import { useOnline } from '../../local/online';
 import { Button } from '../../ui/Button';
 import { Field } from '../../ui/Field';
+import { FileField, photoInput } from '../../ui/FileField';
 import { Notice } from '../../ui/Notice';
 import { startingValues, type DeskItem } from './deskItems';
 import { uploadPhoto } from '../../api/uploadPhoto';
@@ -102,20 +103,13 @@ export function RuleForm({
         value={reason}
         onChange={(e) => setReason(e.target.value)}
       />
-      <label className="block">
-        <span className="block font-bold">Photo of the target (optional)</span>
-        <input
-          type="file"
-          accept="image/jpeg,image/png,image/webp"
-          capture="environment"
-          disabled={!online}
-          onChange={(e) => setPhoto(e.target.files?.[0])}
-          className="mt-1 block min-h-14 w-full text-base"
-        />
-        {!online && (
-          <span className="text-base">Photos need signal. The ruling itself works without it.</span>
-        )}
-      </label>
+      <FileField
+        label="Photo of the target (optional)"
+        hint={online ? undefined : 'Photos need signal. The ruling itself works without it.'}
+        {...photoInput}
+        disabled={!online}
+        onChange={(e) => setPhoto(e.target.files?.[0])}
+      />
       {problem && <Notice tone="error">{problem}</Notice>}
       <div className="flex gap-2">
         <Button type="submit" disabled={busy}>

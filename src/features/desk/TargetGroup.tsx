@@ -1,5 +1,6 @@
 import { TASKS, type Task } from '../../contract/fieldTerms';
 import { Notice } from '../../ui/Notice';
+import { SelectField } from '../../ui/SelectField';
 import { TASK_LABELS } from '../../ui/scorecard/taskNames';
 import { useSetMemberTask, useTargetMembers } from './api/targetMembers';
 
@@ -32,22 +33,19 @@ export function TargetGroup({
       <ul className="space-y-2">
         {members.data?.map((m) => (
           <li key={m.userId}>
-            <label className="block">
-              <span className="block font-bold">{m.name}</span>
-              <select
-                value={m.task}
-                disabled={setTask.isPending}
-                onChange={(e) => setTask.mutate({ userId: m.userId, task: e.target.value as Task | 'none' })}
-                className="surface min-h-14 w-full rounded-lg border-2 border-line bg-card px-3 text-lg"
-              >
-                {TASKS.map((t) => (
-                  <option key={t} value={t}>
-                    {TASK_LABELS[t]}
-                  </option>
-                ))}
-                <option value="none">Free the task (leaves the target)</option>
-              </select>
-            </label>
+            <SelectField
+              label={m.name}
+              value={m.task}
+              disabled={setTask.isPending}
+              onChange={(e) => setTask.mutate({ userId: m.userId, task: e.target.value as Task | 'none' })}
+            >
+              {TASKS.map((t) => (
+                <option key={t} value={t}>
+                  {TASK_LABELS[t]}
+                </option>
+              ))}
+              <option value="none">Free the task (leaves the target)</option>
+            </SelectField>
           </li>
         ))}
       </ul>

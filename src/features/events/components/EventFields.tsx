@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import { Field } from '../../../ui/Field';
-import { SelectField } from './SelectField';
+import { SelectField } from '../../../ui/SelectField';
 
 export type EventDraft = { name: string; venue: string; startsOn: string; endsOn: string; timeZone: string };
 

@@ -3,7 +3,7 @@ import { POSITIONS, type Position, type TargetList } from '../../../contract/eve
 import { Button } from '../../../ui/Button';
 import { Field } from '../../../ui/Field';
 import { Notice } from '../../../ui/Notice';
-import { SelectField } from './SelectField';
+import { SelectField } from '../../../ui/SelectField';
 
 type Candidate = { entryId: number; label: string; placed: boolean };
 

@@ -2,7 +2,7 @@ import { FACE_IDS, getFace, type BowStyle, type FaceId } from '../../../core';
 import type { RoundSummary } from '../../../contract/events';
 import { Button } from '../../../ui/Button';
 import { Field } from '../../../ui/Field';
-import { SelectField } from '../components/SelectField';
+import { SelectField } from '../../../ui/SelectField';
 
 export type DistanceDraft = { distanceM: string; faceId: FaceId; arrows: string; arrowsPerEnd: string };
 export type CustomRoundDraft = { name: string; venue: 'outdoor' | 'indoor'; distances: DistanceDraft[] };

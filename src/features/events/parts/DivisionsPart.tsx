@@ -8,7 +8,7 @@ import { useUpdateDivision } from '../api/updateDivision';
 import { useDeleteDivision } from '../api/deleteDivision';
 import { ConfirmButton } from '../components/ConfirmButton';
 import { EditForm } from '../components/EditForm';
-import { SelectField } from '../components/SelectField';
+import { SelectField } from '../../../ui/SelectField';
 import { BOW_STYLE_LABELS, formProblems } from '../components/formProblems';
 
 type DivisionForm = { bowStyle: string; className: string };

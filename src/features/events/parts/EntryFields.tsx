@@ -1,6 +1,6 @@
 import type { Division } from '../../../contract/events';
 import { Field } from '../../../ui/Field';
-import { SelectField } from '../components/SelectField';
+import { SelectField } from '../../../ui/SelectField';
 
 export type EntryDraft = { name: string; club: string; email: string; divisionId: string };
 

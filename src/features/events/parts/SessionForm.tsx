@@ -9,7 +9,7 @@ import {
 import { Button } from '../../../ui/Button';
 import { Field } from '../../../ui/Field';
 import { Notice } from '../../../ui/Notice';
-import { SelectField } from '../components/SelectField';
+import { SelectField } from '../../../ui/SelectField';
 import { formProblems } from '../components/formProblems';
 import {
   CustomRoundFields,

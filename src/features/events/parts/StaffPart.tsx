@@ -8,7 +8,7 @@ import { useInviteStaff } from '../api/inviteStaff';
 import { useRemoveStaff } from '../api/removeStaff';
 import { useCancelInvitation } from '../api/cancelInvitation';
 import { ConfirmButton } from '../components/ConfirmButton';
-import { SelectField } from '../components/SelectField';
+import { SelectField } from '../../../ui/SelectField';
 import { formProblems } from '../components/formProblems';
 
 const ROLE_WORDS = { organizer: 'Organizer', judge: 'Judge' } as const;

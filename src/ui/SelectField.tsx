@@ -1,5 +1,5 @@
 import type { SelectHTMLAttributes } from 'react';
-import { LabelledControl, controlClass } from '../../../ui/LabelledControl';
+import { LabelledControl, controlClass } from './LabelledControl';
 
 type SelectFieldProps = SelectHTMLAttributes<HTMLSelectElement> & {
   label: string;
