@@ -7,7 +7,7 @@ import { nowIso } from '../time';
 import { audit } from './audit';
 import { createEmailToken, findEmailToken, markEmailTokenUsed, type EmailTokenRow } from './emailTokens';
 import { mailPasswordLink } from './passwordLinkMail';
-import { endAllSessions } from './organizer/sessionsEnd';
+import { endAllSessions } from './sessionsEnd';
 import { reserveMail } from './limits/mailLimits';
 
 export type UserRow = {

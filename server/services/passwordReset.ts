@@ -6,7 +6,7 @@ import { audit } from './audit';
 import { findEmailToken, markAllUsed, useEmailTokenOnce } from './emailTokens';
 import { markVerified, type UserRow } from './accounts';
 import { mailPasswordLink } from './passwordLinkMail';
-import { endAllSessions } from './organizer/sessionsEnd';
+import { endAllSessions } from './sessionsEnd';
 
 /** "Forgot password": mails the link when the address has an account, and says nothing either way. */
 export async function forgotPassword(db: Db, mailer: Mailer, email: string, base: string): Promise<void> {

@@ -1,5 +1,5 @@
-import type { Db } from '../../db';
-import { nowIso } from '../../time';
+import type { Db } from '../db';
+import { nowIso } from '../time';
 
 /**
  * Ends every sign-in of the account at once: its refresh tokens are revoked, and raising
