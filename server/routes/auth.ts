@@ -1,7 +1,6 @@
 import { Router, type Request, type Response } from 'express';
 import type { AuthSession, SignUpPending } from '../../src/contract/auth';
 import {
-  acceptInvitationSchema,
   forgotPasswordSchema,
   resetPasswordSchema,
   signInSchema,
@@ -17,15 +16,7 @@ import { forgotPasswordLimits, signUpLimit } from '../auth/rateLimits';
 import { SignInThrottle } from '../auth/signInThrottle';
 import { deviceCookies } from '../auth/deviceCookie';
 import { tooManyAttempts } from '../auth/tooManyAttempts';
-import {
-  acceptInvitation,
-  checkCredentials,
-  loadMe,
-  sendVerificationMail,
-  signUp,
-  toSessionUser,
-  verifyEmail,
-} from '../services/accounts';
+import { checkCredentials, signUp, toSessionUser, verifyEmail } from '../services/accounts';
 import { forgotPassword, resetPassword } from '../services/passwordReset';
 
 const COOKIE = 'rc_refresh';
@@ -144,25 +135,6 @@ export function authRoutes(ctx: AppContext): Router {
     const { userId } = await resetPassword(db, req.body, ctx.bcryptCost);
     await startSession(req, res, userId);
   });
-
-  router.get('/me', ctx.requireUser, async (req, res) => {
-    res.json(await loadMe(db, req.user!));
-  });
-
-  router.post('/me/send-verification', ctx.requireUser, async (req, res) => {
-    const row = await db('users').where({ id: req.user!.id }).first();
-    await sendVerificationMail(db, ctx.mailer, row, ctx.linkAddress.url);
-    res.status(202).json({ sent: true });
-  });
-
-  router.post(
-    '/invitations/accept',
-    ctx.requireUser,
-    validateBody(acceptInvitationSchema),
-    async (req, res) => {
-      res.json(await acceptInvitation(db, req.body.token, req.user!.id));
-    },
-  );
 
   return router;
 }

@@ -1,14 +1,26 @@
 import { Router } from 'express';
 import type { AppContext } from '../context';
 import type { MyCard, MyCards } from '../../src/contract/myCards';
+import { loadMe, sendVerificationMail } from '../services/accounts';
 import { cardsToSign } from '../services/judging/cardsToSign';
 
 /**
- * The signed-in person's own scorecards (one per session they are assigned to), and the cards
- * they kept as a writer and must sign as scorer.
+ * The signed-in person: who they are and their roles, a new confirmation mail, their own
+ * scorecards (one per session they are assigned to), and the cards they kept as a writer and
+ * must sign as scorer.
  */
-export function myCardsRoutes(ctx: AppContext): Router {
+export function meRoutes(ctx: AppContext): Router {
   const router = Router();
+  router.get('/me', ctx.requireUser, async (req, res) => {
+    res.json(await loadMe(ctx.db, req.user!));
+  });
+
+  router.post('/me/send-verification', ctx.requireUser, async (req, res) => {
+    const row = await ctx.db('users').where({ id: req.user!.id }).first();
+    await sendVerificationMail(ctx.db, ctx.mailer, row, ctx.linkAddress.url);
+    res.status(202).json({ sent: true });
+  });
+
   router.get('/me/cards', ctx.requireUser, async (req, res) => {
     const rows = await ctx
       .db('entries')
