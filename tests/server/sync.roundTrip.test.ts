@@ -92,3 +92,19 @@ describe('a push that carries the pull cursor', () => {
     expect(await fieldTableCounts(server.db)).toEqual(before);
   });
 });
+
+describe('a record written several times in one commit', () => {
+  it('is stored once in its final state, with one change row that phones pull', async () => {
+    const w1 = new Phone(server.app, people.w1);
+    const changesBefore = (await fieldTableCounts(server.db)).changes;
+    const taps: ArrowValue[][] = [['X'], ['X', '9'], ['X', '9', '9'], ['X', '9', '9', '8']];
+    const body = (await w1.push(taps.map((arrows) => write(w1, 1, 5, 1, arrows)))) as PushResponse;
+    expect(body.results.map((r) => r.status)).toEqual(['applied', 'applied', 'applied', 'applied']);
+    const counts = await fieldTableCounts(server.db);
+    expect(counts.changes - changesBefore).toBe(1);
+    const pulled = (await w1.pull(0)).changes
+      .map((c) => c.record as EndRecordDto)
+      .filter((r) => r.endIndex === 5);
+    expect(pulled.map((r) => [r.arrows, r.revision])).toEqual([[['X', '9', '9', '8'], 4]]);
+  });
+});
