@@ -34,7 +34,7 @@ export function syncRoutes(ctx: AppContext): Router {
 
   router.post(
     '/sync/push',
-    ctx.requireUser,
+    ctx.requireFieldUser,
     refuseLargeBatch,
     validateBody(pushRequestSchema),
     async (req, res) => {
@@ -75,7 +75,7 @@ export function syncRoutes(ctx: AppContext): Router {
     res.status(204).end();
   });
 
-  router.get('/sync/pull', ctx.requireUser, async (req, res) => {
+  router.get('/sync/pull', ctx.requireFieldUser, async (req, res) => {
     const query = pullQuerySchema.safeParse(req.query);
     if (!query.success) {
       const fields = describeIssues(query.error.issues);

@@ -101,7 +101,7 @@ describe('a record written several times in one commit', () => {
     const body = (await w1.push(taps.map((arrows) => write(w1, 1, 5, 1, arrows)))) as PushResponse;
     expect(body.results.map((r) => r.status)).toEqual(['applied', 'applied', 'applied', 'applied']);
     const counts = await fieldTableCounts(server.db);
-    expect(counts.changes - changesBefore).toBe(1);
+    expect(counts.changes! - changesBefore!).toBe(1);
     const pulled = (await w1.pull(0)).changes
       .map((c) => c.record as EndRecordDto)
       .filter((r) => r.endIndex === 5);
