@@ -5,36 +5,31 @@
  * with fetch they used about five times the CPU per request, and on a two-core machine that
  * measured the phones more than the server.
  *
+ * Every phone sends what the pad sends (support/padPhone.ts): one end.write change per tap
+ * carrying the end as typed so far, so six changes per archer's end; the sync loop waits for a
+ * pause in typing, so one push holds one archer's end; every push is followed by a pull, as
+ * `src/local/syncEngine.ts` does it (phones of this version ask for both in one round trip,
+ * older phones push and then pull: both are measured).
+ *
  * (a) A 200-archer, 72-arrow day entered by two writers per target: 50 targets × 4 archers ×
- *     12 ends × 2 writers = 4,800 end.write mutations (28,800 arrows). Each of the 100 writer
- *     phones pushes its ends in order, all phones at once; a batch is one end of the target's
- *     four archers (4 mutations), two ends (8, after a short loss of signal) or the whole day
- *     (48, a phone that was offline all day). The server's own CPU time per end is printed too:
- *     it moves much less than the rate when other work shares the machine.
- *     Compared with raw better-sqlite3 (bench/support/rawInserts.ts), the same batches one
- *     transaction each, prepared statements, with the server's durability (synchronous FULL: a
- *     push is answered only once it is on disk, so the baselines flush every commit too):
- *     - the same rows: what the server must write per end (the writer's record, the append-only
- *       log row, the change row phones pull) and the phone's last seq per batch, on the real
- *       schema. This is the fair floor, and the ratio the goal is stated against.
- *     - one row per end into a table of its own, as this bench first compared: kept for
- *       continuity, though no server keeping a log could come near it.
- *     The server may beat a baseline: it commits pushes that arrive together as one (group
- *     commit), where the baselines flush once per batch.
- * (b) 100 phones, each pushing an end and then pulling: first with no pause at all (a closed
- *     loop: the server's ceiling, where latency is the queue), then paced as on a field, each
- *     phone syncing once at a random moment in every window of P ms. Latency p50/p99.
+ *     12 ends × 2 writers × 6 taps = 28,800 changes in 4,800 pushes, all 100 phones at once with
+ *     no pause (the whole day as fast as the server takes it). Wall time, the server's own CPU,
+ *     and the rate against raw better-sqlite3 writing what the server must keep of the same day
+ *     (support/rawInserts.ts) with the same number of commits, in the same run.
+ * (b) 100 phones syncing once a second: each phone, once at a random moment in every second,
+ *     sends an archer's end (six taps) and pulls. Latency p50/p99 of each sync.
+ * (c) What a pull costs: a phone that has just joined one target pulls it from the start, after
+ *     one day of data and after ten (nine earlier days of other sessions in the same database).
  */
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { randomUUID } from 'node:crypto';
-import type { ArrowValue } from '../src/core';
-import type { Mutation, PullResponse, PushResponse } from '../src/contract/sync';
-import { createBenchField, startServerChild, type BenchField, type BenchWriter } from './support/syncField';
+import { createBenchField, startServerChild, type BenchField } from './support/syncField';
 import { jsonClient } from './support/jsonClient';
-import { rawOneRow, rawSameRows, type RawBatch } from './support/rawInserts';
-import { percentile } from './support/stats';
+import { padPhones, syncRound, type RoundTrips } from './support/padPhone';
+import { rawDay, type RawPush } from './support/rawInserts';
+import { addEarlierDays } from './support/earlierDays';
+import { median, percentile } from './support/stats';
 
 const TARGETS = 50;
 const ENDS = 12;
@@ -42,210 +37,177 @@ const dir = mkdtempSync(join(tmpdir(), 'ringcall-sync-bench-'));
 let dbCounter = 0;
 const freshFile = () => join(dir, `sync-${(dbCounter += 1)}.sqlite`);
 
-const END: ArrowValue[] = ['X', '10', '9', '9', '8', '7'];
-
-/** One writer phone: its end.write mutations in seq order, end by end for the target's four archers. */
-function phoneOf(field: BenchField, writer: BenchWriter) {
-  const archers = field.archers.filter((a) => a.target === writer.target);
-  const ends: Mutation[][] = [];
-  let seq = 0;
-  for (let endIndex = 0; endIndex < ENDS; endIndex += 1) {
-    ends.push(
-      archers.map((a) => ({
-        id: randomUUID(),
-        seq: (seq += 1),
-        at: new Date().toISOString(),
-        kind: 'end.write' as const,
-        args: {
-          sessionId: field.sessionId,
-          entryId: a.entryId,
-          endIndex,
-          slot: writer.slot,
-          arrows: END,
-          flags: [],
-        },
-      })),
-    );
-  }
-  return { writer, clientId: `bench-${writer.target}-${writer.slot}`, ends, cursor: 0 };
-}
-type BenchPhone = ReturnType<typeof phoneOf>;
-
-function client(port: number) {
-  const http = jsonClient(port);
-  return {
-    async push(phone: BenchPhone, mutations: Mutation[]): Promise<PushResponse> {
-      const res = await http.post('/api/sync/push', phone.writer.token, {
-        clientId: phone.clientId,
-        mutations,
-      });
-      if (res.status !== 200) throw new Error(`push ${res.status}: ${JSON.stringify(res.body)}`);
-      return res.body as PushResponse;
-    },
-    async pull(phone: BenchPhone): Promise<PullResponse> {
-      const res = await http.get(`/api/sync/pull?cursor=${phone.cursor}`, phone.writer.token);
-      if (res.status !== 200) throw new Error(`pull ${res.status}: ${JSON.stringify(res.body)}`);
-      const body = res.body as PullResponse;
-      phone.cursor = body.cursor;
-      return body;
-    },
-    close: http.close,
-  };
-}
-
 /**
  * A started server on a fresh field, warmed up (a just-started process compiles its hot paths
  * on the first few hundred requests) by the two writers of one extra target that the measured
  * phones never see.
  */
-async function warmServer(): Promise<{
-  field: BenchField;
-  api: ReturnType<typeof client>;
-  phones: BenchPhone[];
-  cpuMs: () => Promise<number>;
-  stop: () => Promise<void>;
-}> {
+async function warmServer(prepare?: (file: string, field: BenchField) => void) {
   const file = freshFile();
   const field = await createBenchField(file, TARGETS + 1);
+  prepare?.(file, field);
   const server = await startServerChild(file);
-  const api = client(server.port);
+  const http = jsonClient(server.port);
+  const warm = padPhones(field, ENDS, (w) => w.target > TARGETS, 'warm');
   await Promise.all(
-    field.writers
-      .filter((w) => w.target > TARGETS)
-      .map(async (writer) => {
-        for (let round = 0; round < 5; round += 1) {
-          const phone = { ...phoneOf(field, writer), clientId: `warm-${writer.slot}-${round}` };
-          for (const end of phone.ends) {
-            await api.push(phone, end);
-            await api.pull(phone);
-          }
-        }
-      }),
+    warm.map(async (phone) => {
+      for (let i = 0; i < phone.pushes.length; i += 1)
+        await syncRound(http, phone, i % 2 === 0 ? 'one' : 'two');
+    }),
   );
-  const phones = field.writers.filter((w) => w.target <= TARGETS).map((w) => phoneOf(field, w));
-  // Phones that have already talked to the server: their connections are open (kept alive).
-  await Promise.all(phones.map((phone) => api.pull(phone).then(() => (phone.cursor = 0))));
+  const phones = padPhones(field, ENDS, (w) => w.target <= TARGETS, 'bench');
   const stop = async () => {
-    api.close();
+    http.close();
     await server.stop();
   };
-  return { field, api, phones, cpuMs: server.cpuMs, stop };
+  return { field, file, http, phones, cpuMs: server.cpuMs, stop };
 }
 
-/** (a) Every writer phone pushes its day, `endsPerBatch` ends per request, all phones at once. */
-async function enterTheDay(
-  endsPerBatch: number,
-): Promise<{ seconds: number; mutations: number; requests: number; serverCpuMs: number }> {
-  const { api, phones, cpuMs, stop } = await warmServer();
+/** (a) Every phone sends its day, one archer's end per push, each push followed by a pull. */
+async function enterTheDay(trips: RoundTrips) {
+  const { http, phones, cpuMs, stop } = await warmServer();
   try {
+    // Phones that have talked to the server before: their connections are open (kept alive).
+    await Promise.all(phones.map((phone) => http.get('/api/sync/pull?cursor=0&limit=1', phone.writer.token)));
     let applied = 0;
     let requests = 0;
     const cpuBefore = await cpuMs();
     const started = performance.now();
     await Promise.all(
       phones.map(async (phone) => {
-        for (let e = 0; e < phone.ends.length; e += endsPerBatch) {
-          const res = await api.push(phone, phone.ends.slice(e, e + endsPerBatch).flat());
-          requests += 1;
-          applied += res.results.filter((r) => r.status === 'applied').length;
+        for (let i = 0; i < phone.pushes.length; i += 1) {
+          const round = await syncRound(http, phone, trips, i);
+          applied += round.applied;
+          requests += round.requests;
         }
       }),
     );
     const seconds = (performance.now() - started) / 1000;
     const serverCpuMs = (await cpuMs()) - cpuBefore;
-    const expected = TARGETS * 4 * ENDS * 2;
-    if (applied !== expected) throw new Error(`Expected ${expected} applied mutations, got ${applied}.`);
-    return { seconds, mutations: applied, requests, serverCpuMs };
+    const expected = phones.reduce((n, p) => n + p.pushes.flat().length, 0);
+    if (applied !== expected) throw new Error(`Expected ${expected} applied changes, got ${applied}.`);
+    return {
+      seconds,
+      taps: applied,
+      pushes: phones.length * phones[0]!.pushes.length,
+      requests,
+      serverCpuMs,
+    };
   } finally {
     await stop();
   }
 }
 
-/** The phones' pushes of `endsPerBatch` ends, in the order a server would see them (every phone's first, then second…). */
-function rawBatchesOf(field: BenchField, endsPerBatch: number): RawBatch[] {
-  const phones = field.writers.map((w) => phoneOf(field, w));
-  const batches: RawBatch[] = [];
-  for (let e = 0; e < ENDS; e += endsPerBatch) {
-    for (const phone of phones) {
-      batches.push({
+/** The same day as the raw baseline gets it: every phone's first push, then every second one… */
+async function rawRate(): Promise<number> {
+  const file = freshFile();
+  const field = await createBenchField(file, TARGETS);
+  const phones = padPhones(field, ENDS, () => true, 'raw');
+  const pushes: RawPush[] = [];
+  for (let i = 0; i < phones[0]!.pushes.length; i += 1) {
+    for (const phone of phones)
+      pushes.push({
         clientId: phone.clientId,
         userId: phone.writer.userId,
         eventId: field.eventId,
         targetNumber: phone.writer.target,
-        mutations: phone.ends.slice(e, e + endsPerBatch).flat() as RawBatch['mutations'],
+        changes: phone.pushes[i]!,
       });
-    }
   }
-  return batches;
+  return rawDay(file, pushes);
 }
 
-/** Both raw baselines (bench/support/rawInserts.ts) on fresh files: end writes per second. */
-async function rawRates(endsPerBatch: number): Promise<{ oneRow: number; sameRows: number }> {
-  const file = freshFile();
-  const batches = rawBatchesOf(await createBenchField(file, TARGETS), endsPerBatch);
-  return { oneRow: rawOneRow(freshFile(), batches), sameRows: rawSameRows(file, batches) };
-}
-
-/** (b) 100 phones each pushing an end and pulling after it; with `windowMs`, once at a random moment in each window. */
-async function phonesAtOnce(windowMs: number): Promise<{ push: number[]; pull: number[]; seconds: number }> {
-  const { api, phones, stop } = await warmServer();
+/** (b) Each phone syncs an archer's end once at a random moment in each second, `rounds` times. */
+async function oncePerSecond(trips: RoundTrips, rounds: number) {
+  const { http, phones, stop } = await warmServer();
   try {
-    const push: number[] = [];
-    const pull: number[] = [];
-    const started = performance.now();
+    const syncs: number[] = [];
+    const started = performance.now() + 200;
     await Promise.all(
       phones.map(async (phone) => {
-        for (const [i, end] of phone.ends.entries()) {
-          if (windowMs > 0) {
-            const at = started + i * windowMs + Math.random() * windowMs * 0.9;
-            await new Promise((r) => setTimeout(r, Math.max(0, at - performance.now())));
-          }
-          let t = performance.now();
-          await api.push(phone, end);
-          push.push(performance.now() - t);
-          for (let more = true; more;) {
-            t = performance.now();
-            more = (await api.pull(phone)).hasMore;
-            pull.push(performance.now() - t);
-          }
+        for (let i = 0; i < rounds; i += 1) {
+          const at = started + i * 1000 + Math.random() * 900;
+          await new Promise((r) => setTimeout(r, Math.max(0, at - performance.now())));
+          const t = performance.now();
+          await syncRound(http, phone, trips, i);
+          syncs.push(performance.now() - t);
         }
       }),
     );
-    return { push, pull, seconds: (performance.now() - started) / 1000 };
+    return syncs;
   } finally {
     await stop();
   }
 }
 
+/** (c) A phone that joined target 1 pulls it from the start: ms per whole pull, median of 30. */
+async function pullAfterDays(days: number) {
+  const { http, phones, field, stop } = await warmServer((file, f) => addEarlierDays(file, f, days - 1));
+  try {
+    // Today's day, sent as the phones send it, after the earlier days.
+    await Promise.all(
+      phones.map(async (phone) => {
+        for (let i = 0; i < phone.pushes.length; i += 1) await syncRound(http, phone, 'two', i);
+      }),
+    );
+    const reader = field.writers.find((w) => w.target === 1)!;
+    const times: number[] = [];
+    let pulled = 0;
+    for (let run = 0; run < 30; run += 1) {
+      const t = performance.now();
+      pulled = 0;
+      for (let cursor = 0, more = true; more;) {
+        const res = await http.get(`/api/sync/pull?cursor=${cursor}`, reader.token);
+        const body = res.body as { changes: unknown[]; cursor: number; hasMore: boolean };
+        pulled += body.changes.length;
+        cursor = body.cursor;
+        more = body.hasMore;
+      }
+      times.push(performance.now() - t);
+    }
+    return { ms: median(times), pulled };
+  } finally {
+    await stop();
+  }
+}
+
+/** `SYNC_BENCH_PARTS=a,c` runs only those parts (each takes a minute or more on a busy machine). */
+const parts = (process.env.SYNC_BENCH_PARTS ?? 'a,b,c').split(',');
 const ms = (n: number) => `${n.toFixed(1)} ms`;
+const day = TARGETS * 4 * ENDS * 2;
 
 try {
-  console.log(
-    `(a) ${TARGETS * 4} archers × 72 arrows, two writers per target: ${TARGETS * 4 * ENDS * 2} end.write mutations (${TARGETS * 4 * ENDS * 2 * 6} arrows), 100 phones at once`,
-  );
-  for (const endsPerBatch of [1, 2, ENDS]) {
-    const run = await enterTheDay(endsPerBatch);
-    const rate = run.mutations / run.seconds;
-    const raw = await rawRates(endsPerBatch);
-    const share = (of: number) => `${((rate / of) * 100).toFixed(0)} %`;
+  if (parts.includes('a'))
     console.log(
-      `    ${endsPerBatch * 4} mutations per push (${run.requests} pushes): ${(run.seconds * 1000).toFixed(0)} ms, ${rate.toFixed(0)} ends/s ` +
-        `(server CPU ${((run.serverCpuMs * 1000) / run.mutations).toFixed(0)} µs per end); raw better-sqlite3, one transaction per ${endsPerBatch * 4}: ` +
-        `the same rows ${raw.sameRows.toFixed(0)} ends/s (${share(raw.sameRows)}), one row per end ${raw.oneRow.toFixed(0)} rows/s (${share(raw.oneRow)})`,
+      `(a) ${TARGETS * 4} archers × 72 arrows, two writers per target, as the pad sends it: ${day * 6} taps (one change each) ` +
+        `in ${day} pushes (one archer's end each), every push followed by a pull, 100 phones at once`,
+    );
+  const raw = parts.includes('a') ? await rawRate() : 0;
+  for (const trips of parts.includes('a') ? (['one', 'two'] as const) : []) {
+    const run = await enterTheDay(trips);
+    const rate = run.taps / run.seconds;
+    console.log(
+      `    ${trips === 'one' ? 'push answering the pull (one round trip, this version)' : 'push, then pull (older phones)'}: ` +
+        `${run.requests} requests in ${(run.seconds * 1000).toFixed(0)} ms wall, ${rate.toFixed(0)} taps/s; ` +
+        `server CPU ${(run.serverCpuMs / 1000).toFixed(2)} s (${((run.serverCpuMs * 1000) / run.pushes).toFixed(0)} µs per push); ` +
+        `raw better-sqlite3, the rows the server keeps, ${run.pushes} commits: ${raw.toFixed(0)} taps/s → ${((rate / raw) * 100).toFixed(0)} % of raw`,
     );
   }
 
-  for (const [label, windowMs] of [
-    ['no pause (closed loop, the ceiling)', 0],
-    ['each phone once every 1 s', 1000],
-    ['each phone once every 2 s', 2000],
-  ] as const) {
-    const run = await phonesAtOnce(windowMs);
-    const all = [...run.push, ...run.pull];
+  for (const trips of parts.includes('b') ? (['one', 'two'] as const) : []) {
+    const syncs = await oncePerSecond(trips, 12);
     console.log(
-      `(b) 100 phones, push an end then pull, ${label}: ${all.length} requests in ${run.seconds.toFixed(1)} s (${(all.length / run.seconds).toFixed(0)} req/s); ` +
-        `push p50 ${ms(percentile(run.push, 50))} p99 ${ms(percentile(run.push, 99))}; pull p50 ${ms(percentile(run.pull, 50))} p99 ${ms(percentile(run.pull, 99))}; ` +
-        `all p50 ${ms(percentile(all, 50))} p99 ${ms(percentile(all, 99))}`,
+      `(b) 100 phones each syncing an archer's end once a second (${trips === 'one' ? 'one round trip' : 'push, then pull'}), ${syncs.length} syncs: ` +
+        `p50 ${ms(percentile(syncs, 50))} p99 ${ms(percentile(syncs, 99))}`,
+    );
+  }
+
+  if (parts.includes('c')) {
+    const one = await pullAfterDays(1);
+    const ten = await pullAfterDays(10);
+    console.log(
+      `(c) a phone that joined a target pulls it from the start (${one.pulled} / ${ten.pulled} changes): after 1 day ${ms(one.ms)}, ` +
+        `after 10 days ${ms(ten.ms)} (median of 30)`,
     );
   }
 } finally {

@@ -68,6 +68,7 @@ export function createApp(deps: AppDeps): Express {
     linkAddress: deps.linkAddress,
     bcryptCost: deps.bcryptCost ?? BCRYPT_COST,
     requireUser: requireUser(deps.db, deps.secret),
+    requireFieldUser: requireUser(deps.db, deps.secret, { remember: true }),
   };
 
   const app = express();

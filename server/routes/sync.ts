@@ -1,10 +1,15 @@
 import { Router, type RequestHandler } from 'express';
-import { PUSH_MAX_CHANGES, pullQuerySchema, pushRequestSchema } from '../../src/contract/sync';
+import {
+  PUSH_MAX_CHANGES,
+  pullQuerySchema,
+  pushRequestSchema,
+  type ReceivedPush,
+} from '../../src/contract/sync';
 import type { AppContext } from '../context';
 import { HttpError, badRequest } from '../http/httpError';
 import { describeIssues, validateBody } from '../http/validate';
 import { pullChanges } from '../services/sync/pullChanges';
-import { pushBatch } from '../services/sync/pushBatch';
+import { pushAndPull } from '../services/sync/pushAndPull';
 import { mailFinalCards } from '../services/judging/finalCard';
 import { waitingChangesFileSchema } from '../../src/contract/waitingChanges';
 import { importWaitingChanges } from '../services/sync/importWaiting';
@@ -29,12 +34,12 @@ export function syncRoutes(ctx: AppContext): Router {
 
   router.post(
     '/sync/push',
-    ctx.requireUser,
+    ctx.requireFieldUser,
     refuseLargeBatch,
     validateBody(pushRequestSchema),
     async (req, res) => {
       res.json(
-        await pushBatch(db, req.user!.id, req.body, {
+        await pushAndPull(db, req.user!.id, req.body as ReceivedPush, {
           signingKeys: ctx.signingKeys,
           // Mailed after the push is committed, without holding up its answer.
           onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, ctx.linkAddress.url),
@@ -70,7 +75,7 @@ export function syncRoutes(ctx: AppContext): Router {
     res.status(204).end();
   });
 
-  router.get('/sync/pull', ctx.requireUser, async (req, res) => {
+  router.get('/sync/pull', ctx.requireFieldUser, async (req, res) => {
     const query = pullQuerySchema.safeParse(req.query);
     if (!query.success) {
       const fields = describeIssues(query.error.issues);

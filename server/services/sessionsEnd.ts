@@ -1,5 +1,6 @@
 import type { Db } from '../db';
 import { nowIso } from '../time';
+import { noteSignInsEnded } from '../auth/signInsEnded';
 
 /**
  * Ends every sign-in of the account at once: its refresh tokens are revoked, and raising
@@ -7,6 +8,7 @@ import { nowIso } from '../time';
  */
 export async function endAllSessions(db: Db, userId: number): Promise<void> {
   await db('users').where({ id: userId }).increment('session_version', 1);
+  noteSignInsEnded();
   await db('refresh_tokens')
     .where({ user_id: userId })
     .whereNull('revoked_at')

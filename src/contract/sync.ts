@@ -131,15 +131,27 @@ export const receivedChangeSchema = z
   .looseObject({ id: z.uuid(), seq: z.number().int().positive() })
   .transform(readChange);
 
+const cursorMessage = 'cursor must be a whole number: the version of the last change this phone holds, or 0.';
+
 export const pushRequestSchema = z.object({
   clientId: z.string().min(8).max(100),
   mutations: z
     .array(receivedChangeSchema)
     .min(1)
     .max(PUSH_MAX_CHANGES, `Send at most ${PUSH_MAX_CHANGES} changes at once.`),
+  /**
+   * The phone's pull cursor: the answer then carries the pull too (`pull`), so one round trip
+   * both sends and fetches. Phones of older versions leave it out and pull on their own.
+   */
+  cursor: z
+    .number({ error: cursorMessage })
+    .int(cursorMessage)
+    .min(0, cursorMessage)
+    .max(1e15, cursorMessage)
+    .optional(),
 });
 /** What a phone sends. */
-export type PushRequest = { clientId: string; mutations: Mutation[] };
+export type PushRequest = { clientId: string; mutations: Mutation[]; cursor?: number };
 /** A push as the server reads it: each change understood or refused on its own. */
 export type ReceivedPush = z.output<typeof pushRequestSchema>;
 
@@ -157,6 +169,8 @@ export type PushResponse = {
   lastSeq: number;
   /** Present when the batch stopped at a gap: the next seq the server expects. */
   expectedSeq?: number;
+  /** What the phone has not seen yet, read after the push was committed (when it sent its cursor). */
+  pull?: PullResponse;
 };
 
 /** Server records as the phone sees them (pull and push effects). */
@@ -204,7 +218,6 @@ export type PullResponse = { changes: ChangeDto[]; cursor: number; hasMore: bool
 export const PULL_LIMIT_DEFAULT = 500;
 export const PULL_LIMIT_MAX = 2000;
 
-const cursorMessage = 'cursor must be a whole number: the version of the last change this phone holds, or 0.';
 const limitMessage = `limit must be a whole number from 1 to ${PULL_LIMIT_MAX}.`;
 
 /** `GET /api/sync/pull?cursor=N&limit=M`: changes after version N, at most M of them. */

@@ -14,7 +14,6 @@ import type {
   MutationKind,
   SettlementDto,
   TargetPackage,
-  WriterSlot,
 } from '../contract/sync';
 
 /** A target group this phone joined, with everything needed to score it offline. */
@@ -83,11 +82,8 @@ export class LocalDb extends Dexie {
   }
 }
 
-export const endKeyOf = (sessionId: number, entryId: number, endIndex: number) =>
-  `${sessionId}:${entryId}:${endIndex}`;
-export const recordKeyOf = (sessionId: number, entryId: number, endIndex: number, slot: WriterSlot) =>
-  `${endKeyOf(sessionId, entryId, endIndex)}:${slot}`;
-export const cardKeyOf = (sessionId: number, entryId: number) => `${sessionId}:${entryId}`;
+// The record keys are shared with the server (src/contract/recordKeys.ts).
+export { cardKeyOf, endKeyOf, recordKeyOf } from '../contract/recordKeys';
 export const targetKeyOf = (userId: number, sessionId: number, targetNumber: number) =>
   `${userId}:${sessionId}:${targetNumber}`;
 

@@ -51,8 +51,9 @@ const knownNextSeq = new Map<string, number>();
 const inFlight = new Map<string, Promise<unknown>>();
 
 /**
- * The next number from what is stored. Outbox rows are never deleted, so the highest stored
- * number is the last one used; the saved counter is kept for app versions that read it.
+ * The next number from what is stored: the higher of the last stored row's and the counter
+ * written with every row. The counter is what keeps numbers from repeating once applied rows
+ * have left the phone with their person's data (forgetOthers.ts).
  */
 async function storedNextSeq(db: LocalDb, clientId: string): Promise<number> {
   const [last, counter] = await db.transaction('r', db.outbox, db.meta, () =>

@@ -31,9 +31,12 @@ const cursorKey = (userId: number) => `pullCursor:${userId}`;
 
 /**
  * One round of sync for the signed-in person: push waiting changes in order, then pull what
- * changed on the server. Outbox outcomes and pulled records are stored in one transaction, so a
- * crash between push and pull only means the next round asks again (the server answers
- * duplicates without applying them twice).
+ * changed on the server. Each push carries the pull cursor, and the server answers it with what
+ * this phone has not seen (one round trip); a separate pull is sent only when nothing was
+ * pushed, more is waiting than one answer holds, or the server did not answer with a pull (an
+ * older server, a batch split in halves). Outbox outcomes and pulled records are stored in one
+ * transaction, so a crash between push and pull only means the next round asks again (the
+ * server answers duplicates without applying them twice).
  */
 export async function syncOnce(db: LocalDb, userId: number, transport: SyncTransport): Promise<SyncReport> {
   const clientId = await clientIdFor(db, userId);
@@ -43,28 +46,37 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
     await ensureDeviceKeyRegistered(db, clientId, transport.registerKey).catch(() => undefined);
   const outcomes = new Map<number, MutationResult>();
   let pushed = 0;
+  const changes: ChangeDto[] = [];
+  let cursor = ((await db.meta.get(cursorKey(userId)))?.value as number | undefined) ?? 0;
+  /** Whether the last answer's pull left nothing waiting (so no separate pull is needed). */
+  let pulledAll = false;
 
   for (;;) {
     const waiting = await db.outbox.where('[clientId+status]').equals([clientId, 'pending']).sortBy('seq');
     const batch = waiting.filter((r) => !outcomes.has(r.seq)).slice(0, PUSH_BATCH);
     if (batch.length === 0) break;
-    const response = await pushSplitting(transport, clientId, batch);
+    const response = await pushSplitting(transport, clientId, batch, cursor);
     pushed += batch.length;
     response.results.forEach((r) => outcomes.set(r.seq, r));
+    pulledAll = false;
+    if (response.pull) {
+      changes.push(...response.pull.changes);
+      cursor = response.pull.cursor;
+      pulledAll = !response.pull.hasMore;
+    }
     if (response.expectedSeq !== undefined) {
       // The server misses earlier changes (restored from a backup, say): send them again.
       await resendFrom(db, clientId, response.expectedSeq, transport, outcomes);
+      pulledAll = false;
     }
     if (response.results.length < batch.length && response.expectedSeq === undefined) break;
   }
 
-  const changes: ChangeDto[] = [];
-  let cursor = ((await db.meta.get(cursorKey(userId)))?.value as number | undefined) ?? 0;
-  for (;;) {
+  while (!pulledAll) {
     const page = await transport.pull(cursor);
     changes.push(...page.changes);
     cursor = page.cursor;
-    if (!page.hasMore) break;
+    pulledAll = !page.hasMore;
   }
 
   let applied = 0;
@@ -119,16 +131,21 @@ async function resendFrom(
 const tooLarge = (error: unknown): boolean => (error as { status?: unknown } | null)?.status === 413;
 
 /**
- * Pushes rows in order; a batch the server finds too large is sent again in halves (a batch of
- * one that is still too large cannot be helped by splitting, and its error is passed on).
+ * Pushes rows in order, asking for the pull from `cursor` when given; a batch the server finds
+ * too large is sent again in halves without it (a batch of one that is still too large cannot be
+ * helped by splitting, and its error is passed on).
  */
 async function pushSplitting(
   transport: SyncTransport,
   clientId: string,
   rows: OutboxRow[],
+  cursor?: number,
 ): Promise<PushResponse> {
   try {
-    return await transport.push({ clientId, mutations: rows.map(toMutation) });
+    const mutations = rows.map(toMutation);
+    return await transport.push(
+      cursor === undefined ? { clientId, mutations } : { clientId, mutations, cursor },
+    );
   } catch (error) {
     if (!tooLarge(error) || rows.length < 2) throw error;
   }

@@ -1,4 +1,5 @@
-import { Dexie, RangeSet, type IndexableType, type Table } from 'dexie';
+import type { Dexie, Table } from 'dexie';
+import { announceWrites } from './dexieMutations';
 
 export type QuickWrite = { table: Table; type: 'add' | 'put'; value: object };
 
@@ -6,7 +7,8 @@ export type QuickWrite = { table: Table; type: 'add' | 'put'; value: object };
  * Writes rows in one IndexedDB transaction that is told to commit as soon as its writes are done.
  * Dexie's transactions commit only after each result has come back to the page, and on a busy
  * phone that return trip waits behind the frame the tap itself paints. Live queries are then told
- * of the change the way Dexie tells them of its own writes, so screens and other tabs refresh.
+ * of the change the way Dexie tells them of its own writes (dexieMutations.ts), so screens and
+ * other tabs refresh.
  *
  * A failed write (an `add` whose key exists: ConstraintError) undoes the whole transaction.
  * The database must be opened with Dexie's live-query cache off (`cache: 'disabled'`, see LocalDb):
@@ -44,29 +46,6 @@ export function writeAtOnce(db: Dexie, writes: QuickWrite[]): Promise<void> {
   tx.commit();
   return done.then(() => {
     // In the next task: the caller learns of the commit first; the screens' refresh follows.
-    setTimeout(() => Dexie.on.storagemutated.fire(changedParts(db.name, writes)), 0);
+    setTimeout(() => announceWrites(db, writes), 0);
   });
-}
-
-/** Dexie's record of what a write touched: `idb://db/table/index` → the keys, '' for primary keys. */
-function changedParts(dbName: string, writes: QuickWrite[]) {
-  const parts: Record<string, RangeSet> = {};
-  const mark = (table: string, index: string, key: unknown) => {
-    // A row without a value for an index is not in that index.
-    if (key === undefined || (Array.isArray(key) && key.includes(undefined))) return;
-    (parts[`idb://${dbName}/${table}/${index}`] ??= new RangeSet()).addKey(key as IndexableType);
-  };
-  for (const { table, value } of writes) {
-    const { primKey, indexes } = table.schema;
-    const key: unknown = Dexie.getByKeyPath(value, primKey.keyPath as string | string[]);
-    mark(table.name, '', key);
-    // As Dexie does for a write whose earlier row it did not read.
-    mark(table.name, ':dels', key);
-    for (const index of indexes) {
-      const indexKey: unknown = Dexie.getByKeyPath(value, index.keyPath as string | string[]);
-      if (index.multi && Array.isArray(indexKey)) indexKey.forEach((k) => mark(table.name, index.name, k));
-      else mark(table.name, index.name, indexKey);
-    }
-  }
-  return parts;
 }

@@ -25,7 +25,7 @@ import { syncOnce, type SyncTransport } from '../../src/local/syncEngine';
 import { localEnd } from '../../src/local/endFacts';
 import { ApiError } from '../../src/api/request';
 import { openDb, type Db } from '../../server/db';
-import { pushBatch } from '../../server/services/sync/pushBatch';
+import { pushAndPull } from '../../server/services/sync/pushAndPull';
 import { pullChanges } from '../../server/services/sync/pullChanges';
 import { startTestServer, type TestServer } from '../server/support/testServer';
 import { setUpField } from '../server/support/fieldSetup';
@@ -127,7 +127,7 @@ const tooLarge = () => new ApiError(413, 'too_large', 'Send at most 2 changes at
 /** Talks to the real server services, as JSON, with the network fault of this sync round. */
 function transportFor(person: TestPerson, fault: Fault): SyncTransport {
   const send = async (body: PushRequest): Promise<PushResponse> =>
-    pushBatch(serverDb, person.id, pushRequestSchema.parse(JSON.parse(JSON.stringify(body))));
+    pushAndPull(serverDb, person.id, pushRequestSchema.parse(JSON.parse(JSON.stringify(body))), {}, 7);
   return {
     async push(body) {
       switch (fault) {

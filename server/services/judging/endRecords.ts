@@ -1,16 +1,16 @@
-import type { ArrowValue, EndFacts } from '../../../src/core';
+import type { EndFacts } from '../../../src/core';
 import type { EndSignatureDto, RulingDto } from '../../../src/contract/judging';
+import { endKeyOf } from '../../../src/contract/recordKeys';
 import type { Db } from '../../db';
 import {
   END_ENTRY_COLUMNS,
   SETTLEMENT_COLUMNS,
-  toEndSignature,
-  toRuling,
+  decodeEndEntry,
+  decodeSettlement,
   type EndEntryRow,
-  type EndSignatureRow,
-  type RulingRow,
   type SettlementRow,
 } from '../sync/fieldRows';
+import { loadRulingsAndSignatures } from '../sync/judgingRows';
 
 /**
  * Everything stored about one end: the writers' records, the settlement, the latest ruling (and
@@ -33,12 +33,7 @@ export type EndRecords = {
   facts(entryId: number, endIndex: number, options?: { signed?: boolean }): EndFacts;
 };
 
-const writer = (r: EndEntryRow | undefined) =>
-  r && {
-    arrows: JSON.parse(r.arrows_json) as ArrowValue[],
-    revision: r.revision,
-    flags: JSON.parse(r.flags_json) as { index: number; flag: string }[],
-  };
+const writer = (r: EndEntryRow | undefined) => r && { ...decodeEndEntry(r), revision: r.revision };
 
 /**
  * A stored end as core `endView` reads it. With `signed: false` the signature is left out: what
@@ -49,11 +44,7 @@ export function endFactsOf(end: StoredEnd, options: { signed?: boolean } = {}): 
   return {
     first: writer(end.first),
     second: writer(end.second),
-    settlement: s && {
-      arrows: JSON.parse(s.arrows_json) as ArrowValue[],
-      disputed: JSON.parse(s.disputed_json) as number[],
-      basis: JSON.parse(s.basis_json) as { first: number; second: number },
-    },
+    settlement: s && decodeSettlement(s),
     ruling: end.ruling && { arrows: end.ruling.arrows },
     signedArrows: options.signed === false ? undefined : end.signature?.arrows,
   };
@@ -82,7 +73,7 @@ export async function loadEndRecords(
 ): Promise<EndRecords> {
   const ends = new Map<string, StoredEnd>();
   const at = (entryId: number, endIndex: number): StoredEnd => {
-    const key = `${entryId}:${endIndex}`;
+    const key = endKeyOf(sessionId, entryId, endIndex);
     let end = ends.get(key);
     if (!end) ends.set(key, (end = {}));
     return end;
@@ -93,30 +84,19 @@ export async function loadEndRecords(
     at(r.entry_id, r.end_index)[r.slot === 1 ? 'first' : 'second'] = r;
   for (const s of (await of('end_settlements').select(SETTLEMENT_COLUMNS)) as SettlementRow[])
     at(s.entry_id, s.end_index).settlement = s;
-  const rulings = (await db('end_rulings as t')
-    .join('users as u', 'u.id', 't.judged_by')
-    .where('t.session_id', sessionId)
-    .whereIn('t.entry_id', entryIds)
-    .orderBy('t.id')
-    .select('t.*', 'u.display_name')) as (RulingRow & { id: number; display_name: string })[];
-  for (const { id, display_name, ...row } of rulings) {
+  const { rulings, signatures } = await loadRulingsAndSignatures(db, { sessionIds: [sessionId], entryIds });
+  for (const { row, dto } of rulings) {
     const end = at(row.entry_id, row.end_index);
-    end.ruling = toRuling(id, row, display_name);
-    end.rulings = [...(end.rulings ?? []), end.ruling];
+    end.ruling = dto;
+    end.rulings = [...(end.rulings ?? []), dto];
   }
-  const signatures = (await db('end_signatures as t')
-    .join('users as u', 'u.id', 't.signed_by')
-    .where('t.session_id', sessionId)
-    .whereIn('t.entry_id', entryIds)
-    .whereNull('t.superseded_at')
-    .select('t.*', 'u.display_name')) as (EndSignatureRow & { id: number; display_name: string })[];
-  for (const { id, display_name, ...row } of signatures)
-    at(row.entry_id, row.end_index).signature = toEndSignature(id, row, display_name);
+  for (const { row, dto } of signatures) at(row.entry_id, row.end_index).signature = dto;
 
   await labelTranscriptions(db, ends.values());
 
   return {
-    end: (entryId, endIndex) => ends.get(`${entryId}:${endIndex}`) ?? {},
-    facts: (entryId, endIndex, options) => endFactsOf(ends.get(`${entryId}:${endIndex}`) ?? {}, options),
+    end: (entryId, endIndex) => ends.get(endKeyOf(sessionId, entryId, endIndex)) ?? {},
+    facts: (entryId, endIndex, options) =>
+      endFactsOf(ends.get(endKeyOf(sessionId, entryId, endIndex)) ?? {}, options),
   };
 }

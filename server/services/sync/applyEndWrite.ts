@@ -1,7 +1,6 @@
 import type { EndWriteArgs } from '../../../src/contract/sync';
 import { nextEndEntry, transcriptionLabel, type Author } from './effects';
 import type { FieldBatch } from './fieldBatch';
-import { toEndRecord } from './fieldRows';
 import { Refusal, checkArrows, checkEnd, refuseIfLocked } from './fieldRules';
 
 /**
@@ -31,5 +30,5 @@ export function applyEndWrite(batch: FieldBatch, args: EndWriteArgs, by: Author)
     }
   }
   const row = nextEndEntry(batch.record(args.sessionId, args.entryId, args.endIndex, args.slot), args, by);
-  batch.putRecord(checked.placement, row, { ...toEndRecord(row), ...transcriptionLabel(by) });
+  batch.putRecord(checked.placement, row, transcriptionLabel(by));
 }

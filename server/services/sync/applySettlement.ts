@@ -1,8 +1,8 @@
-import { crossCheck, type ArrowValue } from '../../../src/core';
+import { crossCheck } from '../../../src/core';
 import type { EndSettleArgs } from '../../../src/contract/sync';
 import { settlementRow, transcriptionLabel, type Author } from './effects';
 import type { FieldBatch } from './fieldBatch';
-import { toSettlement } from './fieldRows';
+import { decodeEndEntry } from './fieldRows';
 import { Refusal, checkArrows, checkEnd, refuseIfLocked } from './fieldRules';
 
 export const STALE_BASIS_REASON = 'A writer changed this end after you looked at it. Check the end again.';
@@ -25,10 +25,7 @@ export function applySettlement(batch: FieldBatch, args: EndSettleArgs, by: Auth
     throw new Refusal(`${endLabel} cannot be settled until both writers' entries are in.`);
   if (args.basis.first !== first.revision || args.basis.second !== second.revision)
     throw new Refusal(STALE_BASIS_REASON);
-  const check = crossCheck(
-    JSON.parse(first.arrows_json) as ArrowValue[],
-    JSON.parse(second.arrows_json) as ArrowValue[],
-  );
+  const check = crossCheck(decodeEndEntry(first).arrows, decodeEndEntry(second).arrows);
   if (check.status !== 'mismatch')
     throw new Refusal(`${endLabel}: the two writers agree, so there is nothing to settle.`);
 
@@ -41,5 +38,5 @@ export function applySettlement(batch: FieldBatch, args: EndSettleArgs, by: Auth
     }
   }
   const row = settlementRow(args, by);
-  batch.putSettlement(checked.placement, row, { ...toSettlement(row), ...transcriptionLabel(by) });
+  batch.putSettlement(checked.placement, row, transcriptionLabel(by));
 }

@@ -74,9 +74,3 @@ export function rulingRow(args: EndRuleArgs, by: Author): RulingRow {
 /** What a record shows of a transcription: the judge who brought it in from a file. */
 export const transcriptionLabel = (by: Author): { transcribedBy?: string } =>
   by.transcribedBy ? { transcribedBy: by.transcribedBy.name } : {};
-
-export const endKey = (r: { sessionId: number; entryId: number; endIndex: number }) => ({
-  session_id: r.sessionId,
-  entry_id: r.entryId,
-  end_index: r.endIndex,
-});

@@ -56,13 +56,35 @@ export const SETTLEMENT_COLUMNS = [
   'mutation_id',
 ] as const satisfies readonly (keyof SettlementRow)[];
 
+/*
+ * One decoder per table for its `*_json` columns: every reader of a row goes through these.
+ */
+
+/** A writer's record's arrows (highest first) and flags (by arrow). */
+export const decodeEndEntry = (row: Pick<EndEntryRow, 'arrows_json' | 'flags_json'>) => ({
+  arrows: JSON.parse(row.arrows_json) as ArrowValue[],
+  flags: JSON.parse(row.flags_json) as { index: number; flag: ArrowFlag }[],
+});
+
+/** A settlement's agreed arrows, the positions sent to a judge, and the writers' revisions it was made on. */
+export const decodeSettlement = (
+  row: Pick<SettlementRow, 'arrows_json' | 'disputed_json' | 'basis_json'>,
+) => ({
+  arrows: JSON.parse(row.arrows_json) as ArrowValue[],
+  disputed: JSON.parse(row.disputed_json) as number[],
+  basis: JSON.parse(row.basis_json) as { first: number; second: number },
+});
+
+/** The arrows of a ruling or an end signature (both keep the end's values highest first). */
+export const decodeJudgedArrows = (row: { arrows_json: string }): ArrowValue[] =>
+  JSON.parse(row.arrows_json) as ArrowValue[];
+
 export const toEndRecord = (row: EndEntryRow): EndRecordDto => ({
   sessionId: row.session_id,
   entryId: row.entry_id,
   endIndex: row.end_index,
   slot: row.slot,
-  arrows: JSON.parse(row.arrows_json) as ArrowValue[],
-  flags: JSON.parse(row.flags_json) as { index: number; flag: ArrowFlag }[],
+  ...decodeEndEntry(row),
   revision: row.revision,
   writtenBy: row.written_by,
   writtenAt: row.written_at,
@@ -72,9 +94,7 @@ export const toSettlement = (row: SettlementRow): SettlementDto => ({
   sessionId: row.session_id,
   entryId: row.entry_id,
   endIndex: row.end_index,
-  arrows: JSON.parse(row.arrows_json) as ArrowValue[],
-  disputed: JSON.parse(row.disputed_json) as number[],
-  basis: JSON.parse(row.basis_json) as { first: number; second: number },
+  ...decodeSettlement(row),
   settledBy: row.settled_by,
   settledAt: row.settled_at,
 });
@@ -145,7 +165,7 @@ export const toRuling = (id: number, row: RulingRow, judgedByName: string): Ruli
   sessionId: row.session_id,
   entryId: row.entry_id,
   endIndex: row.end_index,
-  arrows: JSON.parse(row.arrows_json) as ArrowValue[],
+  arrows: decodeJudgedArrows(row),
   reason: row.reason,
   photoId: row.photo_id,
   judgedBy: row.judged_by,
@@ -158,7 +178,7 @@ export const toEndSignature = (id: number, row: EndSignatureRow, signedByName: s
   sessionId: row.session_id,
   entryId: row.entry_id,
   endIndex: row.end_index,
-  arrows: JSON.parse(row.arrows_json) as ArrowValue[],
+  arrows: decodeJudgedArrows(row),
   contentHash: row.content_hash,
   signedBy: row.signed_by,
   signedByName,
