@@ -13,3 +13,14 @@ export type {
   SetOutcome,
   SideOutlook,
 } from './matchState';
+export {
+  MAX_BRACKET_ENTRANTS,
+  MIN_BRACKET_ENTRANTS,
+  bracketRounds,
+  bracketSize,
+  firstRound,
+  seedLines,
+} from './seeding';
+export type { FirstRoundMatch } from './seeding';
+export { finalPlaces } from './finalPlaces';
+export type { BracketArcher, FinalPlace } from './finalPlaces';
