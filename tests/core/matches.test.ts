@@ -28,6 +28,9 @@ function play(format: 'sets' | 'cumulative', ends: MatchEnd[], shootOff: [ShootO
   const record: { ends: MatchEnd[]; shootOff?: MatchRecord['shootOff'] } = { ends: [] };
   let state = matchState(format, record);
   for (const e of ends) {
+    // Never asks for an end the rules do not allow: an end is asked for only while ends are left.
+    expect(state.endsLeft + record.ends.length).toBeLessThanOrEqual(5);
+    expect(state.next === 'end').toBe(state.endsLeft > 0);
     if (state.next !== 'end') break;
     record.ends.push(e);
     state = matchState(format, record);
