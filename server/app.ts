@@ -35,6 +35,7 @@ import { invitationRoutes } from './routes/invitations';
 import { lateValueRoutes } from './routes/lateValues';
 import { targetTaskRoutes } from './routes/targetTasks';
 import { resultsRoutes } from './routes/results';
+import { matchRoutes } from './routes/matches';
 
 export type AppDeps = {
   db: Db;
@@ -105,6 +106,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(lateValueRoutes(ctx));
   api.use(targetTaskRoutes(ctx));
   api.use(resultsRoutes(ctx));
+  api.use(matchRoutes(ctx));
   api.use(routeNotFound);
   app.use('/api', api);
   // Public and outside /api: the key that checks printed and mailed signatures.

@@ -11,6 +11,7 @@ import { verifyRoutes } from '../features/verify/routes';
 import { cardRoutes } from '../features/cards/routes';
 import { eventRoutes } from '../features/events/routes';
 import { resultsRoutes } from '../features/results/routes';
+import { bracketRoutes } from '../features/brackets/routes';
 
 /** The screen area: a screen that throws, or whose chunk cannot be fetched, shows RouteError inside the layout. */
 function ScreenArea() {
@@ -49,6 +50,7 @@ const routes: RouteObject[] = [
           ...cardRoutes,
           ...eventRoutes,
           ...resultsRoutes,
+          ...bracketRoutes,
           {
             // The operator's, not an app role's: no sign-in, and nothing of it in the query cache.
             path: 'operator/mail',

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { ArrowValue, Venue } from '../core';
-import { arrowValueSchema } from './arrowValueSchema';
+import { shootOffArrowFields, oneMeasure } from './shootOffArrowSchema';
 
 /*
  * Results: the standings the server computes from the cards, the organizer's results settings,
@@ -16,16 +16,9 @@ export const shootOffRecordArgsSchema = z
     entryId: id,
     /** Which shoot-off arrow, from 0 (archers still level shoot again). */
     arrowIndex: z.number().int().min(0).max(19),
-    value: arrowValueSchema,
-    /** Measured distance of the arrow from the centre, in mm. */
-    distanceMm: z.number().min(0, 'A distance from the centre cannot be below 0 mm.').max(1000).optional(),
-    /** The judge saw this arrow closer to the centre than the others of equal value. */
-    closer: z.boolean().default(false),
+    ...shootOffArrowFields,
   })
-  .refine((a) => !(a.closer && a.distanceMm !== undefined), {
-    message: 'Give either the measured distance or "closer", not both.',
-    path: ['closer'],
-  });
+  .refine(...oneMeasure);
 export type ShootOffRecordArgs = z.infer<typeof shootOffRecordArgsSchema>;
 
 /** How far a row can be trusted: ends still unsigned, every end signed by a judge, or countersigned. */

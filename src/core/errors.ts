@@ -10,6 +10,8 @@ export type ScoringErrorCode =
   | 'invalid-card'
   | 'invalid-plot'
   | 'invalid-ranking'
+  | 'invalid-match'
+  | 'invalid-bracket'
   | 'not-canonical-json';
 
 export class ScoringError extends Error {

@@ -63,3 +63,5 @@ export { cleanText } from './cleanText';
 
 export { endView, rulingSteps, settlementApplies } from './endState';
 export type { EndFacts, EndState, EndView, Settlement, ValuesBefore, WriterRecord } from './endState';
+
+export * from './matches';

@@ -28,6 +28,9 @@ export function ResultsScreen() {
                 <Link className="font-bold underline" to={`/results/${eventId}/field`}>
                   Field screen
                 </Link>
+                <Link className="font-bold underline" to={`/results/${eventId}/brackets`}>
+                  Eliminations
+                </Link>
                 {results.event.published && (
                   <a className="font-bold underline" href={`/api/results/${eventId}/csv`} download>
                     Download CSV

@@ -1,0 +1,118 @@
+import { Router, type Request } from 'express';
+import {
+  MATCH_END_INDEX_MAX,
+  createBracketSchema,
+  matchEndSchema,
+  matchShootOffSchema,
+  matchTargetSchema,
+  matchWalkoverSchema,
+} from '../../src/contract/matches';
+import type { AppContext } from '../context';
+import { requireEventRole } from '../auth/eventRoles';
+import { badRequest } from '../http/httpError';
+import { idParam } from '../http/params';
+import { validateBody } from '../http/validate';
+import { eventBrackets } from '../services/matches/bracketView';
+import { createBracket } from '../services/matches/createBracket';
+import {
+  placeMatch,
+  recordMatchEnd,
+  recordMatchShootOff,
+  recordWalkover,
+  signMatch,
+} from '../services/matches/matchActions';
+import { findResultsEvent, requireResultsViewer } from '../services/results/resultsEvent';
+
+/**
+ * Eliminations: brackets are seen like the results (public once published); organizers create
+ * them, place matches on targets and record withdrawals and no-shows; judges record the ends and
+ * shoot-off arrows of a match and sign it, which moves the bracket on.
+ */
+export function matchRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+  const organizer = [ctx.requireUser, requireEventRole(db, 'organizer')];
+  const judge = [ctx.requireUser, requireEventRole(db, 'judge')];
+  const ids = (req: Request) => ({
+    eventId: Number(req.params.eventId),
+    matchId: idParam(req, 'matchId', 'match'),
+  });
+  const answer = async (eventId: number) => ({ brackets: await eventBrackets(db, eventId) });
+
+  router.get(
+    '/events/:eventId/brackets',
+    (req, res, next) => (req.get('authorization') ? ctx.requireUser(req, res, next) : next()),
+    async (req, res) => {
+      const event = await findResultsEvent(db, idParam(req, 'eventId', 'event'));
+      await requireResultsViewer(db, event, req.user?.id);
+      res.json(await answer(event.id));
+    },
+  );
+
+  router.post(
+    '/events/:eventId/brackets',
+    ...organizer,
+    validateBody(createBracketSchema),
+    async (req, res) => {
+      const eventId = Number(req.params.eventId);
+      await createBracket(db, eventId, req.user!.id, req.body);
+      res.status(201).json(await answer(eventId));
+    },
+  );
+
+  router.patch(
+    '/events/:eventId/matches/:matchId/target',
+    ...organizer,
+    validateBody(matchTargetSchema),
+    async (req, res) => {
+      const { eventId, matchId } = ids(req);
+      await placeMatch(db, eventId, matchId, req.body.targetNumber);
+      res.json(await answer(eventId));
+    },
+  );
+
+  router.post(
+    '/events/:eventId/matches/:matchId/walkover',
+    ...organizer,
+    validateBody(matchWalkoverSchema),
+    async (req, res) => {
+      const { eventId, matchId } = ids(req);
+      await recordWalkover(db, eventId, matchId, req.body, req.user!.id);
+      res.json(await answer(eventId));
+    },
+  );
+
+  router.put(
+    '/events/:eventId/matches/:matchId/ends/:endIndex',
+    ...judge,
+    validateBody(matchEndSchema),
+    async (req, res) => {
+      const { eventId, matchId } = ids(req);
+      const raw = String(req.params.endIndex);
+      const endIndex = Number(raw);
+      if (!/^\d$/.test(raw) || endIndex > MATCH_END_INDEX_MAX) {
+        throw badRequest(`A match has ends 0 to ${MATCH_END_INDEX_MAX}.`);
+      }
+      await recordMatchEnd(db, eventId, matchId, endIndex, req.body, req.user!.id);
+      res.json(await answer(eventId));
+    },
+  );
+
+  router.put(
+    '/events/:eventId/matches/:matchId/shoot-off',
+    ...judge,
+    validateBody(matchShootOffSchema),
+    async (req, res) => {
+      const { eventId, matchId } = ids(req);
+      await recordMatchShootOff(db, eventId, matchId, req.body, req.user!.id);
+      res.json(await answer(eventId));
+    },
+  );
+
+  router.post('/events/:eventId/matches/:matchId/sign', ...judge, async (req, res) => {
+    const { eventId, matchId } = ids(req);
+    await signMatch(db, eventId, matchId, req.user!.id);
+    res.json(await answer(eventId));
+  });
+  return router;
+}

@@ -1,0 +1,110 @@
+import { z } from 'zod';
+import {
+  MATCH_ARROWS_PER_END,
+  MATCH_MAX_ENDS,
+  MAX_BRACKET_ENTRANTS,
+  MIN_BRACKET_ENTRANTS,
+  type ArrowValue,
+  type MatchFormat,
+  type MatchNext,
+  type Pair,
+  type ShootOffOutcome,
+  type Side,
+  type SideOutlook,
+} from '../core';
+import { arrowValueSchema } from './arrowValueSchema';
+import { oneMeasure, shootOffArrowFields } from './shootOffArrowSchema';
+
+/*
+ * Eliminations: the organizer's bracket per division, match targets and walkovers; the judge's
+ * match ends, shoot-off arrows and signature; the bracket as everyone sees it.
+ */
+
+const id = z.number().int().positive();
+const sideSchema = z.enum(['a', 'b'], { error: 'Side must be "a" (upper line) or "b" (lower line).' });
+
+export const createBracketSchema = z.object({
+  /** The qualification session whose standings seed the bracket. */
+  sessionId: id,
+  divisionId: id,
+  /** How many archers go through, or everyone who qualified (the division's cut, or all its archers). */
+  size: z.union([
+    z
+      .number()
+      .int()
+      .min(MIN_BRACKET_ENTRANTS, `A bracket needs at least ${MIN_BRACKET_ENTRANTS} archers.`)
+      .max(MAX_BRACKET_ENTRANTS, `A bracket takes at most ${MAX_BRACKET_ENTRANTS} archers.`),
+    z.literal('everyone'),
+  ]),
+  /** Set system or cumulative; by default from the division's bow style (compound: cumulative). */
+  format: z.enum(['sets', 'cumulative']).optional(),
+});
+export type CreateBracket = z.infer<typeof createBracketSchema>;
+
+const threeValues = z
+  .array(arrowValueSchema)
+  .length(MATCH_ARROWS_PER_END, `A match end has ${MATCH_ARROWS_PER_END} arrows a side.`);
+
+export const matchEndSchema = z.object({ a: threeValues, b: threeValues });
+export type MatchEndBody = z.infer<typeof matchEndSchema>;
+export const MATCH_END_INDEX_MAX = MATCH_MAX_ENDS - 1;
+
+const shootOffArrowSchema = z.object(shootOffArrowFields).refine(...oneMeasure);
+
+export const matchShootOffSchema = z.object({ a: shootOffArrowSchema, b: shootOffArrowSchema });
+export type MatchShootOffBody = z.infer<typeof matchShootOffSchema>;
+
+export const matchTargetSchema = z.object({
+  targetNumber: z.number().int().min(1, 'Target numbers start at 1.').max(999).nullable(),
+});
+
+export const matchWalkoverSchema = z.object({
+  /** The side that does not shoot: its opponent goes through. */
+  side: sideSchema,
+  reason: z.enum(['withdrawal', 'no-show'], { error: 'Reason must be "withdrawal" or "no-show".' }),
+});
+export type MatchWalkover = z.infer<typeof matchWalkoverSchema>;
+
+export type DecidedBy = 'score' | 'shoot-off' | 'bye' | 'withdrawal' | 'no-show';
+
+export type MatchSideDto = { seed: number; archers: { entryId: number; name: string; club: string }[] };
+
+export type MatchDto = {
+  id: number;
+  round: number;
+  slot: number;
+  bronze: boolean;
+  targetNumber: number | null;
+  sides: Partial<Record<Side, MatchSideDto>>;
+  ends: { a: ArrowValue[]; b: ArrowValue[] }[];
+  shootOff: Partial<Record<Side, { value: ArrowValue; distanceMm?: number; closer?: boolean }>>;
+  /** The core's reading of the ends so far (null until both sides are known). */
+  state: {
+    score: Pair;
+    totals: Pair;
+    setPoints: (Pair | null)[];
+    next: MatchNext;
+    winner: Side | null;
+    endsLeft: number;
+    shootOff: ShootOffOutcome | null;
+    outlook: Record<Side, SideOutlook>;
+  } | null;
+  /** Set once the judge signs, or by a bye, withdrawal or no-show: the bracket moves on. */
+  winner: Side | null;
+  decidedBy: DecidedBy | null;
+  signedAt: string | null;
+};
+
+export type BracketDto = {
+  id: number;
+  divisionId: number;
+  divisionName: string;
+  sessionId: number;
+  format: MatchFormat;
+  entrants: number;
+  size: number;
+  rounds: number;
+  matches: MatchDto[];
+  /** Final places as far as they are known, best first. */
+  places: { place: number; entryId: number; name: string; seed: number }[];
+};

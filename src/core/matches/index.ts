@@ -1,0 +1,26 @@
+// Head-to-head matches after qualification: match scoring, bracket seeding and final places.
+export { other, shootOffWinner } from './shootOff';
+export type { ShootOffOutcome, Side } from './shootOff';
+export { MATCH_ARROWS_PER_END, MATCH_MAX_ENDS, SET_POINTS_TO_WIN, matchState } from './matchState';
+export type {
+  MatchEnd,
+  MatchFormat,
+  MatchNext,
+  MatchRecord,
+  MatchState,
+  Pair,
+  ScoredEnd,
+  SetOutcome,
+  SideOutlook,
+} from './matchState';
+export {
+  MAX_BRACKET_ENTRANTS,
+  MIN_BRACKET_ENTRANTS,
+  bracketRounds,
+  bracketSize,
+  firstRound,
+  seedLines,
+} from './seeding';
+export type { FirstRoundMatch } from './seeding';
+export { finalPlaces } from './finalPlaces';
+export type { BracketArcher, FinalPlace } from './finalPlaces';

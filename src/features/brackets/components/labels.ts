@@ -1,0 +1,23 @@
+import type { MatchDto } from '../../../contract/matches';
+
+/** A round's name by how many matches it has: the final, the semi-finals, then "1/8" and so on. */
+export function roundName(round: number, rounds: number): string {
+  const fromFinal = rounds - 1 - round;
+  if (fromFinal === 0) return 'Final';
+  if (fromFinal === 1) return 'Semi-finals';
+  if (fromFinal === 2) return 'Quarter-finals';
+  return `1/${2 ** fromFinal} round`;
+}
+
+/** Where a match stands, in words: a bye, who went through and how, or what it waits for. */
+export function matchStatus(m: MatchDto): string {
+  if (m.decidedBy === 'bye') return 'Bye';
+  if (m.decidedBy === 'withdrawal' || m.decidedBy === 'no-show') return `Walkover (${m.decidedBy})`;
+  if (m.decidedBy) return m.decidedBy === 'shoot-off' ? 'Signed, won in the shoot-off' : 'Signed';
+  if (!m.state) return 'Waiting for the earlier matches';
+  if (m.state.winner) return 'Match over, waiting for the judge’s signature';
+  const next = m.state.next;
+  if (next === 'shoot-off') return 'Shoot-off next';
+  if (next === 'judge') return 'Shoot-off: the judge decides which arrow is closer';
+  return m.ends.length === 0 ? 'Not started' : `End ${m.ends.length + 1} next`;
+}

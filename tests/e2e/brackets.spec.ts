@@ -1,0 +1,185 @@
+import { expect, test, type APIRequestContext } from '@playwright/test';
+import { DEMO_JUDGES, DEMO_ORGANIZER } from '../../server/demo/demoPeople';
+import { checkA11y } from './support/a11y';
+import { apiPhone, token } from './support/apiPhone';
+import { readDemoRows } from './support/demoDb';
+import { operatorMailTo } from './support/operatorMail';
+
+/*
+ * A four-archer bracket seen on a spectator's phone: qualification shot through the field loop
+ * (one end of a short custom round), the bracket seeded by the organizer, matches recorded and
+ * signed by a judge through the API, the page showing scores, a shoot-off waiting for the judge,
+ * the bracket moving on and the final places.
+ */
+
+const ROUND = {
+  id: 'bracket-e2e',
+  name: 'One end',
+  venue: 'outdoor',
+  distances: [
+    { label: '18 m', distanceM: 18, faceId: 'full-122', arrows: 3, arrowsPerEnd: 3, secondsPerEnd: 120 },
+  ],
+  bowStyles: ['recurve'],
+};
+const QUALIFICATION = [
+  ['10', '10', '10'],
+  ['10', '10', '9'],
+  ['10', '9', '9'],
+  ['9', '9', '9'],
+];
+
+async function call(
+  request: APIRequestContext,
+  bearer: string,
+  method: 'post' | 'put' | 'patch',
+  path: string,
+  data: object,
+) {
+  const res = await request[method](path, { headers: { Authorization: `Bearer ${bearer}` }, data });
+  expect(res.status(), `${method} ${path}: ${await res.text()}`).toBeLessThan(300);
+  return res.json();
+}
+
+test('a spectator follows a four-archer bracket to its final places on a phone', async ({
+  browser,
+  request,
+}) => {
+  test.setTimeout(120_000);
+  const organizer = await token(request, DEMO_ORGANIZER.email);
+  const judge = await token(request, DEMO_JUDGES[1]!.email);
+
+  // The organizer sets up a small event: one division, a one-end round, four archers.
+  const event = await call(request, organizer, 'post', '/api/events', {
+    name: `Bracket evening ${Date.now() % 10_000}`,
+    startsOn: '2026-12-12',
+    endsOn: '2026-12-12',
+    timeZone: 'UTC',
+  });
+  const eventId = event.id as number;
+  // The demo judge is invited as a judge of the new event and accepts from the mail.
+  await call(request, organizer, 'post', `/api/events/${eventId}/staff`, {
+    email: DEMO_JUDGES[1]!.email,
+    role: 'judge',
+  });
+  const invitation = await operatorMailTo(request, DEMO_JUDGES[1]!.email, new RegExp(event.name as string));
+  const inviteToken = decodeURIComponent(/invite\?token=([^\s]+)/.exec(invitation.text)![1]!);
+  await call(request, judge, 'post', '/api/invitations/accept', { token: inviteToken });
+  const division = await call(request, organizer, 'post', `/api/events/${eventId}/divisions`, {
+    bowStyle: 'recurve',
+    className: 'Evening',
+  });
+  const session = await call(request, organizer, 'post', `/api/events/${eventId}/sessions`, {
+    name: 'Evening qualification',
+    startsAt: '2026-12-12T18:00',
+    rounds: [{ divisionId: division.id, customRound: ROUND }],
+  });
+  const sessionId = session.id as number;
+  for (const name of ['Ines Arbour', 'Jonah Quill', 'Kit Fairway', 'Lena Marsh'])
+    await call(request, organizer, 'post', `/api/events/${eventId}/entries`, {
+      name,
+      divisionId: division.id,
+    });
+  await call(request, organizer, 'post', `/api/events/${eventId}/sessions/${sessionId}/assign`, {});
+  await call(request, organizer, 'post', `/api/events/${eventId}/sessions/${sessionId}/join-codes`, {});
+  await call(request, organizer, 'patch', `/api/events/${eventId}/results-settings`, { published: true });
+
+  // Two writers enter each archer's end, the same values: agreed ends make the standings.
+  const archers = readDemoRows<{ entry_id: number; target_number: number; name: string }>(
+    `select t.entry_id, t.target_number, e.name from target_assignments t join entries e on e.id = t.entry_id
+     where t.session_id = ? order by e.name`,
+    sessionId,
+  );
+  const codes = readDemoRows<{ code: string; target_number: number }>(
+    'select code, target_number from join_codes where session_id = ? and revoked_at is null',
+    sessionId,
+  );
+  for (const [slot, bearer] of [
+    [1, organizer],
+    [2, judge],
+  ] as const) {
+    const phone = apiPhone(request, bearer, `bracket-w${slot}`);
+    for (const c of codes) await phone.join(c.code, `writer${slot}`);
+    await phone.push(
+      archers.map((a, i) => ({
+        kind: 'end.write',
+        args: { sessionId, entryId: a.entry_id, endIndex: 0, slot, arrows: QUALIFICATION[i], flags: [] },
+      })),
+    );
+  }
+
+  // Seeded 1 Ines … 4 Lena; semi-finals 1–4 and 2–3.
+  let body = await call(request, organizer, 'post', `/api/events/${eventId}/brackets`, {
+    sessionId,
+    divisionId: division.id,
+    size: 'everyone',
+  });
+  const match = (round: number, slot: number, bronze = false) =>
+    (body.brackets[0].matches as { id: number; round: number; slot: number; bronze: boolean }[]).find(
+      (m) => m.round === round && m.slot === slot && m.bronze === bronze,
+    )!.id;
+  const sets = async (id: number, list: [string, string][]) => {
+    for (const [i, [a, b]] of list.entries())
+      body = await call(request, judge, 'put', `/api/events/${eventId}/matches/${id}/ends/${i}`, {
+        a: a.split(' '),
+        b: b.split(' '),
+      });
+  };
+  const straight: [string, string][] = Array.from({ length: 3 }, () => ['10 10 10', '9 9 9']);
+  await sets(match(0, 0), straight);
+  body = await call(request, judge, 'post', `/api/events/${eventId}/matches/${match(0, 0)}/sign`, {});
+  await sets(match(0, 1), [
+    ['10 10 10', '9 9 9'],
+    ['9 9 9', '10 10 10'],
+    ['10 10 10', '9 9 9'],
+    ['9 9 9', '10 10 10'],
+    ['9 9 9', '9 9 9'],
+  ]);
+  body = await call(request, judge, 'put', `/api/events/${eventId}/matches/${match(0, 1)}/shoot-off`, {
+    a: { value: '10' },
+    b: { value: '10' },
+  });
+
+  // A spectator, signed in nowhere, opens the brackets from the public results page.
+  const page = await (await browser.newContext()).newPage();
+  await page.goto(`/results/${eventId}`);
+  await page.getByRole('link', { name: 'Eliminations' }).click();
+  await expect(page.getByRole('heading', { name: 'Eliminations', level: 1 })).toBeVisible();
+  const semi = page.getByTestId(`match-${match(0, 0)}`);
+  await expect(semi.getByTestId('side-a')).toContainText('Ines Arbour');
+  await expect(semi.getByTestId('side-a')).toContainText('won');
+  await expect(semi.getByTestId('side-a')).toContainText('6');
+  await expect(page.getByTestId(`match-${match(0, 1)}`)).toContainText(
+    'Shoot-off: the judge decides which arrow is closer',
+  );
+  await expect(page.getByTestId(`match-${match(1, 0)}`).getByTestId('side-a')).toContainText('Ines Arbour');
+  await checkA11y(page, 'brackets (phone)');
+  await page.screenshot({ path: '.tmp/screens/brackets-semis.png', fullPage: true });
+
+  // The judge marks Kit's arrow closer and signs; the final and bronze are shot; places follow.
+  body = await call(request, judge, 'put', `/api/events/${eventId}/matches/${match(0, 1)}/shoot-off`, {
+    a: { value: '10' },
+    b: { value: '10', closer: true },
+  });
+  body = await call(request, judge, 'post', `/api/events/${eventId}/matches/${match(0, 1)}/sign`, {});
+  await sets(match(1, 0), straight);
+  body = await call(request, judge, 'post', `/api/events/${eventId}/matches/${match(1, 0)}/sign`, {});
+  body = await call(
+    request,
+    organizer,
+    'post',
+    `/api/events/${eventId}/matches/${match(1, 0, true)}/walkover`,
+    {
+      side: 'b',
+      reason: 'no-show',
+    },
+  );
+  await page.reload();
+  const places = page.getByTestId('final-places');
+  await expect(places).toContainText('1. Ines Arbour');
+  await expect(places).toContainText('2. Kit Fairway');
+  await expect(places).toContainText('3. Lena Marsh');
+  await expect(places).toContainText('4. Jonah Quill');
+  await expect(page.getByTestId(`match-${match(1, 0, true)}`)).toContainText('Walkover (no-show)');
+  await checkA11y(page, 'brackets with final places (phone)');
+  await page.screenshot({ path: '.tmp/screens/brackets-places.png', fullPage: true });
+});
