@@ -1,5 +1,5 @@
 import { Router, type Request, type RequestHandler } from 'express';
-import { resultsSettingsSchema } from '../../src/contract/results';
+import { resultsSendSchema, resultsSettingsSchema } from '../../src/contract/results';
 import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
 import { badRequest, notFound } from '../http/httpError';
@@ -15,11 +15,12 @@ import {
 } from '../services/results/resultsEvent';
 import { resultsPdf } from '../services/results/resultsPdf';
 import { updateResultsSettings } from '../services/results/resultsSettings';
+import { sendResults } from '../services/results/sendResults';
 
 /**
  * Results: the standings of an event (public once the organizer publishes them; before that for
  * its organizers, judges and archers), as JSON with an ETag, as CSV or as a PDF (before publishing
- * for organizers only), and the organizer's
+ * for organizers only), the organizer's "send results" mail to every entrant, and the organizer's
  * results settings. Shoot-off arrows arrive as mutations through /api/sync/push.
  */
 export function resultsRoutes(ctx: AppContext): Router {
@@ -94,6 +95,18 @@ export function resultsRoutes(ctx: AppContext): Router {
       await updateResultsSettings(db, eventId, req.user!.id, req.body);
       const event = await findResultsEvent(db, eventId);
       res.json(await cache.results(event, await cache.version(event)));
+    },
+  );
+  router.post(
+    '/events/:eventId/results/send',
+    ctx.requireUser,
+    requireEventRole(db, 'organizer'),
+    validateBody(resultsSendSchema),
+    async (req, res) => {
+      const event = await findResultsEvent(db, idParam(req, 'eventId', 'event'));
+      const results = await cache.results(event, await cache.version(event));
+      const pageUrl = `${ctx.linkAddress.url}/results/${event.id}`;
+      res.json(await sendResults(db, ctx.mailer, results, { userId: req.user!.id, pageUrl }));
     },
   );
   return router;

@@ -110,3 +110,9 @@ export const resultsSettingsSchema = z
   })
   .strict();
 export type ResultsSettings = z.infer<typeof resultsSettingsSchema>;
+
+/** `POST /api/events/:eventId/results/send`: nothing to choose, the body is an empty object. */
+export const resultsSendSchema = z.object({}).strict();
+
+/** What "send results" did: mails handed to the mail server, entrants without an address, refusals. */
+export type ResultsSendReport = { sent: number; withoutAddress: number; failed: number };
