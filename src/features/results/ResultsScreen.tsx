@@ -29,9 +29,14 @@ export function ResultsScreen() {
                   Field screen
                 </Link>
                 {results.event.published && (
-                  <a className="font-bold underline" href={`/api/results/${eventId}/csv`} download>
-                    Download CSV
-                  </a>
+                  <>
+                    <a className="font-bold underline" href={`/api/results/${eventId}/pdf`} download>
+                      Print (PDF)
+                    </a>
+                    <a className="font-bold underline" href={`/api/results/${eventId}/csv`} download>
+                      Download CSV
+                    </a>
+                  </>
                 )}
               </p>
             </header>
@@ -60,6 +65,15 @@ export function ResultsScreen() {
                         {division.cut !== null ? ` · top ${division.cut} go through` : ''}
                       </span>
                     </h3>
+                    {results.event.published && (
+                      <a
+                        className="font-bold underline"
+                        href={`/api/results/${eventId}/pdf?division=${division.divisionId}`}
+                        download
+                      >
+                        Print {division.name} (PDF)
+                      </a>
+                    )}
                     {division.rows.length === 0 ? (
                       <p>No archers on targets yet.</p>
                     ) : (
