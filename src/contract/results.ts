@@ -52,7 +52,12 @@ export type StandingRow = {
   decidedByShootOff: boolean;
   shootOffArrows: ShootOffArrowDto[];
   trust: Trust;
+  /** The archer's class inside the division (an age class); empty when none. */
+  className: string;
 };
+
+/** One class of a division ranked on its own: places within the class, by the same tie rules. */
+export type ClassStandings = { name: string; rows: StandingRow[] };
 
 export type TeamRow = {
   club: string;
@@ -75,6 +80,8 @@ export type DivisionStandings = {
   cut: number | null;
   rows: StandingRow[];
   teams: TeamRow[];
+  /** Each class of the division, by name; empty when no archer of it has a class. */
+  classes: ClassStandings[];
 };
 
 export type SessionStandings = { sessionId: number; name: string; divisions: DivisionStandings[] };

@@ -47,6 +47,8 @@ function teamColumns(division: DivisionStandings): Column<TeamRow>[] {
 type Page = {
   session: string;
   division: DivisionStandings;
+  /** The class these rows rank, when the page is one class of the division. */
+  className?: string;
   part:
     { kind: 'archers'; rows: StandingRow[]; from: number } | { kind: 'teams'; rows: TeamRow[]; from: number };
 };
@@ -63,6 +65,14 @@ function pagesOf(results: EventResults, divisionId: number | undefined): Page[] 
           division,
           part: { kind: 'archers', rows: division.rows.slice(from, from + ROWS_PER_PAGE), from },
         });
+      for (const c of division.classes)
+        for (let from = 0; from < c.rows.length; from += ROWS_PER_PAGE)
+          pages.push({
+            session: session.name,
+            division,
+            className: c.name,
+            part: { kind: 'archers', rows: c.rows.slice(from, from + ROWS_PER_PAGE), from },
+          });
       for (let from = 0; from < division.teams.length; from += ROWS_PER_PAGE)
         pages.push({
           session: session.name,
@@ -135,7 +145,12 @@ function resultsPage(
   pdf.addPage();
   doc.rect(0, 0, PAGE.width, 100).fill(INK);
   pdf.text(results.event.name, left, 16, { size: 22, bold: true, width, minSize: 12, color: '#ffffff' });
-  const what = part.kind === 'teams' ? `${division.name} teams` : division.name;
+  const what =
+    part.kind === 'teams'
+      ? `${division.name} teams`
+      : page.className !== undefined
+        ? `${division.name}, ${page.className}`
+        : division.name;
   pdf.text(`${what} · ${page.session} · ${division.roundName}`, left, 46, {
     size: 13,
     bold: true,
@@ -167,7 +182,7 @@ function resultsPage(
       pdf.text('Nobody shoots in this division.', left, TABLE_TOP + 4, { size: 12 });
     else
       table(pdf, archerColumns(division), part.rows, (i) =>
-        division.cut !== null ? part.from + i + 1 === division.cut : false,
+        division.cut !== null && page.className === undefined ? part.from + i + 1 === division.cut : false,
       );
   } else table(pdf, teamColumns(division), part.rows);
 
@@ -181,7 +196,8 @@ function resultsPage(
 }
 
 /**
- * The standings as a printout: each division's archers (and teams), about 35 rows a page, for
+ * The standings as a printout: each division's archers, then each of its classes on its own,
+ * then its teams, about 33 rows a page, for
  * the whole event or one division. Streamed page by page like the other printouts.
  */
 export async function resultsPdf(results: EventResults, out: Writable, divisionId?: number): Promise<void> {

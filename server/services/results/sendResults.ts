@@ -24,6 +24,12 @@ function placesOf(results: EventResults, entryId: number): string[] {
       lines.push(
         `- ${session.name}, ${division.name}: ${place}, total ${row.total} (${TRUST_WORDS[row.trust]}${shootOff})`,
       );
+      const inClass = division.classes.find((c) => c.name === row.className)?.rows;
+      const classRow = inClass?.find((r) => r.entryId === entryId);
+      if (inClass && classRow)
+        lines.push(
+          `  in ${row.className}: ${classRow.tied ? 'shared ' : ''}place ${classRow.place} of ${inClass.length}`,
+        );
     }
   return lines;
 }

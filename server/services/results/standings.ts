@@ -27,6 +27,7 @@ type ArcherRow = {
   club: string;
   in_team: number | boolean;
   division_id: number;
+  class_name: string;
 };
 
 /** One archer's row before ranking, and what the ranking reads besides it. */
@@ -106,6 +107,7 @@ function scoreArcher(
       totalEnds: counts.totalEnds,
       shootOffArrows: shootOff,
       trust,
+      className: archer.class_name,
     },
     xs: counts.xs,
     nines: counts.nines,
@@ -134,15 +136,28 @@ function rankDivision(
     complete: s.row.endsShot === s.row.totalEnds,
     shootOff: s.row.shootOffArrows as ShootOffArrow[],
   }));
-  const rows: StandingRow[] = rankArchers(input, opts).map((r) =>
-    // Object.assign rather than a spread with extra keys: much quicker in V8 (see rankArchers).
-    Object.assign({}, byId.get(r.id)!, {
-      place: r.place,
-      tied: r.tied,
-      shootOff: r.shootOff,
-      decidedByShootOff: r.decidedByShootOff,
-    }),
+  const ranked = (archers: typeof input, rankOpts: typeof opts): StandingRow[] =>
+    rankArchers(archers, rankOpts).map((r) =>
+      // Object.assign rather than a spread with extra keys: much quicker in V8 (see rankArchers).
+      Object.assign({}, byId.get(r.id)!, {
+        place: r.place,
+        tied: r.tied,
+        shootOff: r.shootOff,
+        decidedByShootOff: r.decidedByShootOff,
+      }),
+    );
+  const rows = ranked(input, opts);
+  // Each class on its own: its medal places by the same rules; the cut is the division's, not a class's.
+  const classNames = [...new Set(scored.map((s) => s.row.className).filter((c) => c !== ''))].sort((a, b) =>
+    a.localeCompare(b),
   );
+  const classes = classNames.map((name) => ({
+    name,
+    rows: ranked(
+      input.filter((a) => byId.get(a.id)!.className === name),
+      { venue: round.venue },
+    ),
+  }));
   const teams = rankTeams(input, { ...opts, teamSize }).map((t) => ({
     club: t.club,
     members: t.members.map((m) => {
@@ -165,6 +180,7 @@ function rankDivision(
     cut: division.cut,
     rows,
     teams,
+    classes,
   };
 }
 
@@ -204,6 +220,7 @@ export async function computeResults(
       'e.club',
       'e.in_team',
       'e.division_id',
+      'e.class_name',
     )) as ArcherRow[];
   const rounds = new Map(
     divisions.map((d) => [

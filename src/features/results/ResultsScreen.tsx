@@ -79,6 +79,12 @@ export function ResultsScreen() {
                     ) : (
                       <StandingsTable division={division} />
                     )}
+                    {division.classes.map((c) => (
+                      <section key={c.name} aria-label={`${division.name}, ${c.name}`} className="space-y-2">
+                        <h4 className="text-lg font-bold">{c.name}</h4>
+                        <StandingsTable division={division} className={c.name} />
+                      </section>
+                    ))}
                     <TeamsTable division={division} />
                   </section>
                 ))}
