@@ -40,7 +40,7 @@ export function StandingsTable({
         return (
           <tr
             key={r.entryId}
-            data-testid={`standing-${r.entryId}`}
+            data-testid={`${className === undefined ? 'standing' : 'class-standing'}-${r.entryId}`}
             className={`border-b border-line ${cut ? 'border-t-4 border-t-ink' : ''}`}
           >
             <td className={`${CELL} text-xl font-bold`}>{placeText(r)}</td>
