@@ -8,6 +8,7 @@ import * as m0007 from '../migrations/0007_late_values';
 import * as m0008 from '../migrations/0008_account_recovery';
 import * as m0009 from '../migrations/0009_signing_trust';
 import * as m0010 from '../migrations/0010_results';
+import * as m0011 from '../migrations/0011_entry_classes';
 import * as m0013 from '../migrations/0013_matches';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
@@ -26,6 +27,7 @@ const migrations: [string, Migration][] = [
   ['0008_account_recovery', m0008],
   ['0009_signing_trust', m0009],
   ['0010_results', m0010],
+  ['0011_entry_classes', m0011],
   ['0013_matches', m0013],
 ];
 

@@ -85,7 +85,10 @@ const SURNAMES = [
 ];
 const CLUBS = [DEMO_CLUB, 'Stonebridge Bowmen', 'Kestrel Vale Archers', 'Millrace Toxophilites'];
 
-export type DemoArcher = { name: string; email: string; club: string; division: string };
+export type DemoArcher = { name: string; email: string; club: string; division: string; className: string };
+
+/** Age classes inside each division: two of its six archers shoot as juniors, one as a master. */
+const DEMO_CLASSES = ['', 'Under 21', '', '50+', 'Under 21', ''];
 
 /** Thirty-six archers, six per division, with stable invented names and addresses. */
 export function demoArchers(): DemoArcher[] {
@@ -102,6 +105,7 @@ export function demoArchers(): DemoArcher[] {
         email: `${first}.${last}.${n}@ringcall.example`.toLowerCase(),
         club: CLUBS[n % CLUBS.length]!,
         division: division.name,
+        className: DEMO_CLASSES[i]!,
       });
       n += 1;
     }

@@ -119,6 +119,7 @@ export async function seedDemoIfEmpty(db: Db, signingKeys: SigningKeys): Promise
         name: archer.name,
         club: archer.club,
         email: archer.email,
+        class_name: archer.className,
         created_at: at,
       });
     }

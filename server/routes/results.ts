@@ -1,5 +1,5 @@
 import { Router, type Request, type RequestHandler } from 'express';
-import { resultsSettingsSchema } from '../../src/contract/results';
+import { resultsSendSchema, resultsSettingsSchema } from '../../src/contract/results';
 import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
 import { badRequest, notFound } from '../http/httpError';
@@ -7,12 +7,20 @@ import { idParam } from '../http/params';
 import { validateBody } from '../http/validate';
 import { resultsCache } from '../services/results/resultsCache';
 import { resultsCsv } from '../services/results/resultsCsv';
-import { findResultsEvent, requireResultsViewer } from '../services/results/resultsEvent';
+import {
+  findResultsEvent,
+  requireResultsPrinter,
+  requireResultsViewer,
+  type ResultsEvent,
+} from '../services/results/resultsEvent';
+import { resultsPdf } from '../services/results/resultsPdf';
 import { updateResultsSettings } from '../services/results/resultsSettings';
+import { sendResults } from '../services/results/sendResults';
 
 /**
  * Results: the standings of an event (public once the organizer publishes them; before that for
- * its organizers, judges and archers), as JSON with an ETag or as CSV, and the organizer's
+ * its organizers, judges and archers), as JSON with an ETag, as CSV or as a PDF (before publishing
+ * for organizers only), the organizer's "send results" mail to every entrant, and the organizer's
  * results settings. Shoot-off arrows arrive as mutations through /api/sync/push.
  */
 export function resultsRoutes(ctx: AppContext): Router {
@@ -43,8 +51,8 @@ export function resultsRoutes(ctx: AppContext): Router {
     res.json(await cache.results(event, version));
   });
 
-  router.get('/results/:eventId/csv', maybeUser, async (req, res) => {
-    const event = await readable(req);
+  /** The standings now, and the one division `?division=ID` names (none: the whole event). */
+  const standingsOf = async (req: Request, event: ResultsEvent) => {
     const raw = req.query.division;
     let divisionId: number | undefined;
     if (raw !== undefined) {
@@ -54,11 +62,27 @@ export function resultsRoutes(ctx: AppContext): Router {
     const results = await cache.results(event, await cache.version(event));
     const known = results.sessions.some((s) => s.divisions.some((d) => d.divisionId === divisionId));
     if (divisionId !== undefined && !known) throw notFound('That division has no standings in this event.');
-    const name = `results-${event.id}${divisionId ? `-division-${divisionId}` : ''}.csv`;
+    const name = `results-${event.id}${divisionId ? `-division-${divisionId}` : ''}`;
+    return { results, divisionId, name };
+  };
+
+  router.get('/results/:eventId/csv', maybeUser, async (req, res) => {
+    const { results, divisionId, name } = await standingsOf(req, await readable(req));
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-    res.setHeader('Content-Disposition', `attachment; filename="${name}"`);
+    res.setHeader('Content-Disposition', `attachment; filename="${name}.csv"`);
     res.setHeader('Cache-Control', 'no-store');
     res.send(resultsCsv(results, divisionId));
+  });
+
+  router.get('/results/:eventId/pdf', maybeUser, async (req, res) => {
+    const event = await findResultsEvent(db, idParam(req, 'eventId', 'event'));
+    await requireResultsPrinter(db, event, req.user?.id);
+    const { results, divisionId, name } = await standingsOf(req, event);
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', `attachment; filename="${name}.pdf"`);
+    res.setHeader('Cache-Control', 'no-store');
+    // Streamed page by page, as the other printouts: a long field never holds up other requests.
+    await resultsPdf(results, res, divisionId);
   });
 
   router.patch(
@@ -71,6 +95,18 @@ export function resultsRoutes(ctx: AppContext): Router {
       await updateResultsSettings(db, eventId, req.user!.id, req.body);
       const event = await findResultsEvent(db, eventId);
       res.json(await cache.results(event, await cache.version(event)));
+    },
+  );
+  router.post(
+    '/events/:eventId/results/send',
+    ctx.requireUser,
+    requireEventRole(db, 'organizer'),
+    validateBody(resultsSendSchema),
+    async (req, res) => {
+      const event = await findResultsEvent(db, idParam(req, 'eventId', 'event'));
+      const results = await cache.results(event, await cache.version(event));
+      const pageUrl = `${ctx.linkAddress.url}/results/${event.id}`;
+      res.json(await sendResults(db, ctx.mailer, results, { userId: req.user!.id, pageUrl }));
     },
   );
   return router;

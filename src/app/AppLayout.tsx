@@ -1,30 +1,12 @@
-import { Link, Outlet } from 'react-router-dom';
 import { ConnectionBadge } from '../ui/ConnectionBadge';
-import { ThemeToggle } from '../ui/ThemeToggle';
-import { RingMark } from '../ui/RingMark';
-import { UpdatePrompt } from './pwa/UpdatePrompt';
 import { useSyncBridge } from '../local/useSync';
+import { Frame } from './Frame';
 
+/**
+ * The frame of the app's own screens, with the sync loop and its badge. Its own chunk: it brings
+ * the phone's database (Dexie) and the sync engine, which the public results pages do without.
+ */
 export function AppLayout() {
   useSyncBridge();
-  return (
-    <div className="flex min-h-dvh flex-col">
-      <header className="sticky top-0 z-40 bg-ink text-white shadow">
-        <div className="mx-auto flex max-w-3xl flex-wrap items-center gap-x-3 gap-y-2 px-4 py-3">
-          <Link to="/" className="flex min-h-12 items-center gap-2 text-2xl font-bold tracking-tight">
-            <RingMark className="h-9 w-9" />
-            Ringcall
-          </Link>
-          <div className="ml-auto flex flex-wrap items-center justify-end gap-2">
-            <ThemeToggle />
-            <ConnectionBadge />
-          </div>
-        </div>
-      </header>
-      <UpdatePrompt />
-      <main className="mx-auto w-full max-w-3xl flex-1 px-4 py-5">
-        <Outlet />
-      </main>
-    </div>
-  );
+  return <Frame status={<ConnectionBadge />} />;
 }

@@ -1,6 +1,6 @@
-import { Suspense } from 'react';
+import { Suspense, lazy } from 'react';
 import { Outlet, useRoutes, type RouteObject } from 'react-router-dom';
-import { AppLayout } from './AppLayout';
+import { Frame } from './Frame';
 import { lazyScreen } from './lazyScreen';
 import { RouteBoundary } from './RouteBoundary';
 import { authRoutes } from '../features/auth/routes';
@@ -24,6 +24,11 @@ function ScreenArea() {
   );
 }
 
+const loadAppLayout = async () => ({ default: (await import('./AppLayout')).AppLayout });
+const AppLayout = lazy(loadAppLayout);
+// Fetched at once (beside the entry) for every page but the public results, which never need it.
+if (typeof location !== 'undefined' && !location.pathname.startsWith('/results/')) void loadAppLayout();
+
 /**
  * Each screen is its own lazily loaded chunk, so a phone downloads the pad without the organizer's
  * screens. Declarative routes, not a data router: screens load their data with TanStack Query and
@@ -32,8 +37,18 @@ function ScreenArea() {
  */
 const routes: RouteObject[] = [
   {
+    // The public results pages: no sync loop, no phone database, so a spectator's first load is small.
     path: '/',
-    element: <AppLayout />,
+    element: <Frame />,
+    children: [{ element: <ScreenArea />, children: resultsRoutes }],
+  },
+  {
+    path: '/',
+    element: (
+      <Suspense fallback={null}>
+        <AppLayout />
+      </Suspense>
+    ),
     children: [
       {
         element: <ScreenArea />,
@@ -49,7 +64,6 @@ const routes: RouteObject[] = [
           ...verifyRoutes,
           ...cardRoutes,
           ...eventRoutes,
-          ...resultsRoutes,
           ...bracketRoutes,
           {
             // The operator's, not an app role's: no sign-in, and nothing of it in the query cache.

@@ -218,6 +218,8 @@ export const entryInputSchema = z.object({
     .union([z.literal(''), emailSchema], { error: 'That does not look like an e-mail address.' })
     .default(''),
   divisionId: idSchema,
+  /** The archer's class inside the division (an age class); empty when the event uses none. */
+  className: optionalNameText('the class (for example Under 18 or 50+)', 60).default(''),
 });
 export type EntryInput = z.infer<typeof entryInputSchema>;
 
@@ -229,6 +231,7 @@ export const updateEntrySchema = z
       .union([z.literal(''), emailSchema], { error: 'That does not look like an e-mail address.' })
       .optional(),
     divisionId: idSchema.optional(),
+  className: optionalNameText('the class (for example Under 18 or 50+)', 60).optional(),
   })
   .refine(...someChange);
 export type UpdateEntryInput = z.infer<typeof updateEntrySchema>;
@@ -241,13 +244,15 @@ export type Entry = {
   divisionId: number;
   divisionName: string;
   bowStyle: BowStyleName;
+  /** The class inside the division; empty when none. */
+  className: string;
   /** True once the archer has a Ringcall account linked to this entry. */
   linked: boolean;
 };
 export type EntryList = { entries: Entry[] };
 
 /** The columns of an entry-list CSV file, in the template's order. */
-export const ENTRY_CSV_COLUMNS = ['name', 'club', 'email', 'division'] as const;
+export const ENTRY_CSV_COLUMNS = ['name', 'club', 'email', 'division', 'class'] as const;
 export const ENTRY_CSV_MAX_BYTES = 512 * 1024;
 export const ENTRY_CSV_MAX_ROWS = 2000;
 
@@ -258,6 +263,8 @@ export type ImportRow = {
   club: string;
   email: string;
   division: string;
+  /** The class inside the division (optional column). */
+  className: string;
   problems: string[];
 };
 export type ImportPreview = { rows: ImportRow[]; readyCount: number; problemCount: number };

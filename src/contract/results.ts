@@ -45,7 +45,12 @@ export type StandingRow = {
   decidedByShootOff: boolean;
   shootOffArrows: ShootOffArrowDto[];
   trust: Trust;
+  /** The archer's class inside the division (an age class); empty when none. */
+  className: string;
 };
+
+/** One class of a division ranked on its own: places within the class, by the same tie rules. */
+export type ClassStandings = { name: string; rows: StandingRow[] };
 
 export type TeamRow = {
   club: string;
@@ -68,6 +73,8 @@ export type DivisionStandings = {
   cut: number | null;
   rows: StandingRow[];
   teams: TeamRow[];
+  /** Each class of the division, by name; empty when no archer of it has a class. */
+  classes: ClassStandings[];
 };
 
 export type SessionStandings = { sessionId: number; name: string; divisions: DivisionStandings[] };
@@ -103,3 +110,9 @@ export const resultsSettingsSchema = z
   })
   .strict();
 export type ResultsSettings = z.infer<typeof resultsSettingsSchema>;
+
+/** `POST /api/events/:eventId/results/send`: nothing to choose, the body is an empty object. */
+export const resultsSendSchema = z.object({}).strict();
+
+/** What "send results" did: mails handed to the mail server, entrants without an address, refusals. */
+export type ResultsSendReport = { sent: number; withoutAddress: number; failed: number };

@@ -1,5 +1,4 @@
 import { useSyncExternalStore } from 'react';
-import { localDb } from './db';
 import { forgetOthers } from './forgetOthers';
 
 /**
@@ -48,7 +47,11 @@ function changeOwner(next: number | undefined): Promise<void> {
   }
   listeners.forEach((l) => l());
   // One clearing after another, each run even if the one before failed.
-  forgetting = forgetting.catch(() => undefined).then(() => forgetOthers(localDb(), next));
+  // The database is imported here, not at the top: the public results pages read the owner
+  // (their query cache is the owner's) without loading Dexie.
+  forgetting = forgetting
+    .catch(() => undefined)
+    .then(async () => forgetOthers((await import('./db')).localDb(), next));
   return forgetting;
 }
 

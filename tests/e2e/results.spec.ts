@@ -45,6 +45,16 @@ test('a judge signs an end and the public results page shows the new total witho
   await checkA11y(spectator, 'public results (phone)');
   await spectator.screenshot({ path: '.tmp/screens/results-phone.png', fullPage: true });
 
+  // The page links its printout, and never loaded the app's layout (sync loop, phone database).
+  const pdfHref = await spectator.getByRole('link', { name: 'Print (PDF)' }).getAttribute('href');
+  const pdf = await request.get(pdfHref!);
+  expect(pdf.status()).toBe(200);
+  expect(pdf.headers()['content-type']).toBe('application/pdf');
+  const scripts = await spectator.evaluate(() =>
+    performance.getEntriesByType('resource').map((e) => e.name.split('/').pop()!),
+  );
+  expect(scripts.filter((name) => /^(AppLayout|db|syncLoop)-.*\.js$/.test(name))).toEqual([]);
+
   // Both writers enter end 1 of archer A; a judge signs it.
   const w1 = apiPhone(request, await token(request, a!.email), 'results-w1');
   const w2 = apiPhone(request, await token(request, b!.email), 'results-w2');

@@ -48,14 +48,14 @@ describe('CSV template', () => {
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     expect(res.headers['content-disposition']).toMatch(/attachment; filename=".*\.csv"/);
     const lines = (res.body as Buffer).toString('utf8').trim().split('\r\n');
-    expect(lines[0]).toBe('name,club,email,division');
+    expect(lines[0]).toBe('name,club,email,division,class');
     expect(lines).toHaveLength(3);
     const divisions = (await server
       .db('divisions')
       .where({ event_id: setup.eventId })
       .orderBy('id')
       .pluck('name')) as string[];
-    expect(lines[1]).toBe(`Example Archer One,Example Bowmen,archer.one@example.org,${divisions[0]}`);
+    expect(lines[1]).toBe(`Example Archer One,Example Bowmen,archer.one@example.org,${divisions[0]},`);
     expect(lines[2]!.split(',')[0]).toBe('Example Archer Two');
   });
 });
@@ -95,7 +95,15 @@ describe('CSV preview', () => {
     const utf8 = await upload('import/preview', text);
     expect(utf8.status).toBe(200);
     expect(utf8.body.rows).toEqual([
-      { row: 3, name: 'Zoë Ashby', club: '', email: '', division: 'Recurve Women', problems: [] },
+      {
+        row: 3,
+        name: 'Zoë Ashby',
+        club: '',
+        email: '',
+        division: 'Recurve Women',
+        className: '',
+        problems: [],
+      },
     ]);
     const latin1 = await upload(
       'import/preview',

@@ -227,7 +227,7 @@ describe('results: CSV', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/csv/);
     const text = res.text;
-    expect(text.split('\r\n')[0]).toMatch(/^Session,Division,Place/);
+    expect(text.split('\r\n')[0]).toMatch(/^Session,Division,Class,Place/);
     expect(text).toContain(`"'=HYPERLINK(""http://x.example"",""win"")"`);
     expect(text).toContain(`'@SUM(1)`);
     expect(text).not.toMatch(/(^|,)[=@+-]/m);

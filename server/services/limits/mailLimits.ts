@@ -2,7 +2,7 @@ import type { Db } from '../../db';
 import { nowIso } from '../../time';
 import { refuseOverWindow, type Window } from './window';
 
-export type MailKind = 'invite' | 'verify' | 'card';
+export type MailKind = 'invite' | 'verify' | 'card' | 'results';
 type Counted = 'sent_by' | 'event_id' | 'recipient';
 type Rule = Window & { per: Counted[]; says: (within: string, wait: string, to: string) => string };
 
@@ -61,6 +61,16 @@ export const MAIL_RULES: Record<MailKind, Rule[]> = {
       max: 200,
       minutes: 60,
       says: (w, wait) => `This event has sent 200 cards again in the last ${w}. Send more in ${wait}.`,
+    },
+  ],
+  // One row per "send results" (a mail to every entrant): a few corrections an hour, no more.
+  results: [
+    {
+      per: ['event_id'],
+      max: 3,
+      minutes: 60,
+      says: (w, wait) =>
+        `The results of this event went to its archers 3 times in the last ${w}. Send them again in ${wait}.`,
     },
   ],
 };

@@ -41,6 +41,7 @@ export async function listEntries(db: Db, eventId: number): Promise<EntryList> {
       divisionId: r.division_id,
       divisionName: r.division_name,
       bowStyle: r.bow_style,
+      className: r.class_name,
       linked: r.user_id !== null,
     })),
   };
@@ -106,6 +107,7 @@ export async function createEntry(
         name: input.name,
         club: input.club,
         email: input.email || null,
+        class_name: input.className,
         created_at: nowIso(),
       })
       .returning('id');
@@ -137,6 +139,7 @@ export async function updateEntry(
   await db.transaction(async (trx) => {
     const changes: Record<string, unknown> = { name, division_id: divisionId };
     if (input.club !== undefined) changes.club = input.club;
+    if (input.className !== undefined) changes.class_name = input.className;
     const emailChanged = input.email !== undefined && (input.email || null) !== current.email;
     if (emailChanged) {
       changes.email = input.email || null;

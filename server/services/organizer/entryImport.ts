@@ -23,6 +23,7 @@ const HEADER_NAMES: Record<Column, string[]> = {
   club: ['club'],
   email: ['email', 'e-mail', 'emailaddress', 'e-mailaddress', 'mail'],
   division: ['division', 'category'],
+  class: ['class', 'ageclass', 'agegroup'],
 };
 
 /** UTF-8 when it is UTF-8; otherwise the Windows encoding spreadsheets often save CSV in. */
@@ -72,6 +73,7 @@ export function readEntryCsv(buffer: Buffer): RawRow[] {
         club: cell('club'),
         email: cell('email').toLowerCase(),
         division: cell('division'),
+        class: cell('class'),
       },
     });
   });
@@ -105,6 +107,7 @@ export async function checkEntryRows(
     if (!values.name) problems.push('The name is missing.');
     else if (values.name.length > 120) problems.push('The name is longer than 120 characters.');
     if (values.club.length > 120) problems.push('The club is longer than 120 characters.');
+    if (values.class.length > 60) problems.push('The class is longer than 60 characters.');
     if (values.email && !emailSchema.safeParse(values.email).success)
       problems.push(`"${values.email}" is not an e-mail address.`);
     const division = divisions.find((d) => normalize(d.name) === normalize(values.division));
@@ -124,7 +127,8 @@ export async function checkEntryRows(
       if (entered.has(key)) problems.push(`${values.name} is already entered in ${entered.get(key)}.`);
     }
     divisionIds.push(division?.id);
-    return { row, ...values, problems };
+    const { class: className, ...rest } = values;
+    return { row, ...rest, className, problems };
   });
   return { rows: checked, divisionIds };
 }
@@ -164,6 +168,7 @@ export async function importEntries(
           name: r.name,
           club: r.club,
           email: r.email || null,
+          class_name: r.className,
           created_at: at,
         })
         .returning('id');
@@ -191,8 +196,8 @@ export async function entryTemplateCsv(db: Db, eventId: number): Promise<string>
   const quote = (v: string) => (/[",\r\n]/.test(v) ? `"${v.replaceAll('"', '""')}"` : v);
   const rows = [
     [...ENTRY_CSV_COLUMNS],
-    ['Example Archer One', 'Example Bowmen', 'archer.one@example.org', first],
-    ['Example Archer Two', 'Example Bowmen', '', second],
+    ['Example Archer One', 'Example Bowmen', 'archer.one@example.org', first, ''],
+    ['Example Archer Two', 'Example Bowmen', '', second, 'Under 18'],
   ];
   return rows.map((r) => r.map(quote).join(',')).join('\r\n') + '\r\n';
 }

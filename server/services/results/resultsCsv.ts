@@ -11,7 +11,7 @@ export function neutraliseCell(value: string | number): string | number {
 
 const TRUST_WORDS = { provisional: 'provisional', signed: 'signed', final: 'final' } as const;
 
-/** The standings as CSV: one row per archer, for the whole event or one division of it. */
+/** The standings as CSV: one row per archer (place in the division), for the whole event or one division of it. */
 export function resultsCsv(results: EventResults, divisionId?: number): string {
   const rows: (string | number)[][] = [];
   for (const session of results.sessions) {
@@ -21,6 +21,7 @@ export function resultsCsv(results: EventResults, divisionId?: number): string {
         rows.push([
           session.name,
           division.name,
+          r.className,
           r.place,
           r.tied ? 'tied' : '',
           r.name,
@@ -40,6 +41,7 @@ export function resultsCsv(results: EventResults, divisionId?: number): string {
     fields: [
       'Session',
       'Division',
+      'Class',
       'Place',
       'Tie',
       'Archer',

@@ -58,6 +58,21 @@ export async function requireResultsViewer(
     throw forbidden(`${message} Only its organizers, judges and archers can see them now.`);
 }
 
+/** The results printout: for everyone once published, for the event's organizers before that. */
+export async function requireResultsPrinter(
+  db: Db,
+  event: ResultsEvent,
+  userId: number | undefined,
+): Promise<void> {
+  if (event.published) return;
+  const message = `The results of ${event.name} are not published yet; until then only its organizers can print them.`;
+  if (userId === undefined) throw forbidden(`${message} Sign in if you organize it.`);
+  const role = await db('event_roles')
+    .where({ event_id: event.id, user_id: userId, role: 'organizer' })
+    .first('id');
+  if (!role) throw forbidden(message);
+}
+
 /**
  * A tag that changes whenever the standings could: any field change of the event (writes,
  * rulings, signatures), a shoot-off arrow, the event's own settings, the entry list or the

@@ -32,9 +32,14 @@ export function ResultsScreen() {
                   Eliminations
                 </Link>
                 {results.event.published && (
-                  <a className="font-bold underline" href={`/api/results/${eventId}/csv`} download>
-                    Download CSV
-                  </a>
+                  <>
+                    <a className="font-bold underline" href={`/api/results/${eventId}/pdf`} download>
+                      Print (PDF)
+                    </a>
+                    <a className="font-bold underline" href={`/api/results/${eventId}/csv`} download>
+                      Download CSV
+                    </a>
+                  </>
                 )}
               </p>
             </header>
@@ -63,11 +68,26 @@ export function ResultsScreen() {
                         {division.cut !== null ? ` · top ${division.cut} go through` : ''}
                       </span>
                     </h3>
+                    {results.event.published && (
+                      <a
+                        className="font-bold underline"
+                        href={`/api/results/${eventId}/pdf?division=${division.divisionId}`}
+                        download
+                      >
+                        Print {division.name} (PDF)
+                      </a>
+                    )}
                     {division.rows.length === 0 ? (
                       <p>No archers on targets yet.</p>
                     ) : (
                       <StandingsTable division={division} />
                     )}
+                    {division.classes.map((c) => (
+                      <section key={c.name} aria-label={`${division.name}, ${c.name}`} className="space-y-2">
+                        <h4 className="text-lg font-bold">{c.name}</h4>
+                        <StandingsTable division={division} className={c.name} />
+                      </section>
+                    ))}
                     <TeamsTable division={division} />
                   </section>
                 ))}

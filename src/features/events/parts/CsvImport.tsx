@@ -21,6 +21,7 @@ function PreviewRows({ preview }: { preview: ImportPreview }) {
               <span className="font-bold">Row {r.row}:</span> {r.name || <em>no name</em>}
               {r.division && ` · ${r.division}`}
               {r.club && ` · ${r.club}`}
+              {r.className && ` · ${r.className}`}
               {r.email && <span className="block break-all text-base">{r.email}</span>}
             </p>
             {ok ? (
@@ -72,7 +73,8 @@ export function CsvImport({ summary }: { summary: EventSummary }) {
         Upload a CSV file
       </h3>
       <p>
-        One archer per row, with the columns {ENTRY_CSV_COLUMNS.join(', ')}. The division must be one of:{' '}
+        One archer per row, with the columns {ENTRY_CSV_COLUMNS.join(', ')} (club, email and class may be
+        empty). The division must be one of:{' '}
         <strong>{summary.divisions.map((d) => d.name).join(', ')}</strong>. Nothing is stored until the whole
         file is clean.
       </p>

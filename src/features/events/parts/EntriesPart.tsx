@@ -21,6 +21,7 @@ function EntryRow({ summary, entry }: { summary: EventSummary; entry: Entry }) {
     club: entry.club,
     email: entry.email,
     divisionId: String(entry.divisionId),
+    className: entry.className,
   });
   const [problems, setProblems] = useState<Record<string, string>>({});
   const update = useUpdateEntry(eventId);
@@ -51,6 +52,7 @@ function EntryRow({ summary, entry }: { summary: EventSummary; entry: Entry }) {
           <p>
             <strong>{entry.name}</strong>
             {entry.club && ` · ${entry.club}`}
+            {entry.className && ` · ${entry.className}`}
             {entry.email && <span className="block break-all text-base">{entry.email}</span>}
             {entry.linked && (
               <span className="block text-base">
@@ -79,7 +81,13 @@ function EntryRow({ summary, entry }: { summary: EventSummary; entry: Entry }) {
 
 function AddEntry({ summary }: { summary: EventSummary }) {
   const create = useCreateEntry(summary.event.id);
-  const [draft, setDraft] = useState<EntryDraft>({ name: '', club: '', email: '', divisionId: '' });
+  const [draft, setDraft] = useState<EntryDraft>({
+    name: '',
+    club: '',
+    email: '',
+    divisionId: '',
+    className: '',
+  });
   const [problems, setProblems] = useState<Record<string, string>>({});
   const [added, setAdded] = useState<string>();
 

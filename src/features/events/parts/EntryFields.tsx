@@ -2,9 +2,9 @@ import type { Division } from '../../../contract/events';
 import { Field } from '../../../ui/Field';
 import { SelectField } from '../../../ui/SelectField';
 
-export type EntryDraft = { name: string; club: string; email: string; divisionId: string };
+export type EntryDraft = { name: string; club: string; email: string; divisionId: string; className: string };
 
-/** Name, club, e-mail and division of one archer's entry. */
+/** Name, club, e-mail, division and class of one archer's entry. */
 export function EntryFields({
   draft,
   onChange,
@@ -48,6 +48,13 @@ export function EntryFields({
         value={draft.email}
         onChange={set('email')}
         error={problems.email}
+      />
+      <Field
+        label="Class"
+        hint="Optional: an age class inside the division, such as Under 18 or 50+. Each class is also ranked on its own."
+        value={draft.className}
+        onChange={set('className')}
+        error={problems.className}
       />
     </div>
   );

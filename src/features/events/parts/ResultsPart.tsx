@@ -8,11 +8,12 @@ import { Notice } from '../../../ui/Notice';
 import { downloadFile } from '../../../api/downloadFile';
 import { useEventResults } from '../../../api/eventResults';
 import { useUpdateResultsSettings } from '../api/updateResultsSettings';
+import { SendResults } from './SendResults';
 
 const cutOf = (results: EventResults, divisionId: number) =>
   results.sessions.flatMap((s) => s.divisions).find((d) => d.divisionId === divisionId)?.cut ?? null;
 
-/** The organizer's results: publish them, the team size, each division's cut, links and the CSV. */
+/** The organizer's results: publish them, the team size, each division's cut, links, PDF and CSV, sending them. */
 export function ResultsPart({ summary }: { summary: EventSummary }) {
   const eventId = summary.event.id;
   const query = useEventResults(eventId);
@@ -45,9 +46,9 @@ function ResultsSettingsForm({ summary, results }: { summary: EventSummary; resu
       { onSuccess: () => setSaved(true) },
     );
   };
-  const csv = () => {
+  const fetchFile = (kind: 'csv' | 'pdf') => {
     setDownload(undefined);
-    downloadFile(`/api/results/${eventId}/csv`, `results-${eventId}.csv`).catch((error: Error) =>
+    downloadFile(`/api/results/${eventId}/${kind}`, `results-${eventId}.${kind}`).catch((error: Error) =>
       setDownload(error.message),
     );
   };
@@ -79,10 +80,16 @@ function ResultsSettingsForm({ summary, results }: { summary: EventSummary; resu
             Field screen
           </Link>
         </p>
-        <Button variant="secondary" onClick={csv}>
-          Download results (CSV)
-        </Button>
+        <div className="flex flex-wrap gap-3">
+          <Button variant="secondary" onClick={() => fetchFile('pdf')}>
+            Print results (PDF)
+          </Button>
+          <Button variant="secondary" onClick={() => fetchFile('csv')}>
+            Download results (CSV)
+          </Button>
+        </div>
         {download && <Notice tone="error">{download}</Notice>}
+        <SendResults eventId={eventId} published={results.event.published} />
       </div>
       <form
         onSubmit={save}

@@ -1,0 +1,29 @@
+import type { ReactNode } from 'react';
+import { Link, Outlet } from 'react-router-dom';
+import { ThemeToggle } from '../ui/ThemeToggle';
+import { RingMark } from '../ui/RingMark';
+import { UpdatePrompt } from './pwa/UpdatePrompt';
+
+/** Ringcall's page frame: the header with the mark and the theme, the update prompt, the screen. */
+export function Frame({ status }: { status?: ReactNode }) {
+  return (
+    <div className="flex min-h-dvh flex-col">
+      <header className="sticky top-0 z-40 bg-ink text-white shadow">
+        <div className="mx-auto flex max-w-3xl flex-wrap items-center gap-x-3 gap-y-2 px-4 py-3">
+          <Link to="/" className="flex min-h-12 items-center gap-2 text-2xl font-bold tracking-tight">
+            <RingMark className="h-9 w-9" />
+            Ringcall
+          </Link>
+          <div className="ml-auto flex flex-wrap items-center justify-end gap-2">
+            <ThemeToggle />
+            {status}
+          </div>
+        </div>
+      </header>
+      <UpdatePrompt />
+      <main className="mx-auto w-full max-w-3xl flex-1 px-4 py-5">
+        <Outlet />
+      </main>
+    </div>
+  );
+}
