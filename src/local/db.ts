@@ -7,6 +7,7 @@ import type {
   EndSignatureDto,
   RulingDto,
 } from '../contract/judging';
+import type { ShootOffRecordArgs } from '../contract/results';
 import type {
   EndRecordDto,
   EndSettleArgs,
@@ -41,9 +42,9 @@ export type OutboxRow = {
   id: string;
   userId: number;
   kind: MutationKind;
-  args: EndWriteArgs | EndSettleArgs | EndRuleArgs | EndSignArgs | CardSignArgs;
+  args: EndWriteArgs | EndSettleArgs | EndRuleArgs | EndSignArgs | CardSignArgs | ShootOffRecordArgs;
   at: string;
-  /** The end this change is about (session:entry:end), for the pad's overlay. */
+  /** The end this change is about (session:entry:end), for the pad's overlay; a card or a shoot-off arrow has its own suffix. */
   endKey: string;
   status: OutboxStatus;
   reason?: string;
@@ -88,6 +89,8 @@ export const endKeyOf = (sessionId: number, entryId: number, endIndex: number) =
 export const recordKeyOf = (sessionId: number, entryId: number, endIndex: number, slot: WriterSlot) =>
   `${endKeyOf(sessionId, entryId, endIndex)}:${slot}`;
 export const cardKeyOf = (sessionId: number, entryId: number) => `${sessionId}:${entryId}`;
+export const shootOffKeyOf = (sessionId: number, entryId: number, arrowIndex: number) =>
+  `${cardKeyOf(sessionId, entryId)}:shootoff:${arrowIndex}`;
 export const targetKeyOf = (userId: number, sessionId: number, targetNumber: number) =>
   `${userId}:${sessionId}:${targetNumber}`;
 

@@ -184,11 +184,23 @@ function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: numb
           ))}
         </ul>
       )}
+      <ShootOffsLink eventId={eventId} />
       <LateValues eventId={eventId} sessionId={sessionId} />
       <PaperCountersigns eventId={eventId} sessionId={sessionId} />
       <ImportWaiting eventId={eventId} />
       <SyncLine />
     </div>
+  );
+}
+
+function ShootOffsLink({ eventId }: { eventId: number }) {
+  return (
+    <Link
+      to={`/desk/${eventId}/shoot-offs`}
+      className="surface flex min-h-16 items-center rounded-xl border-2 border-ink bg-card p-3 text-xl font-bold"
+    >
+      Shoot-offs ▸
+    </Link>
   );
 }
 
@@ -198,6 +210,9 @@ function SessionPicker({ eventId }: { eventId: number }) {
   if (summary.error) return <Notice tone="error">{summary.error.message}</Notice>;
   return (
     <ul className="space-y-2">
+      <li>
+        <ShootOffsLink eventId={eventId} />
+      </li>
       {summary.data.sessions.map((s) => (
         <li key={s.id}>
           <Link
