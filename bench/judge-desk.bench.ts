@@ -66,6 +66,8 @@ const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
   },
   stdio: ['ignore', 'ignore', 'inherit'],
 });
+// Stopped however the bench ends, a failure included.
+process.on('exit', () => server.kill('SIGTERM'));
 const base = `http://127.0.0.1:${PORT}`;
 for (let i = 0; ; i += 1) {
   if (
@@ -106,8 +108,9 @@ try {
           })),
         )
         .map((m, i) => ({ ...m, id: crypto.randomUUID(), seq: i + 1, at: nowIso() }));
-      const res = await client.post('/api/sync/push', w.token, { clientId: `bench-${w.userId}`, mutations });
-      if (res.status !== 200) throw new Error(`A writer's push answered ${res.status}.`);
+      const res = await client.post('/api/sync/push', w.token, { clientId: `bench-writer-${w.userId}`, mutations });
+      if (res.status !== 200)
+        throw new Error(`A writer's push answered ${res.status}: ${JSON.stringify(res.body)}`);
     }),
   );
 } finally {
@@ -193,7 +196,6 @@ try {
   console.log(
     `  machine load (1-minute average, ${cpus().length} cores): ${loadavg()[0]!.toFixed(1)} at the end`,
   );
-  await browser.close();
 } finally {
-  server.kill('SIGTERM');
+  await browser.close();
 }
