@@ -47,10 +47,10 @@ const countWords = (counts: Record<DeskItemKind, number>) =>
   (Object.keys(DESK_KIND_LABELS) as DeskItemKind[])
     .filter((kind) => counts[kind] > 0)
     .map(
-      (kind) => `${DESK_KIND_LABELS[kind].mark} ${counts[kind]} ${DESK_KIND_LABELS[kind].word.toLowerCase()}`,
+      (kind) =>
+        `${DESK_KIND_LABELS[kind].mark} ${DESK_KIND_LABELS[kind].word.toLowerCase()}: ${counts[kind]}`,
     )
     .join(' · ');
-
 /**
  * Every target of the session as one summary row, those needing a decision first: a desk of 50
  * targets shows 50 rows, not thousands of ends (the ends of one target open on a tap).
@@ -101,7 +101,10 @@ function AllTargets({
         </ul>
       )}
       {quiet.length > 0 && waiting.length > 0 && (
-        <p>Nothing waits on target {quiet.map((s) => s.target.targetNumber).join(', ')}.</p>
+        <p>
+          Nothing waits on target{quiet.length > 1 ? 's' : ''}{' '}
+          {quiet.map((s) => s.target.targetNumber).join(', ')}.
+        </p>
       )}
     </>
   );
