@@ -7,6 +7,7 @@ import type {
   EndSignatureDto,
   RulingDto,
 } from '../contract/judging';
+import type { ShootOffRecordArgs } from '../contract/results';
 import type {
   EndRecordDto,
   EndSettleArgs,
@@ -40,9 +41,9 @@ export type OutboxRow = {
   id: string;
   userId: number;
   kind: MutationKind;
-  args: EndWriteArgs | EndSettleArgs | EndRuleArgs | EndSignArgs | CardSignArgs;
+  args: EndWriteArgs | EndSettleArgs | EndRuleArgs | EndSignArgs | CardSignArgs | ShootOffRecordArgs;
   at: string;
-  /** The end this change is about (session:entry:end), for the pad's overlay. */
+  /** The end this change is about (session:entry:end), for the pad's overlay; a card or a shoot-off arrow has its own suffix. */
   endKey: string;
   status: OutboxStatus;
   reason?: string;
@@ -83,7 +84,10 @@ export class LocalDb extends Dexie {
 }
 
 // The record keys are shared with the server (src/contract/recordKeys.ts).
+import { cardKeyOf } from '../contract/recordKeys';
 export { cardKeyOf, endKeyOf, recordKeyOf } from '../contract/recordKeys';
+export const shootOffKeyOf = (sessionId: number, entryId: number, arrowIndex: number) =>
+  `${cardKeyOf(sessionId, entryId)}:shootoff:${arrowIndex}`;
 export const targetKeyOf = (userId: number, sessionId: number, targetNumber: number) =>
   `${userId}:${sessionId}:${targetNumber}`;
 

@@ -1,7 +1,8 @@
 import type { EndSettleArgs, EndWriteArgs, Mutation } from '../contract/sync';
 import type { CardSignArgs, EndRuleArgs, EndSignArgs } from '../contract/judging';
+import type { ShootOffRecordArgs } from '../contract/results';
 import { Dexie } from 'dexie';
-import { cardKeyOf, endKeyOf, type LocalDb, type OutboxRow } from './db';
+import { cardKeyOf, endKeyOf, shootOffKeyOf, type LocalDb, type OutboxRow } from './db';
 import { writeAtOnce } from './writeAtOnce';
 import { signWaitingBlock } from './deviceKey';
 
@@ -37,13 +38,16 @@ type NewChange =
   | { kind: 'end.settle'; args: EndSettleArgs }
   | { kind: 'end.rule'; args: EndRuleArgs }
   | { kind: 'end.sign'; args: EndSignArgs }
-  | { kind: 'card.sign'; args: CardSignArgs };
+  | { kind: 'card.sign'; args: CardSignArgs }
+  | { kind: 'shootoff.record'; args: ShootOffRecordArgs };
 
-/** The end a change is about, or the card for a card signature. */
+/** The end a change is about, the card for a card signature, the arrow for a shoot-off. */
 const subjectKey = (change: NewChange) =>
   change.kind === 'card.sign'
     ? `${cardKeyOf(change.args.sessionId, change.args.entryId)}:card`
-    : endKeyOf(change.args.sessionId, change.args.entryId, change.args.endIndex);
+    : change.kind === 'shootoff.record'
+      ? shootOffKeyOf(change.args.sessionId, change.args.entryId, change.args.arrowIndex)
+      : endKeyOf(change.args.sessionId, change.args.entryId, change.args.endIndex);
 
 /** The next sequence number per client, as last committed from this page (see recordChange). */
 const knownNextSeq = new Map<string, number>();

@@ -10,6 +10,9 @@ function groupBy<T>(rows: T[], key: (row: T) => string): Map<string, T[]> {
   return map;
 }
 
+/** From this many archers on, the session's rows are read whole (a few targets' pads read per archer). */
+const WHOLE_SESSION_FROM = 16;
+
 /**
  * Every end of the given targets' archers as this phone knows it: the server's records, the
  * judges' records, and this person's waiting changes on top. Also this person's refused changes,
@@ -33,10 +36,13 @@ export async function loadSessionEnds(
   const prefixes = [
     ...new Set(targets.flatMap((t) => t.archers.map((a) => `${cardKeyOf(sessionId, a.entryId)}:`))),
   ];
+  // Many archers (the judge desk's whole session): one read of the session beats a range per archer.
   const byArcher = <T, K, I>(table: Table<T, K, I>) =>
-    Promise.all(prefixes.map((p) => table.where('endKey').between(p, `${p}\uffff`).toArray())).then((parts) =>
-      parts.flat(),
-    );
+    prefixes.length > WHOLE_SESSION_FROM
+      ? table.where('sessionId').equals(sessionId).toArray()
+      : Promise.all(prefixes.map((p) => table.where('endKey').between(p, `${p}\uffff`).toArray())).then(
+          (parts) => parts.flat(),
+        );
   // Only unsynced and refused changes matter here; delivered ones are in the server's copies.
   const unsynced = (status: OutboxStatus) =>
     db.outbox

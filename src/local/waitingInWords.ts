@@ -4,6 +4,7 @@ import type { LocalDb, OutboxRow } from './db';
 function describe(row: OutboxRow, nameOf: (sessionId: number, entryId: number) => string): string {
   const name = nameOf(row.args.sessionId, row.args.entryId);
   if (row.kind === 'card.sign') return `Your signature on ${name}'s card`;
+  if ('arrowIndex' in row.args) return `Your shoot-off arrow ${row.args.arrowIndex + 1} of ${name}`;
   const end = 'endIndex' in row.args ? `end ${row.args.endIndex + 1} of ${name}` : name;
   if (row.kind === 'end.settle') return `Your call on ${end}`;
   if (row.kind === 'end.rule') return `Your ruling on ${end}`;

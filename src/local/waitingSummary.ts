@@ -1,7 +1,7 @@
 import type { OutboxRow } from './db';
 
 /** What waits to sync, counted as a person thinks of it, with the exact number of changes. */
-export type WaitingSummary = { changes: number; ends: number; signatures: number };
+export type WaitingSummary = { changes: number; ends: number; signatures: number; shootOffArrows: number };
 
 /**
  * Counts waiting changes as ends and signatures: every tap of a writer is a change, but the
@@ -10,11 +10,14 @@ export type WaitingSummary = { changes: number; ends: number; signatures: number
 export function summarizeWaiting(rows: readonly Pick<OutboxRow, 'kind' | 'endKey'>[]): WaitingSummary {
   const ends = new Set<string>();
   let signatures = 0;
+  // A re-recorded shoot-off arrow replaces the earlier one: count arrows, not changes.
+  const shootOffArrows = new Set<string>();
   for (const row of rows) {
     if (row.kind === 'end.sign' || row.kind === 'card.sign') signatures += 1;
+    else if (row.kind === 'shootoff.record') shootOffArrows.add(row.endKey);
     else ends.add(row.endKey);
   }
-  return { changes: rows.length, ends: ends.size, signatures };
+  return { changes: rows.length, ends: ends.size, signatures, shootOffArrows: shootOffArrows.size };
 }
 
 const count = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
@@ -24,8 +27,9 @@ export function waitingWords(summary: WaitingSummary): string {
   const parts = [
     summary.ends > 0 ? count(summary.ends, 'end', 'ends') : '',
     summary.signatures > 0 ? count(summary.signatures, 'signature', 'signatures') : '',
+    summary.shootOffArrows > 0 ? count(summary.shootOffArrows, 'shoot-off arrow', 'shoot-off arrows') : '',
   ].filter(Boolean);
-  return parts.join(' and ');
+  return parts.length > 1 ? `${parts.slice(0, -1).join(', ')} and ${parts.at(-1)}` : (parts[0] ?? '');
 }
 
 /** The exact count, for the details: "24 changes". */

@@ -3,7 +3,7 @@ import { endView, type ArrowValue } from '../../src/core';
 import type { EndRecordRow, RulingRow, SettlementRow } from '../../src/local/db';
 import { localEnd } from '../../src/local/endFacts';
 import { openFlags } from '../../src/ui/scorecard/endFlags';
-import { feedKey, flushLoneOne } from '../../src/features/pad/keyEntry';
+import { feedKey, flushLoneOne } from '../../src/ui/scorecard/keyEntry';
 import { pullAdvice } from '../../src/features/pad/pullAdvice';
 import { countedValues } from '../../src/features/pad/WriterPad';
 import { startingValues } from '../../src/features/desk/deskItems';
@@ -219,7 +219,7 @@ describe('what waits to sync, in words', () => {
       Array.from({ length: 6 }, () => ({ kind: 'end.write' as const, endKey: `1:${archer}:0` })),
     );
     const summary = summarizeWaiting(taps);
-    expect(summary).toEqual({ changes: 24, ends: 4, signatures: 0 });
+    expect(summary).toEqual({ changes: 24, ends: 4, signatures: 0, shootOffArrows: 0 });
     expect(waitingWords(summary)).toBe('4 ends');
     expect(changesWords(summary)).toBe('24 changes');
   });
@@ -231,5 +231,16 @@ describe('what waits to sync, in words', () => {
       { kind: 'card.sign', endKey: '1:7:card' },
     ]);
     expect(waitingWords(summary)).toBe('1 end and 2 signatures');
+  });
+
+  it('counts a re-recorded shoot-off arrow once, apart from ends and signatures', () => {
+    const summary = summarizeWaiting([
+      { kind: 'end.sign', endKey: '1:7:0' },
+      { kind: 'shootoff.record', endKey: '1:7:shootoff:0' },
+      { kind: 'shootoff.record', endKey: '1:7:shootoff:0' },
+      { kind: 'shootoff.record', endKey: '1:8:shootoff:0' },
+    ]);
+    expect(summary.shootOffArrows).toBe(2);
+    expect(waitingWords(summary)).toBe('1 signature and 2 shoot-off arrows');
   });
 });

@@ -1,25 +1,13 @@
-import { expect, test, type Browser, type Page } from '@playwright/test';
-import { devices } from '@playwright/test';
-import { DEMO_JUDGES, DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
+import { expect, test } from '@playwright/test';
+import { DEMO_JUDGES, demoArchers } from '../../server/demo/demoPeople';
 import { apiPhone, token } from './support/apiPhone';
 import { demoTarget } from './support/demoDb';
 import { operatorMailTo } from './support/operatorMail';
 import { checkA11y } from './support/a11y';
+import { signedInPhone } from './support/signIn';
 
 /** A demo target nobody scores in the seeded demo field: four barebow archers, 122 cm face, 12 ends of 6. */
 const TARGET = 11;
-const phone = devices['Pixel 7'];
-
-async function signIn(browser: Browser, email: string): Promise<Page> {
-  const page = await (await browser.newContext({ ...phone })).newPage();
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByTestId('signed-in-name')).toBeVisible();
-  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
-  return page;
-}
 
 const END = ['10', '9', '9', '8', '7', '6'];
 const TINY_PNG = Buffer.from(
@@ -59,7 +47,7 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   }
 
   // The caller sends the arrow to a judge.
-  const caller = await signIn(browser, callerEmail);
+  const caller = await signedInPhone(browser, callerEmail);
   await caller.goto(`/join?code=${code}`);
   await caller.getByRole('radio', { name: /Caller/ }).check();
   await caller.getByRole('button', { name: 'Join target' }).click();
@@ -70,9 +58,14 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   await expect(caller.getByTestId('state-A')).toContainText('With a judge', { timeout: 20_000 });
 
   // The judge loads the desk, goes offline and signs every ready end of the target.
-  const judge = await signIn(browser, DEMO_JUDGES[0]!.email);
+  const judge = await signedInPhone(browser, DEMO_JUDGES[0]!.email);
   await judge.goto(`/desk/${eventId}/${sessionId}`);
   await judge.getByRole('button', { name: /Load the targets/ }).click();
+  // The overview: one row per target, this target's disputed end counted.
+  const row = judge.getByTestId(`desk-target-${TARGET}`);
+  await expect(row).toContainText('disputed arrow: 1', { timeout: 30_000 });
+  await checkA11y(judge, 'judge desk overview');
+  await judge.screenshot({ path: '.tmp/screens/desk-overview.png', fullPage: true });
   await judge.getByRole('combobox', { name: 'Target' }).selectOption(String(TARGET));
   await expect(judge.getByTestId(`desk-dispute-${TARGET}A-1`)).toBeVisible({ timeout: 30_000 });
   await judge.context().setOffline(true);
@@ -104,7 +97,7 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
 
   // The archer countersigns; the writer who kept the first card signs as scorer.
   const archerA = archers.find((a) => a.position === 'A')!;
-  const archer = await signIn(browser, archerA.email);
+  const archer = await signedInPhone(browser, archerA.email);
   await archer.goto('/cards');
   await archer
     .getByRole('link', { name: /Larchmere/ })
@@ -113,7 +106,7 @@ test('a disputed arrow goes to a judge, who rules with a photo and signs; the ca
   await expect(archer.getByTestId('card-totals')).toContainText('Total 588');
   await archer.getByRole('button', { name: 'Sign as archer' }).click();
   await expect(archer.getByTestId('card-state')).toContainText('Countersigned', { timeout: 30_000 });
-  const scorer = await signIn(browser, w1Email);
+  const scorer = await signedInPhone(browser, w1Email);
   await scorer.goto(`/card/${sessionId}/${archerA.entry_id}`);
   await scorer.getByRole('button', { name: 'Sign as scorer' }).click();
   await expect(scorer.getByTestId('card-state')).toContainText('Final', { timeout: 30_000 });

@@ -1,21 +1,8 @@
-import { expect, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
-import { devices } from '@playwright/test';
+import { expect, test, type APIRequestContext } from '@playwright/test';
 import { DEMO_JUDGES, DEMO_ORGANIZER, DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
 import { checkA11y } from './support/a11y';
+import { signedInPhone } from './support/signIn';
 import { readDemoDb, readDemoRows } from './support/demoDb';
-
-const phone = devices['Pixel 7'];
-
-async function signIn(browser: Browser, email: string): Promise<Page> {
-  const page = await (await browser.newContext({ ...phone })).newPage();
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByTestId('signed-in-name')).toBeVisible();
-  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
-  return page;
-}
 
 /** A session of its own in the demo event (same divisions and rounds), laid out and with join codes. */
 async function newSession(request: APIRequestContext): Promise<{ eventId: number; sessionId: number }> {
@@ -60,7 +47,7 @@ test('a session closed while a phone is offline: its values wait for a judge, wh
   ).name;
 
   // A writer joins target 1 and enters archer A's first end with no signal.
-  const writer = await signIn(browser, demoArchers()[20]!.email);
+  const writer = await signedInPhone(browser, demoArchers()[20]!.email);
   await writer.goto(`/join?code=${code}`);
   await checkA11y(writer, 'join');
   await writer.getByRole('radio', { name: /Writer 1/ }).check();
@@ -75,7 +62,7 @@ test('a session closed while a phone is offline: its values wait for a judge, wh
   await expect(writer.getByTestId('end-total')).toHaveText('49');
 
   // The organizer closes the session; before that, the server says target 1 has nothing whole yet.
-  const organizer = await signIn(browser, DEMO_ORGANIZER.email);
+  const organizer = await signedInPhone(browser, DEMO_ORGANIZER.email);
   await organizer.goto(`/events/${eventId}?part=sessions`);
   const card = organizer.getByRole('listitem').filter({ hasText: sessionName });
   await card.getByRole('button', { name: 'Close session' }).click();
@@ -97,7 +84,7 @@ test('a session closed while a phone is offline: its values wait for a judge, wh
   await writer.screenshot({ path: '.tmp/screens/pad-held.png', fullPage: true });
 
   // A judge accepts them on the desk.
-  const judge = await signIn(browser, DEMO_JUDGES[1]!.email);
+  const judge = await signedInPhone(browser, DEMO_JUDGES[1]!.email);
   await judge.goto(`/desk/${eventId}/${sessionId}`);
   const late = judge.getByTestId('late-1-1');
   await expect(late).toContainText('Writer 1');

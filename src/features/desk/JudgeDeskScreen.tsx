@@ -1,175 +1,146 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useLiveQuery } from 'dexie-react-hooks';
-import { endsOfRound } from '../../core';
-import { endKeyOf, localDb } from '../../local/db';
+import { endKeyOf, localDb, type JoinedTarget } from '../../local/db';
 import { loadSessionEnds } from '../../local/sessionEnds';
-import { recordChange } from '../../local/outbox';
-import { syncLoop } from '../../local/syncLoop';
 import { useLocalSave } from '../../local/useLocalSave';
 import { useOnline } from '../../local/online';
 import { RequireSignIn } from '../../account/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { SelectField } from '../../ui/SelectField';
-import { RulingHistory } from '../../ui/scorecard/RulingHistory';
-import { EndArrows } from '../../ui/scorecard/EndArrows';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
 import { Rejections } from '../../ui/scorecard/Rejections';
 import { useEventSummary } from '../../api/eventSummary';
-import { DESK_KIND_LABELS, deskItems, type DeskItem } from './deskItems';
-import { RuleForm } from './RuleForm';
+import { DESK_KIND_LABELS, deskItems, targetSummaries, type DeskItem, type DeskItemKind } from './deskItems';
+import { DeskItemCard } from './DeskItemCard';
+import { signEnds } from './signEnds';
 import { ImportWaiting } from './ImportWaiting';
 import { LateValues } from './LateValues';
 import { TargetGroup } from './TargetGroup';
 import { PaperCountersigns } from './PaperCountersigns';
 import { usePrepareDesk } from './api/prepareDesk';
 
-async function sign(userId: number, items: DeskItem[]) {
-  for (const item of items) {
-    const archer = item.target.archers[item.archerIndex]!;
-    await recordChange(localDb(), userId, {
-      kind: 'end.sign',
-      args: {
-        sessionId: item.target.session.id,
-        entryId: archer.entryId,
-        endIndex: item.endIndex,
-        arrows: item.view.arrows ?? [],
-      },
-    });
-  }
-  syncLoop().kick();
+const keyOf = (t: JoinedTarget, entryId: number, endIndex: number) =>
+  endKeyOf(t.session.id, entryId, endIndex);
+
+/** What needs a judge on these targets, read from the phone (the server's copies and waiting changes). */
+async function readDesk(sessionId: number, userId: number, targets: JoinedTarget[]) {
+  const { ends, rejected } = await loadSessionEnds(localDb(), sessionId, userId, targets);
+  return { items: deskItems(targets, ends, keyOf), rejected };
 }
 
-function DeskItemCard({ item, eventId, userId }: { item: DeskItem; eventId: number; userId: number }) {
-  const [ruling, setRuling] = useState(false);
+function SignAll({ userId, ready, suffix }: { userId: number; ready: DeskItem[]; suffix: string }) {
   const { save, problem } = useLocalSave();
-  const archer = item.target.archers[item.archerIndex]!;
-  const label = DESK_KIND_LABELS[item.kind];
-  const perEnd = endsOfRound(archer.round)[item.endIndex]?.arrows ?? 0;
   return (
-    <li
-      className="surface space-y-2 rounded-xl border-2 border-line bg-card p-3"
-      data-testid={`desk-${item.kind}-${item.target.targetNumber}${archer.position}-${item.endIndex + 1}`}
-    >
-      <h2 className="flex flex-wrap items-baseline justify-between gap-2">
-        <span className="text-xl font-bold">
-          Target {item.target.targetNumber}
-          {archer.position} · {archer.name}
-        </span>
-        <span className="font-bold">
-          End {item.endIndex + 1} · <span aria-hidden="true">{label.mark}</span> {label.word}
-        </span>
-      </h2>
-      <p>{item.detail}</p>
-      <RulingHistory steps={item.local.rulings} />
-      {item.kind !== 'to-sign' && (
-        <div className="space-y-1">
-          {([1, 2] as const).map((slot) => {
-            const card = item.local.slots[slot];
-            return card ? (
-              <div key={slot}>
-                <p className="font-bold">Writer {slot}</p>
-                <EndArrows label={`Writer ${slot}`} arrows={card.arrows} flags={card.flags} slots={perEnd} />
-              </div>
-            ) : null;
-          })}
-        </div>
-      )}
-      {ruling ? (
-        <RuleForm item={item} eventId={eventId} userId={userId} onDone={() => setRuling(false)} />
-      ) : (
-        <div className="flex flex-wrap gap-2">
-          <Button variant="secondary" onClick={() => setRuling(true)}>
-            Rule on this end
-          </Button>
-          {item.kind === 'to-sign' && (
-            <Button onClick={() => save(() => sign(userId, [item]))}>✍ Sign end</Button>
-          )}
-        </div>
-      )}
-      {problem && <Notice tone="error">{problem}</Notice>}
-    </li>
-  );
-}
-
-function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: number; userId: number }) {
-  const [targetFilter, setTargetFilter] = useState<number | 'all'>('all');
-  const { save, problem } = useLocalSave();
-  const prepare = usePrepareDesk(eventId, sessionId, userId);
-  const online = useOnline();
-  const data = useLiveQuery(async () => {
-    const targets = (await localDb().targets.where('userId').equals(userId).toArray())
-      .filter((t) => t.session.id === sessionId)
-      .sort((a, b) => a.targetNumber - b.targetNumber);
-    const { ends, rejected } = await loadSessionEnds(localDb(), sessionId, userId, targets);
-    return {
-      targets,
-      items: deskItems(targets, ends, (t, entryId, endIndex) => endKeyOf(t.session.id, entryId, endIndex)),
-      rejected,
-    };
-  }, [sessionId, userId]);
-
-  if (!data) return <p>Opening the judge desk…</p>;
-  const items = data.items.filter((i) => targetFilter === 'all' || i.target.targetNumber === targetFilter);
-  const ready = items.filter((i) => i.kind === 'to-sign');
-  const first = data.targets[0];
-  return (
-    <div className="space-y-4">
-      {data.targets.length === 0 ? (
-        <Notice tone="info">
-          Load this session's targets onto the phone first; the desk then works without signal.
-        </Notice>
-      ) : (
-        <p className="text-base">
-          {data.targets.length} targets on this phone.{' '}
-          {first && `${first.event.name} · ${first.session.name}.`}
-        </p>
-      )}
-      <Button
-        variant={data.targets.length ? 'secondary' : 'primary'}
-        disabled={!online || prepare.isPending}
-        onClick={() => prepare.mutate()}
-      >
-        {prepare.isPending
-          ? 'Loading targets…'
-          : data.targets.length
-            ? 'Reload the targets'
-            : 'Load the targets for offline work'}
-      </Button>
-      {prepare.error && <Notice tone="error">{prepare.error.message}</Notice>}
-      {first && <Rejections rows={data.rejected} target={first} />}
-
-      <SelectField
-        label="Target"
-        value={targetFilter}
-        onChange={(e) => setTargetFilter(e.target.value === 'all' ? 'all' : Number(e.target.value))}
-      >
-        <option value="all">All targets</option>
-        {data.targets.map((t) => (
-          <option key={t.key} value={t.targetNumber}>
-            Target {t.targetNumber}
-          </option>
-        ))}
-      </SelectField>
-
-      {targetFilter !== 'all' && (
-        <TargetGroup eventId={eventId} sessionId={sessionId} targetNumber={targetFilter} />
-      )}
+    <>
       {ready.length > 1 && (
-        <Button className="w-full" onClick={() => save(() => sign(userId, ready))}>
-          ✍ Sign all {ready.length} ready ends{targetFilter === 'all' ? '' : ` of target ${targetFilter}`}
+        <Button className="w-full" onClick={() => save(() => signEnds(userId, ready))}>
+          ✍ Sign all {ready.length} ready ends{suffix}
         </Button>
       )}
       {problem && <Notice tone="error">{problem}</Notice>}
-      {items.length === 0 ? (
+    </>
+  );
+}
+
+const countWords = (counts: Record<DeskItemKind, number>) =>
+  (Object.keys(DESK_KIND_LABELS) as DeskItemKind[])
+    .filter((kind) => counts[kind] > 0)
+    .map(
+      (kind) =>
+        `${DESK_KIND_LABELS[kind].mark} ${DESK_KIND_LABELS[kind].word.toLowerCase()}: ${counts[kind]}`,
+    )
+    .join(' · ');
+/**
+ * Every target of the session as one summary row, those needing a decision first: a desk of 50
+ * targets shows 50 rows, not thousands of ends (the ends of one target open on a tap).
+ */
+function AllTargets({
+  sessionId,
+  userId,
+  targets,
+  onPick,
+}: {
+  sessionId: number;
+  userId: number;
+  targets: JoinedTarget[];
+  onPick: (targetNumber: number) => void;
+}) {
+  const data = useLiveQuery(async () => {
+    const { items, rejected } = await readDesk(sessionId, userId, targets);
+    return {
+      summaries: targetSummaries(targets, items),
+      ready: items.filter((i) => i.kind === 'to-sign'),
+      rejected,
+    };
+  }, [sessionId, userId, targets]);
+  if (!data) return <p>Reading the ends on this phone…</p>;
+  const waiting = data.summaries.filter((s) => s.first);
+  const quiet = data.summaries.filter((s) => !s.first);
+  return (
+    <>
+      {targets[0] && <Rejections rows={data.rejected} target={targets[0]} />}
+      <SignAll userId={userId} ready={data.ready} suffix="" />
+      {waiting.length === 0 ? (
+        <p>Nothing waits for a judge. Disputes, incidents and ends to sign appear here as phones sync.</p>
+      ) : (
+        <ul className="space-y-2" data-testid="desk-targets">
+          {waiting.map((s) => (
+            <li key={s.target.key}>
+              <button
+                type="button"
+                onClick={() => onPick(s.target.targetNumber)}
+                className="surface flex min-h-16 w-full flex-wrap items-center justify-between gap-2 rounded-xl border-2 border-ink bg-card p-3 text-left text-lg"
+                data-testid={`desk-target-${s.target.targetNumber}`}
+              >
+                <span className="text-xl font-bold">Target {s.target.targetNumber}</span>
+                <span>{countWords(s.counts)} ▸</span>
+              </button>
+            </li>
+          ))}
+        </ul>
+      )}
+      {quiet.length > 0 && waiting.length > 0 && (
         <p>
-          Nothing waits for a judge{targetFilter === 'all' ? '' : ' on this target'}. Disputes, incidents and
-          ends to sign appear here as phones sync.
+          Nothing waits on target{quiet.length > 1 ? 's' : ''}{' '}
+          {quiet.map((s) => s.target.targetNumber).join(', ')}.
+        </p>
+      )}
+    </>
+  );
+}
+
+/** One target's ends waiting for a judge, in full; only this target's ends are read on each change. */
+function OneTarget({
+  eventId,
+  sessionId,
+  userId,
+  target,
+}: {
+  eventId: number;
+  sessionId: number;
+  userId: number;
+  target: JoinedTarget;
+}) {
+  const data = useLiveQuery(() => readDesk(sessionId, userId, [target]), [sessionId, userId, target]);
+  if (!data) return <p>Reading the ends on this phone…</p>;
+  return (
+    <>
+      <Rejections rows={data.rejected} target={target} />
+      <SignAll
+        userId={userId}
+        ready={data.items.filter((i) => i.kind === 'to-sign')}
+        suffix={` of target ${target.targetNumber}`}
+      />
+      {data.items.length === 0 ? (
+        <p>
+          Nothing waits for a judge on this target. Disputes, incidents and ends to sign appear here as phones
+          sync.
         </p>
       ) : (
         <ul className="space-y-3">
-          {items.map((item) => (
+          {data.items.map((item) => (
             <DeskItemCard
               key={`${item.target.key}-${item.archerIndex}-${item.endIndex}`}
               item={item}
@@ -179,11 +150,89 @@ function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: numb
           ))}
         </ul>
       )}
+    </>
+  );
+}
+
+function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: number; userId: number }) {
+  const [targetFilter, setTargetFilter] = useState<number | 'all'>('all');
+  const prepare = usePrepareDesk(eventId, sessionId, userId);
+  const online = useOnline();
+  const targets = useLiveQuery(
+    async () =>
+      (await localDb().targets.where('userId').equals(userId).toArray())
+        .filter((t) => t.session.id === sessionId)
+        .sort((a, b) => a.targetNumber - b.targetNumber),
+    [sessionId, userId],
+  );
+
+  if (!targets) return <p>Opening the judge desk…</p>;
+  const first = targets[0];
+  const picked = targetFilter === 'all' ? undefined : targets.find((t) => t.targetNumber === targetFilter);
+  return (
+    <div className="space-y-4">
+      {targets.length === 0 ? (
+        <Notice tone="info">
+          Load this session's targets onto the phone first; the desk then works without signal.
+        </Notice>
+      ) : (
+        <p className="text-base">
+          {targets.length} targets on this phone. {first && `${first.event.name} · ${first.session.name}.`}
+        </p>
+      )}
+      <Button
+        variant={targets.length ? 'secondary' : 'primary'}
+        disabled={!online || prepare.isPending}
+        onClick={() => prepare.mutate()}
+      >
+        {prepare.isPending
+          ? 'Loading targets…'
+          : targets.length
+            ? 'Reload the targets'
+            : 'Load the targets for offline work'}
+      </Button>
+      {prepare.error && <Notice tone="error">{prepare.error.message}</Notice>}
+
+      <SelectField
+        label="Target"
+        value={targetFilter}
+        onChange={(e) => setTargetFilter(e.target.value === 'all' ? 'all' : Number(e.target.value))}
+      >
+        <option value="all">All targets</option>
+        {targets.map((t) => (
+          <option key={t.key} value={t.targetNumber}>
+            Target {t.targetNumber}
+          </option>
+        ))}
+      </SelectField>
+
+      {targetFilter !== 'all' && (
+        <TargetGroup eventId={eventId} sessionId={sessionId} targetNumber={targetFilter} />
+      )}
+      {picked ? (
+        <OneTarget eventId={eventId} sessionId={sessionId} userId={userId} target={picked} />
+      ) : (
+        targets.length > 0 && (
+          <AllTargets sessionId={sessionId} userId={userId} targets={targets} onPick={setTargetFilter} />
+        )
+      )}
+      <ShootOffsLink eventId={eventId} />
       <LateValues eventId={eventId} sessionId={sessionId} />
       <PaperCountersigns eventId={eventId} sessionId={sessionId} />
       <ImportWaiting eventId={eventId} />
       <SyncLine />
     </div>
+  );
+}
+
+function ShootOffsLink({ eventId }: { eventId: number }) {
+  return (
+    <Link
+      to={`/desk/${eventId}/shoot-offs`}
+      className="surface flex min-h-16 items-center rounded-xl border-2 border-ink bg-card p-3 text-xl font-bold"
+    >
+      Shoot-offs ▸
+    </Link>
   );
 }
 
@@ -193,6 +242,9 @@ function SessionPicker({ eventId }: { eventId: number }) {
   if (summary.error) return <Notice tone="error">{summary.error.message}</Notice>;
   return (
     <ul className="space-y-2">
+      <li>
+        <ShootOffsLink eventId={eventId} />
+      </li>
       {summary.data.sessions.map((s) => (
         <li key={s.id}>
           <Link

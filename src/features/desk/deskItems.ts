@@ -13,7 +13,12 @@ export type DeskItem = {
   local: LocalEnd;
   view: EndView;
   detail: string;
+  /** Changes whenever anything shown for this end changes: a card redraws only then. */
+  revision: string;
 };
+
+/** Most urgent first: a judge's decision before a signature. */
+const KIND_ORDER: DeskItemKind[] = ['dispute', 'incident', 'mismatch', 'to-sign'];
 
 export const DESK_KIND_LABELS: Record<DeskItemKind, { mark: string; word: string }> = {
   dispute: { mark: '?', word: 'Disputed arrow' },
@@ -45,6 +50,11 @@ function describe(local: LocalEnd, view: EndView): { kind: DeskItemKind; detail:
   return undefined;
 }
 
+function revisionOf(kind: DeskItemKind, target: JoinedTarget, local: LocalEnd): string {
+  const pending = [local.slots[1]?.pending, local.slots[2]?.pending, local.settlementPending];
+  return JSON.stringify([kind, target.joinedAt, local.facts, pending, local.rulings.length, local.signature]);
+}
+
 /** What needs a judge on these targets, most urgent kind first, then target, end and position. */
 export function deskItems(
   targets: JoinedTarget[],
@@ -59,14 +69,22 @@ export function deskItems(
         if (!local) continue;
         const view = endView(local.facts);
         const found = describe(local, view);
-        if (found) items.push({ ...found, target, archerIndex, endIndex, local, view });
+        if (found)
+          items.push({
+            ...found,
+            target,
+            archerIndex,
+            endIndex,
+            local,
+            view,
+            revision: revisionOf(found.kind, target, local),
+          });
       }
     });
   }
-  const order: DeskItemKind[] = ['dispute', 'incident', 'mismatch', 'to-sign'];
   return items.sort(
     (a, b) =>
-      order.indexOf(a.kind) - order.indexOf(b.kind) ||
+      KIND_ORDER.indexOf(a.kind) - KIND_ORDER.indexOf(b.kind) ||
       a.endIndex - b.endIndex ||
       a.target.targetNumber - b.target.targetNumber ||
       a.archerIndex - b.archerIndex,
@@ -91,4 +109,35 @@ export function startingValues(item: Pick<DeskItem, 'local' | 'view'>, count: nu
     const both = view.check.arrows[i];
     return both?.same ? (both.first ?? '') : '';
   });
+}
+
+export type TargetSummary = {
+  target: JoinedTarget;
+  counts: Record<DeskItemKind, number>;
+  /** The most urgent kind waiting on this target; undefined when nothing waits. */
+  first: DeskItemKind | undefined;
+};
+
+/**
+ * One row per target for the desk's overview, targets whose ends need a judge's decision first
+ * (disputes, then incidents, then differing cards), then those with ends to sign, then the rest.
+ */
+export function targetSummaries(targets: JoinedTarget[], items: DeskItem[]): TargetSummary[] {
+  const byTarget = new Map(
+    targets.map((target) => [
+      target.key,
+      {
+        target,
+        counts: { dispute: 0, incident: 0, mismatch: 0, 'to-sign': 0 } as Record<DeskItemKind, number>,
+      },
+    ]),
+  );
+  for (const item of items) {
+    const summary = byTarget.get(item.target.key);
+    if (summary) summary.counts[item.kind] += 1;
+  }
+  const rank = (first: DeskItemKind | undefined) => (first ? KIND_ORDER.indexOf(first) : KIND_ORDER.length);
+  return [...byTarget.values()]
+    .map((s) => ({ ...s, first: KIND_ORDER.find((kind) => s.counts[kind] > 0) }))
+    .sort((a, b) => rank(a.first) - rank(b.first) || a.target.targetNumber - b.target.targetNumber);
 }

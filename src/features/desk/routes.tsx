@@ -7,6 +7,11 @@ export const deskRoutes: RouteObject[] = [
     element: lazyScreen(async () => (await import('./JudgeDeskScreen')).JudgeDeskScreen),
   },
   {
+    // A fixed segment: ranked before the session's number below.
+    path: 'desk/:eventId/shoot-offs',
+    element: lazyScreen(async () => (await import('./ShootOffsScreen')).ShootOffsScreen),
+  },
+  {
     path: 'desk/:eventId/:sessionId',
     element: lazyScreen(async () => (await import('./JudgeDeskScreen')).JudgeDeskScreen),
   },

@@ -16,7 +16,7 @@ import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
 import { Notice } from '../../ui/Notice';
 import { RulingHistory } from '../../ui/scorecard/RulingHistory';
-import { ArrowKeypad } from './ArrowKeypad';
+import { ArrowKeypad } from '../../ui/scorecard/ArrowKeypad';
 import { EndArrows } from '../../ui/scorecard/EndArrows';
 import { addArrow, flagArrow, removeArrow, type EditableEnd } from './endEdits';
 import { FLAG_LABELS, openFlags } from '../../ui/scorecard/endFlags';

@@ -1,6 +1,6 @@
 import { useEffect, useRef } from 'react';
 import type { ArrowValue } from '../../core';
-import { arrowLook } from '../../ui/scorecard/arrowLook';
+import { arrowLook } from './arrowLook';
 import { LONE_ONE_WAIT_MS, feedKey, flushLoneOne } from './keyEntry';
 
 type Props = {
