@@ -599,6 +599,24 @@ export const ROUTES: RouteRule[] = [
     ok: 200,
     refused: 403,
   },
+  // The PDF: organizers only until the results are published.
+  {
+    method: 'get',
+    route: '/api/results/:eventId/pdf',
+    path: (f) => `/api/results/${f.eventId}/pdf`,
+    allowed: ORGANIZER,
+    ok: 200,
+    refused: 403,
+  },
+  // Sending results links the public page, so past the role check unpublished results answer 409.
+  {
+    method: 'post',
+    route: '/api/events/:eventId/results/send',
+    path: (f) => `${ev(f)}/results/send`,
+    body: () => ({}),
+    allowed: ORGANIZER,
+    ok: 409,
+  },
   {
     method: 'patch',
     route: '/api/events/:eventId/results-settings',
