@@ -253,6 +253,38 @@ describe('matches: ends, shoot-offs, signatures and the bracket moving on', () =
     expect([decided.winner, decided.decidedBy]).toEqual(['a', 'no-show']);
   });
 
+  it('refuses a match of this event reached through another event the caller runs', async () => {
+    // A rival organizes (and judges) an event of their own and tries this event's match ids there.
+    const rival = await makePerson(server.db, 'Rival Organizer');
+    const own = await request(server.app)
+      .post('/api/events')
+      .set(rival.auth)
+      .send({ name: 'Rival Shoot', startsOn: '2027-01-01', endsOn: '2027-01-01', timeZone: 'UTC' });
+    expect(own.status).toBe(201);
+    await giveRole(server.db, own.body.id, rival, 'judge');
+    const m = await matchAt('Recurve Men', 0, 3);
+    const path = (tail: string) => `/api/events/${own.body.id}/matches/${m.id}/${tail}`;
+    const tries = [
+      request(server.app).post(path('walkover')).set(rival.auth).send({ side: 'a', reason: 'no-show' }),
+      request(server.app)
+        .put(path('ends/0'))
+        .set(rival.auth)
+        .send({ a: v('10 10 10'), b: v('1 1 1') }),
+      request(server.app).post(path('sign')).set(rival.auth).send({}),
+      request(server.app).patch(path('target')).set(rival.auth).send({ targetNumber: 9 }),
+    ];
+    for (const res of await Promise.all(tries)) {
+      expect(res.status).toBe(404);
+      expect(res.body.error.message).toBe('That match does not exist in this event.');
+    }
+    const after = await matchAt('Recurve Men', 0, 3);
+    expect([after.winner, after.targetNumber, after.ends.length]).toEqual([
+      m.winner,
+      m.targetNumber,
+      m.ends.length,
+    ]);
+  });
+
   it('places matches on targets (organizers only, one open match a target)', async () => {
     const m = await matchAt('Recurve Men', 0, 3);
     const semi = await matchAt('Recurve Men', 1, 0);

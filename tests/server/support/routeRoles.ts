@@ -617,6 +617,65 @@ export const ROUTES: RouteRule[] = [
     allowed: ORGANIZER,
     ok: 409,
   },
+  // Eliminations (docs/matches.md): brackets are read like the results. The fixture has no
+  // match, so past the role check a match route answers 404: the role is checked first.
+  // Matches of another event: tests/server/matches.*.test.ts.
+  {
+    method: 'get',
+    route: '/api/events/:eventId/brackets',
+    path: (f) => `${ev(f)}/brackets`,
+    allowed: EVENT_ROLES,
+    ok: 200,
+    refused: 403,
+  },
+  {
+    method: 'post',
+    route: '/api/events/:eventId/brackets',
+    path: (f) => `${ev(f)}/brackets`,
+    body: (f) => ({ sessionId: f.sessionId, divisionId: f.divisionId, size: 'everyone' }),
+    allowed: ORGANIZER,
+    // Past the role check: the fixture's archers have ends to shoot, so there is nothing to seed.
+    ok: 409,
+  },
+  {
+    method: 'patch',
+    route: '/api/events/:eventId/matches/:matchId/target',
+    path: (f) => `${ev(f)}/matches/999999/target`,
+    body: () => ({ targetNumber: 3 }),
+    allowed: ORGANIZER,
+    ok: 404,
+  },
+  {
+    method: 'post',
+    route: '/api/events/:eventId/matches/:matchId/walkover',
+    path: (f) => `${ev(f)}/matches/999999/walkover`,
+    body: () => ({ side: 'a', reason: 'no-show' }),
+    allowed: ORGANIZER,
+    ok: 404,
+  },
+  {
+    method: 'put',
+    route: '/api/events/:eventId/matches/:matchId/ends/:endIndex',
+    path: (f) => `${ev(f)}/matches/999999/ends/0`,
+    body: () => ({ a: ['10', '9', '8'], b: ['9', '9', '9'] }),
+    allowed: JUDGE,
+    ok: 404,
+  },
+  {
+    method: 'put',
+    route: '/api/events/:eventId/matches/:matchId/shoot-off',
+    path: (f) => `${ev(f)}/matches/999999/shoot-off`,
+    body: () => ({ a: { value: '10' }, b: { value: '9' } }),
+    allowed: JUDGE,
+    ok: 404,
+  },
+  {
+    method: 'post',
+    route: '/api/events/:eventId/matches/:matchId/sign',
+    path: (f) => `${ev(f)}/matches/999999/sign`,
+    allowed: JUDGE,
+    ok: 404,
+  },
   {
     method: 'patch',
     route: '/api/events/:eventId/results-settings',
