@@ -1,25 +1,11 @@
-import { expect, test, type Browser, type Page } from '@playwright/test';
-import { devices } from '@playwright/test';
-import { demoArchers, DEMO_PASSWORD } from '../../server/demo/demoPeople';
+import { expect, test, type Page } from '@playwright/test';
+import { demoArchers } from '../../server/demo/demoPeople';
 import { readDemoDb } from './support/demoDb';
+import { signIn } from './support/fieldPhones';
 import { checkA11y } from './support/a11y';
 
-const phone = devices['Pixel 7'];
 /** A demo target nobody scores in the seeded demo field (that uses targets 1–3). */
 const TARGET = 9;
-
-async function signedInPhone(browser: Browser, email: string): Promise<Page> {
-  const context = await browser.newContext({ ...phone });
-  const page = await context.newPage();
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByTestId('signed-in-name')).toBeVisible();
-  // The shell must be cached before the phone can reload offline.
-  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
-  return page;
-}
 
 async function join(page: Page, code: string, task: RegExp, target = TARGET) {
   await page.goto(`/join?code=${code}`);
@@ -51,9 +37,9 @@ test('two writers score an end offline, the cross-check finds the one difference
     TARGET,
   );
   const archers = demoArchers();
-  const writer1 = await signedInPhone(browser, archers[0]!.email);
-  const writer2 = await signedInPhone(browser, archers[1]!.email);
-  const caller = await signedInPhone(browser, archers[2]!.email);
+  const writer1 = await signIn(browser, archers[0]!.email);
+  const writer2 = await signIn(browser, archers[1]!.email);
+  const caller = await signIn(browser, archers[2]!.email);
   await join(writer1, code, /Writer 1/);
   await join(writer2, code, /Writer 2/);
   await join(caller, code, /Caller/);
@@ -140,7 +126,7 @@ test('a value the phone could not save is not shown as entered, and the writer i
     'select code from join_codes where target_number = ? and revoked_at is null',
     target,
   );
-  const writer = await signedInPhone(browser, demoArchers()[3]!.email);
+  const writer = await signIn(browser, demoArchers()[3]!.email);
   await join(writer, code, /Writer 1/, target);
   await enterEnd(writer, 'A', ['X']);
   await expect(writer.getByTestId('end-total')).toHaveText('10');

@@ -1,21 +1,8 @@
-import { expect, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
-import { devices } from '@playwright/test';
+import { expect, test, type APIRequestContext } from '@playwright/test';
 import { DEMO_JUDGES, DEMO_ORGANIZER, DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
 import { checkA11y } from './support/a11y';
 import { readDemoDb, readDemoRows } from './support/demoDb';
-
-const phone = devices['Pixel 7'];
-
-async function signIn(browser: Browser, email: string): Promise<Page> {
-  const page = await (await browser.newContext({ ...phone })).newPage();
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByTestId('signed-in-name')).toBeVisible();
-  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
-  return page;
-}
+import { signIn } from './support/fieldPhones';
 
 /** A session of its own in the demo event (same divisions and rounds), laid out and with join codes. */
 async function newSession(request: APIRequestContext): Promise<{ eventId: number; sessionId: number }> {

@@ -17,6 +17,7 @@ import { useDownloadScorecards } from './api/downloadScorecards';
 import { useDownloadTargetSheets } from './api/downloadTargetSheets';
 import { ConfirmButton } from './components/ConfirmButton';
 import { OrganizerGate } from './components/OrganizerGate';
+import { TasksPanel } from './components/TasksPanel';
 import { LinkAddressNote } from './components/LinkAddressNote';
 import { PlacesPanel } from './components/PlacesPanel';
 import { TargetCard } from './components/TargetCard';
@@ -186,6 +187,11 @@ function Targets({ summary, sessionId }: { summary: EventSummary; sessionId: num
               panelRef={panelRef}
             />
           )}
+          <TasksPanel
+            eventId={eventId}
+            sessionId={sessionId}
+            targetNumbers={list.targets.map((t) => t.targetNumber)}
+          />
           {codeError && <Notice tone="error">{codeError.message}</Notice>}
           <ul className="grid gap-4 md:grid-cols-2" aria-label="Targets">
             {list.targets.map((t) => (
