@@ -30,6 +30,7 @@ import { judgingRoutes } from './routes/judging';
 import { myCardsRoutes } from './routes/myCards';
 import { lateValueRoutes } from './routes/lateValues';
 import { targetTaskRoutes } from './routes/targetTasks';
+import { archerPlaceRoutes } from './routes/archerPlace';
 import { resultsRoutes } from './routes/results';
 
 export type AppDeps = {
@@ -96,6 +97,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(lateValueRoutes(ctx));
   api.use(targetTaskRoutes(ctx));
   api.use(resultsRoutes(ctx));
+  api.use(archerPlaceRoutes(ctx));
   api.use(routeNotFound);
   app.use('/api', api);
   // Public and outside /api: the key that checks printed and mailed signatures.
