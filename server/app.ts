@@ -31,6 +31,7 @@ import { myCardsRoutes } from './routes/myCards';
 import { lateValueRoutes } from './routes/lateValues';
 import { targetTaskRoutes } from './routes/targetTasks';
 import { archerPlaceRoutes } from './routes/archerPlace';
+import { cardBoardRoutes } from './routes/cardBoard';
 import { resultsRoutes } from './routes/results';
 
 export type AppDeps = {
@@ -98,6 +99,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(targetTaskRoutes(ctx));
   api.use(resultsRoutes(ctx));
   api.use(archerPlaceRoutes(ctx));
+  api.use(cardBoardRoutes(ctx));
   api.use(routeNotFound);
   app.use('/api', api);
   // Public and outside /api: the key that checks printed and mailed signatures.
