@@ -7,4 +7,8 @@ export const cardRoutes: RouteObject[] = [
     path: 'card/:sessionId/:entryId',
     element: lazyScreen(async () => (await import('./CardScreen')).CardScreen),
   },
+  {
+    path: 'events/:eventId/sessions/:sessionId/cards',
+    element: lazyScreen(async () => (await import('./CardBoardScreen')).CardBoardScreen),
+  },
 ];

@@ -82,6 +82,14 @@ function Targets({ summary, sessionId }: { summary: EventSummary; sessionId: num
               list.targets.length,
             )}`}
         </p>
+        {hasTargets && (
+          <Link
+            to={`/events/${eventId}/sessions/${sessionId}/cards`}
+            className="inline-flex min-h-12 items-center font-bold underline"
+          >
+            Card board: every card's state, targets behind, final cards mailed ▸
+          </Link>
+        )}
       </header>
 
       {closed && (
