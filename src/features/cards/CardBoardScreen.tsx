@@ -1,10 +1,9 @@
-import { Link, useParams } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import type { CardBoard } from '../../contract/cardBoard';
 import type { SessionCardItem } from '../../contract/judging';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
-import { RequireSignIn } from '../auth/RequireSignIn';
-import { OrganizerGate } from '../events/components/OrganizerGate';
+import { OrganizerSessionScreen } from '../events/components/OrganizerSessionScreen';
 import { useCardBoard, useSendCardAgain } from './api/cardBoard';
 
 const when = (iso: string) =>
@@ -114,16 +113,9 @@ function Board({ eventId, sessionId }: { eventId: number; sessionId: number }) {
 
 /** The organizer's view of every card of a session: what is missing, which targets lag, mail sent. */
 export function CardBoardScreen() {
-  const params = useParams();
-  const eventId = Number(params.eventId);
-  const sessionId = Number(params.sessionId);
   return (
-    <RequireSignIn>
-      {() => (
-        <OrganizerGate eventId={eventId}>
-          {() => <Board eventId={eventId} sessionId={sessionId} />}
-        </OrganizerGate>
-      )}
-    </RequireSignIn>
+    <OrganizerSessionScreen>
+      {(summary, sessionId) => <Board eventId={summary.event.id} sessionId={sessionId} />}
+    </OrganizerSessionScreen>
   );
 }

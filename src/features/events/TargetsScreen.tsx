@@ -1,7 +1,6 @@
 import { useRef, useState } from 'react';
-import { Link, useParams } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import type { EventSummary, Position } from '../../contract/events';
-import { RequireSignIn } from '../auth/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { archersOnTargets } from './components/archersOnTargets';
@@ -16,8 +15,8 @@ import { useRevokeJoinCode } from './api/revokeJoinCode';
 import { useDownloadScorecards } from './api/downloadScorecards';
 import { useDownloadTargetSheets } from './api/downloadTargetSheets';
 import { ConfirmButton } from './components/ConfirmButton';
-import { OrganizerGate } from './components/OrganizerGate';
 import { TasksPanel } from './components/TasksPanel';
+import { OrganizerSessionScreen } from './components/OrganizerSessionScreen';
 import { LinkAddressNote } from './components/LinkAddressNote';
 import { PlacesPanel } from './components/PlacesPanel';
 import { TargetCard } from './components/TargetCard';
@@ -222,16 +221,9 @@ function Targets({ summary, sessionId }: { summary: EventSummary; sessionId: num
 
 /** One session's targets: automatic layout, changes by hand, conflicts in words, join codes, printouts. */
 export function TargetsScreen() {
-  const params = useParams();
-  const eventId = Number(params.eventId);
-  const sessionId = Number(params.sessionId);
   return (
-    <RequireSignIn>
-      {() => (
-        <OrganizerGate eventId={eventId}>
-          {(summary) => <Targets summary={summary} sessionId={sessionId} />}
-        </OrganizerGate>
-      )}
-    </RequireSignIn>
+    <OrganizerSessionScreen>
+      {(summary, sessionId) => <Targets summary={summary} sessionId={sessionId} />}
+    </OrganizerSessionScreen>
   );
 }
