@@ -5,7 +5,7 @@ import { demoTarget } from './support/demoDb';
 import { joinTarget, phoneOf, signIn } from './support/fieldPhones';
 
 /** A demo target no other browser test scores. */
-const TARGET = 10;
+const TARGET = 5;
 const END = ['10', '9', '9', '8', '7', '6'];
 const MISHEARD = ['10', '9', '9', '8', '7', '5'];
 
