@@ -34,6 +34,8 @@ import { meRoutes } from './routes/me';
 import { invitationRoutes } from './routes/invitations';
 import { lateValueRoutes } from './routes/lateValues';
 import { targetTaskRoutes } from './routes/targetTasks';
+import { archerPlaceRoutes } from './routes/archerPlace';
+import { cardBoardRoutes } from './routes/cardBoard';
 import { resultsRoutes } from './routes/results';
 import { matchRoutes } from './routes/matches';
 
@@ -107,6 +109,8 @@ export function createApp(deps: AppDeps): Express {
   api.use(targetTaskRoutes(ctx));
   api.use(resultsRoutes(ctx));
   api.use(matchRoutes(ctx));
+  api.use(archerPlaceRoutes(ctx));
+  api.use(cardBoardRoutes(ctx));
   api.use(routeNotFound);
   app.use('/api', api);
   // Public and outside /api: the key that checks printed and mailed signatures.

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { ENTRY_CSV_MAX_BYTES, entryInputSchema, updateEntrySchema } from '../../src/contract/events';
+import { importRowsSchema } from '../../src/contract/entryImport';
 import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
 import { csvUpload } from '../http/csvUpload';
@@ -8,7 +9,7 @@ import { validateBody } from '../http/validate';
 import { createEntry, deleteEntry, listEntries, updateEntry } from '../services/organizer/entries';
 import { entryTemplateCsv, importEntries, previewEntryImport } from '../services/organizer/entryImport';
 
-/** The entry list: by form, or a CSV file checked in full before anything is stored. */
+/** The entry list: by form, or a CSV file previewed, corrected row by row and imported all at once. */
 export function entryRoutes(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
@@ -38,9 +39,15 @@ export function entryRoutes(ctx: AppContext): Router {
     res.json(await previewEntryImport(db, Number(req.params.eventId), req.file!.buffer));
   });
 
-  router.post('/events/:eventId/entries/import', ...organizer, upload, async (req, res) => {
-    res.status(201).json(await importEntries(db, req.user!.id, Number(req.params.eventId), req.file!.buffer));
-  });
+  // The rows as corrected in the preview, never the file: what is stored is what the organizer saw.
+  router.post(
+    '/events/:eventId/entries/import',
+    ...organizer,
+    validateBody(importRowsSchema),
+    async (req, res) => {
+      res.status(201).json(await importEntries(db, req.user!.id, Number(req.params.eventId), req.body));
+    },
+  );
 
   router.patch(
     '/events/:eventId/entries/:entryId',

@@ -189,6 +189,8 @@ export type SessionCardItem = {
   targetNumber: number;
   position: 'A' | 'B' | 'C' | 'D';
   signedEnds: number;
+  /** Ends whose values are decided (agreed, settled, ruled or signed). */
+  endsWithValues: number;
   totalEnds: number;
   /** Over the ends with decided values, as the card view counts it. */
   total: number;

@@ -1,25 +1,11 @@
-import { expect, test, type Browser, type Page } from '@playwright/test';
-import { devices } from '@playwright/test';
-import { demoArchers, DEMO_PASSWORD } from '../../server/demo/demoPeople';
+import { expect, test, type Page } from '@playwright/test';
+import { demoArchers } from '../../server/demo/demoPeople';
 import { readDemoDb } from './support/demoDb';
+import { signedInPhone } from './support/signIn';
 import { checkA11y } from './support/a11y';
 
-const phone = devices['Pixel 7'];
 /** A demo target nobody scores in the seeded demo field (that uses targets 1–3). */
 const TARGET = 9;
-
-async function signedInPhone(browser: Browser, email: string): Promise<Page> {
-  const context = await browser.newContext({ ...phone });
-  const page = await context.newPage();
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByTestId('signed-in-name')).toBeVisible();
-  // The shell must be cached before the phone can reload offline.
-  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
-  return page;
-}
 
 async function join(page: Page, code: string, task: RegExp, target = TARGET) {
   await page.goto(`/join?code=${code}`);

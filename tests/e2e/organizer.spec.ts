@@ -97,19 +97,32 @@ test('an organizer builds an event from nothing to printed scorecards and an inv
   await expect(page.getByRole('heading', { name: 'Qualification' })).toBeVisible();
   await shot(page, '03-session');
 
-  // Entries by CSV: one bad row shows in the preview and Import stays off.
+  // Entries by CSV: two bad rows; one is corrected in place, the other dropped, then the list imports.
   await page.getByRole('link', { name: /Entry list/ }).click();
   await expect(page.getByTestId('no-entries')).toBeVisible();
   await page
     .getByTestId('csv-file')
-    .setInputFiles(csv([...ARCHERS, 'Fintan Roe,Stonebridge,,Longbow Gents']));
-  await expect(page.getByTestId('csv-row-7')).toContainText('There is no division "Longbow Gents"');
-  await expect(page.getByText('1 of 6 rows has a problem')).toBeVisible();
+    .setInputFiles(
+      csv([...ARCHERS, 'Fintan Roe,Stonebridge,,Longbow Gents', 'Gwilym Fox,,gwilym-at-example,Nowhere']),
+    );
+  const fintan = page.getByTestId('csv-row-7');
+  const gwilym = page.getByTestId('csv-row-8');
+  await expect(fintan).toContainText('There is no division "Longbow Gents"');
+  await expect(gwilym).toContainText('"gwilym-at-example" is not an e-mail address');
+  await expect(page.getByTestId('csv-counts')).toHaveText('5 ready · 2 need fixing · 0 dropped');
   await expect(page.getByRole('button', { name: /^Import/ })).toBeDisabled();
+  await page.getByLabel('Only rows with problems').check();
+  await expect(page.getByTestId('csv-row-2')).toBeHidden();
   await shot(page, '04-csv-problem');
 
-  await page.getByTestId('csv-file').setInputFiles(csv([...ARCHERS, 'Fintan Roe,Stonebridge,,Compound Men']));
-  await expect(page.getByText('All 6 rows are ready to import.')).toBeVisible();
+  await fintan.getByLabel('Division').selectOption('Compound Men');
+  await expect(fintan).toContainText('Ready');
+  await expect(page.getByTestId('csv-counts')).toHaveText('6 ready · 1 needs fixing · 0 dropped');
+  await page.getByRole('button', { name: 'Drop row 8' }).click();
+  await expect(page.getByTestId('csv-counts')).toHaveText('6 ready · 0 need fixing · 1 dropped');
+  await page.getByLabel('Only rows with problems').uncheck();
+  await expect(gwilym).toContainText('Dropped');
+  await shot(page, '04-csv-corrected');
   await page.getByRole('button', { name: 'Import 6 archers' }).click();
   await expect(page.getByText('Imported 6 archers.')).toBeVisible();
   await expect(page.getByRole('region', { name: 'Recurve Women' }).getByRole('listitem')).toHaveCount(4);

@@ -1,34 +1,11 @@
-import { expect, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
-import { devices } from '@playwright/test';
-import { DEMO_JUDGES, DEMO_ORGANIZER, DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
+import { expect, test } from '@playwright/test';
+import { DEMO_JUDGES, DEMO_ORGANIZER, demoArchers } from '../../server/demo/demoPeople';
 import type { CardView } from '../../src/contract/judging';
 import { checkA11y } from './support/a11y';
-import { apiPhone, token } from './support/apiPhone';
+import { token } from './support/apiPhone';
 import { readDemoDb, readDemoRows } from './support/demoDb';
-
-const phone = devices['Pixel 7'];
-
-/** A demo person's phone simulated through the API, for what the test does not tap by hand. */
-const phoneOf = async (request: APIRequestContext, email: string) =>
-  apiPhone(request, await token(request, email), `pad-${email}`);
-
-async function signIn(browser: Browser, email: string): Promise<Page> {
-  const page = await (await browser.newContext({ ...phone })).newPage();
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByTestId('signed-in-name')).toBeVisible();
-  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
-  return page;
-}
-
-async function joinTarget(page: Page, code: string, task: RegExp, target: number) {
-  await page.goto(`/join?code=${code}`);
-  await page.getByRole('radio', { name: task }).check();
-  await page.getByRole('button', { name: 'Join target' }).click();
-  await expect(page.getByRole('heading', { name: new RegExp(`Target ${target}`) })).toBeVisible();
-}
+import { joinTarget, phoneOf } from './support/fieldPhones';
+import { signedInPhone } from './support/signIn';
 
 function targetOf(target: number) {
   const { code, session_id: sessionId } = readDemoDb<{ code: string; session_id: number }>(
@@ -54,9 +31,9 @@ test('a flag reaches the caller and stops the pull; a ruling reaches both pads w
   const TARGET = 12;
   const { code, sessionId, archers } = targetOf(TARGET);
   const people = demoArchers();
-  const writer1 = await signIn(browser, people[20]!.email);
-  const writer2 = await signIn(browser, people[21]!.email);
-  const caller = await signIn(browser, people[22]!.email);
+  const writer1 = await signedInPhone(browser, people[20]!.email);
+  const writer2 = await signedInPhone(browser, people[21]!.email);
+  const caller = await signedInPhone(browser, people[22]!.email);
   await joinTarget(writer1, code, /Writer 1/, TARGET);
   await joinTarget(writer2, code, /Writer 2/, TARGET);
   await joinTarget(caller, code, /Caller/, TARGET);
@@ -184,7 +161,7 @@ test('the sign button does not come back after signing, even after a reload befo
     })),
   );
 
-  const page = await signIn(browser, archer.email!);
+  const page = await signedInPhone(browser, archer.email!);
   await page.goto(`/card/${sessionId}/${archer.entry_id}`);
   await checkA11y(page, 'card before signing');
   await page.getByRole('button', { name: 'Sign as archer' }).click();

@@ -248,24 +248,22 @@ describe('bad input is refused with a readable message', () => {
     });
   }
 
-  it('uploads: a missing file, a wrong kind of file and an oversized file', async () => {
-    for (const path of ['import/preview', 'import']) {
-      const url = `${ev(f)}/entries/${path}`;
-      const none = await request(server.app).post(url).set(f.people.organizer.auth).field('other', 'x');
-      expect(none.status).toBe(400);
-      expect(none.body.error.message).toMatch(/Choose a CSV file/);
-      const wrong = await request(server.app)
-        .post(url)
-        .set(f.people.organizer.auth)
-        .attach('file', Buffer.from('GIF89a'), { filename: 'photo.gif', contentType: 'image/gif' });
-      expect(wrong.status).toBe(415);
-      const huge = await request(server.app)
-        .post(url)
-        .set(f.people.organizer.auth)
-        .attach('file', Buffer.alloc(600 * 1024, 'a'), { filename: 'big.csv', contentType: 'text/csv' });
-      expect(huge.status).toBe(413);
-      expect(huge.body.error.message).toMatch(/larger than/);
-    }
+  it('upload of an entry list: a missing file, a wrong kind of file and an oversized file', async () => {
+    const url = `${ev(f)}/entries/import/preview`;
+    const none = await request(server.app).post(url).set(f.people.organizer.auth).field('other', 'x');
+    expect(none.status).toBe(400);
+    expect(none.body.error.message).toMatch(/Choose a CSV file/);
+    const wrong = await request(server.app)
+      .post(url)
+      .set(f.people.organizer.auth)
+      .attach('file', Buffer.from('GIF89a'), { filename: 'photo.gif', contentType: 'image/gif' });
+    expect(wrong.status).toBe(415);
+    const huge = await request(server.app)
+      .post(url)
+      .set(f.people.organizer.auth)
+      .attach('file', Buffer.alloc(600 * 1024, 'a'), { filename: 'big.csv', contentType: 'text/csv' });
+    expect(huge.status).toBe(413);
+    expect(huge.body.error.message).toMatch(/larger than/);
   });
 
   it('photo uploads: a missing file, a file that is not an image and an oversized one', async () => {

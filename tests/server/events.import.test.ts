@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from './support/testServer';
+import { makePerson, giveRole } from './support/people';
 import { addArchers, binary, setUpEvent, type SetUpEvent } from './support/eventSetup';
 
 let server: TestServer;
@@ -146,30 +147,85 @@ describe('CSV preview', () => {
   });
 });
 
-describe('CSV import', () => {
-  it('is all or nothing: one bad row and nothing is stored, with the problems named', async () => {
+const importRows = (body: object, auth = setup.organizer.auth) =>
+  request(server.app).post(`/api/events/${setup.eventId}/entries/import`).set(auth).send(body);
+
+type Row = { row: number; name: string; club: string; email: string; division: string };
+const cleanRows: Row[] = [
+  {
+    row: 2,
+    name: 'Saoirse Quill',
+    club: 'Riverside',
+    email: 'saoirse@example.org',
+    division: 'Recurve Women',
+  },
+  { row: 3, name: 'Bram  Oakes', club: '', email: 'Bram@Example.org', division: 'compound men' },
+];
+
+describe('CSV import of the corrected rows', () => {
+  it('checks every row it receives again: one bad row and nothing is stored, with the problems named', async () => {
     const before = await entryCount();
-    const res = await upload('import', `${clean}\nNo Division Person,,,\n`);
+    const res = await importRows({
+      rows: [...cleanRows, { row: 4, name: 'No Division Person', club: '', email: '', division: '' }],
+    });
     expect(res.status).toBe(422);
     expect(res.body.error.message).toMatch(/Nothing was imported: 1 row has a problem/);
     expect(res.body.error.fields).toEqual([
       { path: 'row 4', message: expect.stringMatching(/division is missing/) },
     ]);
+    const badMail = await importRows({
+      rows: [
+        { row: 5, name: 'Tomasz Reed', club: '', email: 'tomasz-at-example', division: 'Recurve Women' },
+      ],
+    });
+    expect(badMail.status).toBe(422);
+    expect(badMail.body.error.fields[0].message).toMatch(/"tomasz-at-example" is not an e-mail address/);
     expect(await entryCount()).toBe(before);
   });
 
-  it('imports a clean file in one go and audits it; the same file again is refused as duplicates', async () => {
+  it('refuses a body that is not a list of rows, an empty list and a file upload', async () => {
+    const notRows = await importRows({ rows: 'all of them' });
+    expect(notRows.status).toBe(400);
+    expect(notRows.body.error.message).toMatch(/rows/);
+    const empty = await importRows({ rows: [] });
+    expect(empty.status).toBe(400);
+    expect(empty.body.error.message).toMatch(/keep at least one/);
+    const file = await upload('import', clean);
+    expect(file.status).toBe(400);
+  });
+
+  it('is for organizers only', async () => {
+    const judgePerson = await makePerson(server.db, 'Jude Judge');
+    await giveRole(server.db, setup.eventId, judgePerson, 'judge');
+    const judge = await importRows({ rows: cleanRows }, judgePerson.auth);
+    expect(judge.status).toBe(403);
+    const stranger = await request(server.app)
+      .post(`/api/events/${setup.eventId}/entries/import`)
+      .send({ rows: cleanRows });
+    expect(stranger.status).toBe(401);
+  });
+
+  it('imports the rows as corrected (a fixed division, a dropped row left out) and audits it; the same rows again are refused as duplicates', async () => {
+    // The file had a bad division on row 3 and a bad row 4; the organizer fixed row 3 and dropped row 4.
+    const preview = await upload(
+      'import/preview',
+      `${clean}\nUnwanted Row,,,Nowhere\n`.replace('compound men', 'Longbow'),
+    );
+    expect(preview.body.problemCount).toBe(2);
     const before = await entryCount();
-    const res = await upload('import', clean);
+    const res = await importRows({ rows: cleanRows });
     expect(res.status).toBe(201);
     expect(res.body).toEqual({ imported: 2 });
     expect(await entryCount()).toBe(before + 2);
     const bram = await server.db('entries').where({ event_id: setup.eventId, name: 'Bram Oakes' }).first();
     expect(bram.email).toBe('bram@example.org');
     expect(
+      await server.db('entries').where({ event_id: setup.eventId, name: 'Unwanted Row' }).first(),
+    ).toBeUndefined();
+    expect(
       await server.db('audit_log').where({ event_id: setup.eventId, action: 'entries.imported' }).first(),
     ).toBeTruthy();
-    const again = await upload('import', clean);
+    const again = await importRows({ rows: cleanRows });
     expect(again.status).toBe(422);
     expect(again.body.error.fields).toHaveLength(2);
     expect(await entryCount()).toBe(before + 2);

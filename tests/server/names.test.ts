@@ -74,3 +74,15 @@ it('removes them from names in an entry-list file too', async () => {
   expect(res.status).toBe(200);
   expect(res.body.rows[0]).toMatchObject({ name: 'Cara Bow', club: 'Club' });
 });
+
+it('removes them from the corrected rows of an entry-list import too', async () => {
+  const res = await request(server.app)
+    .post(`/api/events/${setup.eventId}/entries/import`)
+    .set(setup.organizer.auth)
+    .send({
+      rows: [{ row: 2, name: `Dara${RLO} Reed`, club: `Club${RLO}`, email: '', division: 'Recurve Women' }],
+    });
+  expect(res.status).toBe(201);
+  const stored = await server.db('entries').where({ event_id: setup.eventId, name: 'Dara Reed' }).first();
+  expect(stored).toMatchObject({ name: 'Dara Reed', club: 'Club' });
+});

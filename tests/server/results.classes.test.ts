@@ -64,16 +64,48 @@ describe('results: classes inside a division', () => {
     expect(csv.text).toContain('Qualification,Recurve Women,Under 21,2,');
   });
 
-  it('reads a class column from an imported entry list', async () => {
+  it('reads a class column from an entry list: preview, then the rows imported as previewed', async () => {
     const csv = 'name,division,Age class\nNell Fletch,Recurve Women,50+\nOwen Nock,Recurve Women,\n';
+    const preview = await request(server.app)
+      .post(`/api/events/${j.field.eventId}/entries/import/preview`)
+      .set(j.field.organizer.auth)
+      .attach('file', Buffer.from(csv), { filename: 'entries.csv', contentType: 'text/csv' });
+    expect(preview.status).toBe(200);
+    const rows = preview.body.rows as { className: string; problems: string[] }[];
+    expect(rows.map((r) => [r.className, r.problems])).toEqual([
+      ['50+', []],
+      ['', []],
+    ]);
     const res = await request(server.app)
       .post(`/api/events/${j.field.eventId}/entries/import`)
       .set(j.field.organizer.auth)
-      .attach('file', Buffer.from(csv), { filename: 'entries.csv', contentType: 'text/csv' });
+      .send({ rows: rows.map(({ problems: _, ...row }) => row) });
     expect(res.status).toBe(201);
     const list = await api('get', '/entries');
     const byName = (name: string) => list.body.entries.find((e: { name: string }) => e.name === name);
     expect(byName('Nell Fletch').className).toBe('50+');
     expect(byName('Owen Nock').className).toBe('');
+  });
+
+  it('refuses a class longer than 60 characters in the corrected rows, naming the row', async () => {
+    const res = await request(server.app)
+      .post(`/api/events/${j.field.eventId}/entries/import`)
+      .set(j.field.organizer.auth)
+      .send({
+        rows: [
+          {
+            row: 2,
+            name: 'Long Class',
+            club: '',
+            email: '',
+            division: 'Recurve Women',
+            className: 'x'.repeat(61),
+          },
+        ],
+      });
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields).toEqual([
+      { path: 'row 2', message: 'Use at most 60 characters for the class.' },
+    ]);
   });
 });

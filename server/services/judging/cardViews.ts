@@ -158,6 +158,7 @@ export async function sessionCards(db: Db, session: SessionRow): Promise<Session
       targetNumber: a.target_number,
       position: a.position,
       signedEnds,
+      endsWithValues: views.filter((v) => v.arrows).length,
       totalEnds: ends.length,
       total: cardTotals(
         round,

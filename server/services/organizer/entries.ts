@@ -1,3 +1,4 @@
+import { archerKey } from '../../../src/contract/entryImport';
 import type { Entry, EntryInput, EntryList, UpdateEntryInput } from '../../../src/contract/events';
 import type { Db } from '../../db';
 import { refuseOverLimit } from './eventLimits';
@@ -17,14 +18,6 @@ type EntryRow = {
   club: string;
   email: string | null;
 };
-
-/**
- * Two entries are the same archer when they have the same name in the same division (case and
- * spacing ignored). The same person in two divisions (two bow styles) is allowed, and so are two
- * archers sharing one e-mail address (juniors entered with a parent's address).
- */
-export const archerKey = (name: string, divisionId: number): string =>
-  `${divisionId}:${name.trim().replace(/\s+/g, ' ').toLowerCase()}`;
 
 export async function listEntries(db: Db, eventId: number): Promise<EntryList> {
   const rows = await db('entries')

@@ -1,11 +1,10 @@
 import Papa from 'papaparse';
-import { emailSchema } from '../../../src/contract/auth';
+import { checkImportRows, type ImportContext, type ImportRowsInput } from '../../../src/contract/entryImport';
 import {
   ENTRY_CSV_COLUMNS,
   ENTRY_CSV_MAX_ROWS,
   type ImportPreview,
   type ImportResult,
-  type ImportRow,
 } from '../../../src/contract/events';
 import { cleanText } from '../../../src/core';
 import type { Db } from '../../db';
@@ -13,7 +12,7 @@ import { refuseOverLimit } from './eventLimits';
 import { HttpError, badRequest } from '../../http/httpError';
 import { nowIso } from '../../time';
 import { audit } from '../audit';
-import { archerKey, linkEntryToAccount } from './entries';
+import { linkEntryToAccount } from './entries';
 
 type Column = (typeof ENTRY_CSV_COLUMNS)[number];
 
@@ -84,78 +83,57 @@ export function readEntryCsv(buffer: Buffer): RawRow[] {
   return rows;
 }
 
-const normalize = (s: string) => s.trim().replace(/\s+/g, ' ').toLowerCase();
-
-/** Every row with every problem found in it; nothing is stored. */
-export async function checkEntryRows(
-  db: Db,
-  eventId: number,
-  rows: RawRow[],
-): Promise<{ rows: ImportRow[]; divisionIds: (number | undefined)[] }> {
-  const divisions = await db('divisions').where({ event_id: eventId }).orderBy('id').select('id', 'name');
-  const existing = await db('entries')
+/** What the shared row check needs of the event: its divisions and who is entered already. */
+async function importContext(db: Db, eventId: number): Promise<ImportContext> {
+  const divisions = (await db('divisions')
+    .where({ event_id: eventId })
+    .orderBy('id')
+    .select('id', 'name')) as {
+    id: number;
+    name: string;
+  }[];
+  const entered = (await db('entries')
     .join('divisions', 'divisions.id', 'entries.division_id')
     .where('entries.event_id', eventId)
-    .select('entries.name', 'entries.division_id', 'divisions.name as division_name');
-  const entered = new Map(existing.map((e) => [archerKey(e.name, e.division_id), e.division_name as string]));
-  const seen = new Map<string, number>();
-  const divisionNames = divisions.map((d) => d.name).join(', ');
-
-  const divisionIds: (number | undefined)[] = [];
-  const checked = rows.map(({ row, values }): ImportRow => {
-    const problems: string[] = [];
-    if (!values.name) problems.push('The name is missing.');
-    else if (values.name.length > 120) problems.push('The name is longer than 120 characters.');
-    if (values.club.length > 120) problems.push('The club is longer than 120 characters.');
-    if (values.class.length > 60) problems.push('The class is longer than 60 characters.');
-    if (values.email && !emailSchema.safeParse(values.email).success)
-      problems.push(`"${values.email}" is not an e-mail address.`);
-    const division = divisions.find((d) => normalize(d.name) === normalize(values.division));
-    if (!values.division)
-      problems.push(
-        `The division is missing. Use one of: ${divisionNames || 'none yet — add divisions first'}.`,
-      );
-    else if (!division)
-      problems.push(
-        `There is no division "${values.division}" in this event. Use one of: ${divisionNames || 'none yet — add divisions first'}.`,
-      );
-    if (division && values.name) {
-      const key = archerKey(values.name, division.id);
-      const earlier = seen.get(key);
-      if (earlier !== undefined) problems.push(`The same archer is on row ${earlier} already.`);
-      else seen.set(key, row);
-      if (entered.has(key)) problems.push(`${values.name} is already entered in ${entered.get(key)}.`);
-    }
-    divisionIds.push(division?.id);
-    const { class: className, ...rest } = values;
-    return { row, ...rest, className, problems };
-  });
-  return { rows: checked, divisionIds };
+    .select('entries.name', 'entries.division_id as divisionId', 'divisions.name as divisionName')) as {
+    name: string;
+    divisionId: number;
+    divisionName: string;
+  }[];
+  return { divisions, entered };
 }
 
+/** The file's rows with every problem found in them; nothing is stored. */
 export async function previewEntryImport(db: Db, eventId: number, buffer: Buffer): Promise<ImportPreview> {
-  const { rows } = await checkEntryRows(db, eventId, readEntryCsv(buffer));
+  const raw = readEntryCsv(buffer).map(({ row, values: { class: className, ...values } }) => ({
+    row,
+    ...values,
+    className,
+  }));
+  const { rows } = checkImportRows(raw, await importContext(db, eventId));
   const problemCount = rows.filter((r) => r.problems.length > 0).length;
   return { rows, readyCount: rows.length - problemCount, problemCount };
 }
 
-/** All or nothing: one transaction, and any row with a problem refuses the whole file. */
+/**
+ * Imports the rows as corrected in the preview. All or nothing: one transaction, every row
+ * checked again by the same rules, and any row with a problem refuses the whole list.
+ */
 export async function importEntries(
   db: Db,
   userId: number,
   eventId: number,
-  buffer: Buffer,
+  input: ImportRowsInput,
 ): Promise<ImportResult> {
-  const raw = readEntryCsv(buffer);
   return db.transaction(async (trx) => {
-    const { rows, divisionIds } = await checkEntryRows(trx, eventId, raw);
+    const { rows, divisionIds } = checkImportRows(input.rows, await importContext(trx, eventId));
     await refuseOverLimit(trx, eventId, 'entries', rows.length);
     const bad = rows.filter((r) => r.problems.length > 0);
     if (bad.length) {
       throw new HttpError(
         422,
         'import_has_problems',
-        `Nothing was imported: ${bad.length} ${bad.length === 1 ? 'row has a problem' : 'rows have problems'}. Fix ${bad.length === 1 ? 'it' : 'them'} in the file and upload it again.`,
+        `Nothing was imported: ${bad.length} ${bad.length === 1 ? 'row has a problem' : 'rows have problems'}. Correct ${bad.length === 1 ? 'it' : 'them'} in the preview or drop ${bad.length === 1 ? 'it' : 'them'}, then import again.`,
         bad.flatMap((r) => r.problems.map((p) => ({ path: `row ${r.row}`, message: p }))),
       );
     }

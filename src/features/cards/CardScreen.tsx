@@ -12,7 +12,8 @@ import { Notice } from '../../ui/Notice';
 import { RulingHistory } from '../../ui/scorecard/RulingHistory';
 import { END_STATE_LABELS } from '../../ui/scorecard/endStateLabel';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
-import { useCard } from '../../api/card';
+import { useCard, useMyCards } from '../../api/card';
+import { PlaceLine } from '../../ui/scorecard/PlaceLine';
 import { PaperCountersign } from './PaperCountersign';
 
 const CARD_STATE_WORDS: Record<CardView['state'], string> = {
@@ -90,6 +91,20 @@ function Countersign({ card, userId }: { card: CardView; userId: number }) {
   );
 }
 
+/** The live place, on the archer's own card only (another person's place may not be public yet). */
+function OwnPlace({ sessionId, entryId }: { sessionId: number; entryId: number }) {
+  const mine = useMyCards().data?.cards.some((m) => m.sessionId === sessionId && m.entryId === entryId);
+  if (!mine) return null;
+  return (
+    <section aria-labelledby="own-place" className="surface rounded-xl border-2 border-line bg-card p-3">
+      <h2 id="own-place" className="font-bold">
+        Your place
+      </h2>
+      <PlaceLine sessionId={sessionId} entryId={entryId} />
+    </section>
+  );
+}
+
 function Card({ sessionId, entryId, userId }: { sessionId: number; entryId: number; userId: number }) {
   const card = useCard(sessionId, entryId);
   if (card.isPending) return <p>Loading the card…</p>;
@@ -114,6 +129,7 @@ function Card({ sessionId, entryId, userId }: { sessionId: number; entryId: numb
       <p>
         {c.signedEnds} of {c.totalEnds} ends signed by a judge.
       </p>
+      <OwnPlace sessionId={sessionId} entryId={entryId} />
       <table className="w-full border-collapse text-left">
         <thead>
           <tr className="border-b-2 border-ink">

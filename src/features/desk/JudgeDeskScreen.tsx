@@ -17,7 +17,7 @@ import { DeskItemCard } from './DeskItemCard';
 import { signEnds } from './signEnds';
 import { ImportWaiting } from './ImportWaiting';
 import { LateValues } from './LateValues';
-import { TargetGroup } from './TargetGroup';
+import { TargetGroup } from '../../ui/scorecard/TargetGroup';
 import { PaperCountersigns } from './PaperCountersigns';
 import { usePrepareDesk } from './api/prepareDesk';
 

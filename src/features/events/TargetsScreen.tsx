@@ -1,7 +1,6 @@
 import { useRef, useState } from 'react';
-import { Link, useParams } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import type { EventSummary, Position } from '../../contract/events';
-import { RequireSignIn } from '../../account/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { archersOnTargets } from './components/archersOnTargets';
@@ -16,7 +15,8 @@ import { useRevokeJoinCode } from './api/revokeJoinCode';
 import { useDownloadScorecards } from './api/downloadScorecards';
 import { useDownloadTargetSheets } from './api/downloadTargetSheets';
 import { ConfirmButton } from './components/ConfirmButton';
-import { OrganizerGate } from './components/OrganizerGate';
+import { TasksPanel } from './components/TasksPanel';
+import { OrganizerSessionScreen } from './components/OrganizerSessionScreen';
 import { LinkAddressNote } from './components/LinkAddressNote';
 import { PlacesPanel } from './components/PlacesPanel';
 import { TargetCard } from './components/TargetCard';
@@ -81,6 +81,14 @@ function Targets({ summary, sessionId }: { summary: EventSummary; sessionId: num
               list.targets.length,
             )}`}
         </p>
+        {hasTargets && (
+          <Link
+            to={`/events/${eventId}/sessions/${sessionId}/cards`}
+            className="inline-flex min-h-12 items-center font-bold underline"
+          >
+            Card board: every card's state, targets behind, final cards mailed ▸
+          </Link>
+        )}
       </header>
 
       {closed && (
@@ -186,6 +194,11 @@ function Targets({ summary, sessionId }: { summary: EventSummary; sessionId: num
               panelRef={panelRef}
             />
           )}
+          <TasksPanel
+            eventId={eventId}
+            sessionId={sessionId}
+            targetNumbers={list.targets.map((t) => t.targetNumber)}
+          />
           {codeError && <Notice tone="error">{codeError.message}</Notice>}
           <ul className="grid gap-4 md:grid-cols-2" aria-label="Targets">
             {list.targets.map((t) => (
@@ -208,16 +221,9 @@ function Targets({ summary, sessionId }: { summary: EventSummary; sessionId: num
 
 /** One session's targets: automatic layout, changes by hand, conflicts in words, join codes, printouts. */
 export function TargetsScreen() {
-  const params = useParams();
-  const eventId = Number(params.eventId);
-  const sessionId = Number(params.sessionId);
   return (
-    <RequireSignIn>
-      {() => (
-        <OrganizerGate eventId={eventId}>
-          {(summary) => <Targets summary={summary} sessionId={sessionId} />}
-        </OrganizerGate>
-      )}
-    </RequireSignIn>
+    <OrganizerSessionScreen>
+      {(summary, sessionId) => <Targets summary={summary} sessionId={sessionId} />}
+    </OrganizerSessionScreen>
   );
 }

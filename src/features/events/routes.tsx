@@ -9,4 +9,8 @@ export const eventRoutes: RouteObject[] = [
     path: 'events/:eventId/sessions/:sessionId/targets',
     element: lazyScreen(async () => (await import('./TargetsScreen')).TargetsScreen),
   },
+  {
+    path: 'events/:eventId/sessions/:sessionId/cards',
+    element: lazyScreen(async () => (await import('./CardBoardScreen')).CardBoardScreen),
+  },
 ];

@@ -7,7 +7,7 @@ import { useOnline } from '../../local/online';
 import { TASK_LABELS } from '../../ui/scorecard/taskNames';
 
 /** This person's changes on the target that have not reached the server yet. */
-function useUnsynced(target: JoinedTarget): number | undefined {
+export function useUnsynced(target: JoinedTarget): number | undefined {
   return useLiveQuery(async () => {
     const prefixes = target.archers.map((a) => `${cardKeyOf(target.session.id, a.entryId)}:`);
     const pending = await localDb().outbox.where('status').equals('pending').toArray();

@@ -15,6 +15,7 @@ import { HeldForJudge } from './HeldForJudge';
 import { LeaveTask } from './LeaveTask';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
 import { TASK_LABELS } from '../../ui/scorecard/taskNames';
+import { TaskNotice } from './TaskNotice';
 import { usePadData } from './usePadData';
 import { WriterPad } from './WriterPad';
 
@@ -81,6 +82,7 @@ function Pad({
           <span className="text-xl font-normal">· {TASK_LABELS[target.task]}</span>
         </h1>
       </header>
+      <TaskNotice target={target} />
       <SafetyNote compact />
       <Rejections rows={rejected} target={target} />
       <HeldForJudge rows={held} target={target} />

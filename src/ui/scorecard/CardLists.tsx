@@ -1,5 +1,6 @@
 import { Link } from 'react-router-dom';
 import type { CardToSign, MyCard } from '../../contract/myCards';
+import { PlaceLine } from './PlaceLine';
 
 const linkClass = 'surface block min-h-16 rounded-xl border-2 border-ink bg-card p-3';
 
@@ -33,7 +34,7 @@ export function CardsToSignList({ cards }: { cards: CardToSign[] }) {
   );
 }
 
-/** The person's own scorecards. */
+/** The person's own scorecards, each with its live place. */
 export function OwnCardsList({ cards }: { cards: MyCard[] }) {
   return (
     <ul className="space-y-2" aria-label="Your scorecards">
@@ -46,6 +47,9 @@ export function OwnCardsList({ cards }: { cards: MyCard[] }) {
               {c.position}
             </span>
           </Link>
+          <div className="px-3 pt-1">
+            <PlaceLine sessionId={c.sessionId} entryId={c.entryId} />
+          </div>
         </li>
       ))}
     </ul>

@@ -14,15 +14,19 @@ type Props = {
   label: string;
 };
 
-/** One end's values, highest to lowest, in boxes the size of a thumb; empty boxes show what is left. */
+/**
+ * One end's values, highest to lowest, in boxes the size of a thumb; empty boxes show what is left.
+ * The boxes share one line and narrow a little when the line is short (six arrows at 412 px inside
+ * a card), so a six-arrow end never wraps 5 + 1.
+ */
 export function EndArrows({ arrows, slots, flags = [], selected, onSelect, differing, label }: Props) {
   return (
-    <ol className="flex flex-wrap gap-2" aria-label={label}>
+    <ol className="flex gap-1.5" aria-label={label}>
       {Array.from({ length: Math.max(slots, arrows.length) }, (_, i) => {
         const value = arrows[i];
         const flag = flags.find((f) => f.index === i);
         const differs = differing?.has(i);
-        const box = `relative flex h-14 w-12 items-center justify-center rounded-lg text-[28px] font-bold ${
+        const box = `relative flex h-14 w-full items-center justify-center rounded-lg text-[28px] font-bold ${
           value ? arrowLook(value) : 'border-2 border-dashed border-line text-ink-soft'
         } ${selected === i ? 'ring-4 ring-ink ring-offset-2' : ''} ${differs ? 'outline outline-4 outline-brick' : ''}`;
         const content = (
@@ -44,7 +48,7 @@ export function EndArrows({ arrows, slots, flags = [], selected, onSelect, diffe
           </>
         );
         return (
-          <li key={i}>
+          <li key={i} className="min-w-0 max-w-12 flex-1">
             {onSelect && value ? (
               <button
                 type="button"

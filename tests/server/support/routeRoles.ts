@@ -220,7 +220,9 @@ export const ROUTES: RouteRule[] = [
     method: 'post',
     route: '/api/events/:eventId/entries/import',
     path: (f) => `${ev(f)}/entries/import`,
-    body: () => ({ upload: { field: 'file', content: csv, filename: 'e.csv' } }),
+    body: () => ({
+      rows: [{ row: 2, name: 'Import Archer', club: 'Test Club', email: '', division: 'Recurve Women' }],
+    }),
     allowed: ORGANIZER,
     ok: 201,
   },
@@ -450,6 +452,13 @@ export const ROUTES: RouteRule[] = [
   },
   {
     method: 'get',
+    route: '/api/events/:eventId/sessions/:sessionId/card-board',
+    path: (f) => `${se(f)}/card-board`,
+    allowed: ORGANIZER,
+    ok: 200,
+  },
+  {
+    method: 'get',
     route: '/api/events/:eventId/sessions/:sessionId/judge-desk',
     path: (f) => `${se(f)}/judge-desk?target=1`,
     allowed: STAFF,
@@ -467,6 +476,14 @@ export const ROUTES: RouteRule[] = [
     method: 'get',
     route: '/api/cards/:sessionId/:entryId',
     path: (f) => `/api/cards/${f.sessionId}/${f.entryIds[0]}`,
+    allowed: EVENT_ROLES,
+    ok: 200,
+  },
+  // An archer's live place: until published, the archer themself and the event's staff.
+  {
+    method: 'get',
+    route: '/api/places/:sessionId/:entryId',
+    path: (f) => `/api/places/${f.sessionId}/${f.entryIds[0]}`,
     allowed: EVENT_ROLES,
     ok: 200,
   },

@@ -1,10 +1,10 @@
+import type { ImportRowsInput } from '../../../contract/entryImport';
 import type { ImportResult } from '../../../contract/events';
-import { eventPath, send, useEventMutation } from '../../../api/eventKeys';
-import { csvForm } from './previewImport';
+import { eventPath, jsonBody, send, useEventMutation } from '../../../api/eventKeys';
 
-/** Imports the whole file, or nothing (the server refuses with the problems). */
-export const importEntries = (eventId: number, file: File) =>
-  send<ImportResult>(eventPath(eventId, '/entries/import'), { method: 'POST', body: csvForm(file) });
+/** Imports the rows as corrected in the preview, or nothing (the server refuses with the problems). */
+export const importEntries = (eventId: number, input: ImportRowsInput) =>
+  send<ImportResult>(eventPath(eventId, '/entries/import'), jsonBody('POST', input));
 
 export const useImportEntries = (eventId: number) =>
-  useEventMutation(eventId, (file: File) => importEntries(eventId, file));
+  useEventMutation(eventId, (input: ImportRowsInput) => importEntries(eventId, input));

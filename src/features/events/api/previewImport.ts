@@ -2,7 +2,7 @@ import { useMutation } from '@tanstack/react-query';
 import type { ImportPreview } from '../../../contract/events';
 import { eventPath, send } from '../../../api/eventKeys';
 
-export const csvForm = (file: File) => {
+const csvForm = (file: File) => {
   const form = new FormData();
   form.append('file', file);
   return form;

@@ -1,68 +1,80 @@
-import { useState } from 'react';
-import { ENTRY_CSV_COLUMNS, type EventSummary, type ImportPreview } from '../../../contract/events';
+import { useMemo, useState } from 'react';
+import { ENTRY_CSV_COLUMNS, type EventSummary } from '../../../contract/events';
 import { Button } from '../../../ui/Button';
 import { Notice } from '../../../ui/Notice';
+import { useEntries } from '../api/listEntries';
 import { usePreviewImport } from '../api/previewImport';
 import { useImportEntries } from '../api/importEntries';
 import { useDownloadTemplate } from '../api/downloadTemplate';
+import { ImportRowEditor } from './ImportRowEditor';
+import { checkDrafts, draftsOf, sentValues, type ImportDraft } from './importDrafts';
 
-function PreviewRows({ preview }: { preview: ImportPreview }) {
+/** "3 ready · 1 to fix · 1 dropped": where the kept rows stand, said in words. */
+function RowCounts({ ready, toFix, dropped }: { ready: number; toFix: number; dropped: number }) {
   return (
-    <ol className="space-y-2" aria-label="Rows in the file">
-      {preview.rows.map((r) => {
-        const ok = r.problems.length === 0;
-        return (
-          <li
-            key={r.row}
-            className={`surface rounded-lg border-2 p-3 ${ok ? 'border-line bg-card' : 'border-brick bg-brick-bg'}`}
-            data-testid={`csv-row-${r.row}`}
-          >
-            <p>
-              <span className="font-bold">Row {r.row}:</span> {r.name || <em>no name</em>}
-              {r.division && ` · ${r.division}`}
-              {r.club && ` · ${r.club}`}
-              {r.className && ` · ${r.className}`}
-              {r.email && <span className="block break-all text-base">{r.email}</span>}
-            </p>
-            {ok ? (
-              <p className="font-bold text-moss-dark">
-                <span aria-hidden="true">✓ </span>Ready
-              </p>
-            ) : (
-              <ul className="font-bold text-brick">
-                {r.problems.map((p) => (
-                  <li key={p}>
-                    <span aria-hidden="true">▲ </span>
-                    {p}
-                  </li>
-                ))}
-              </ul>
-            )}
-          </li>
-        );
-      })}
-    </ol>
+    <p role="status" className="font-bold" data-testid="csv-counts">
+      {ready} ready · {toFix} {toFix === 1 ? 'needs' : 'need'} fixing · {dropped} dropped
+    </p>
   );
 }
 
-/** Upload a CSV file: every row is checked first; Import stays off until the whole file is clean. */
+/**
+ * Upload a CSV file: every row is checked, rows are corrected in place (checked again by the
+ * server's own rules at each change) or dropped, and Import stays off until every kept row is ready.
+ */
 export function CsvImport({ summary }: { summary: EventSummary }) {
   const eventId = summary.event.id;
   const [file, setFile] = useState<File>();
   const [inputKey, setInputKey] = useState(0);
   const [imported, setImported] = useState<number>();
+  const [drafts, setDrafts] = useState<ImportDraft[]>();
+  const [onlyProblems, setOnlyProblems] = useState(false);
   const preview = usePreviewImport(eventId);
-  const importFile = useImportEntries(eventId);
+  const importRows = useImportEntries(eventId);
   const template = useDownloadTemplate(eventId);
-  const ready = !!file && preview.data !== undefined && !preview.isPending && preview.data.problemCount === 0;
+  const entries = useEntries(eventId);
+
+  const checked = useMemo(() => {
+    if (!drafts || !entries.data) return undefined;
+    return checkDrafts(drafts, {
+      divisions: summary.divisions,
+      entered: entries.data.entries.map((e) => ({
+        name: e.name,
+        divisionId: e.divisionId,
+        divisionName: e.divisionName,
+      })),
+    });
+  }, [drafts, entries.data, summary.divisions]);
+  const ready = !!checked && checked.ready > 0 && checked.toFix === 0;
 
   const choose = (chosen: File | undefined) => {
     setFile(chosen);
     setImported(undefined);
-    importFile.reset();
-    if (chosen) preview.mutate(chosen);
+    setDrafts(undefined);
+    importRows.reset();
+    if (chosen) preview.mutate(chosen, { onSuccess: (p) => setDrafts(draftsOf(p.rows)) });
     else preview.reset();
   };
+  const change = (row: number, patch: Partial<ImportDraft>) =>
+    setDrafts((all) => all?.map((d) => (d.row === row ? { ...d, ...patch } : d)));
+  const submit = () => {
+    if (!checked) return;
+    const rows = checked.rows.filter((d) => !d.dropped).map(sentValues);
+    importRows.mutate(
+      { rows },
+      {
+        onSuccess: (result) => {
+          setImported(result.imported);
+          setFile(undefined);
+          setDrafts(undefined);
+          setInputKey((k) => k + 1);
+          preview.reset();
+        },
+      },
+    );
+  };
+  // A row opened for correcting stays in view once fixed, so it does not vanish under the cursor.
+  const shown = checked?.rows.filter((r) => !onlyProblems || r.editing || r.problems.length > 0);
 
   return (
     <section
@@ -75,8 +87,8 @@ export function CsvImport({ summary }: { summary: EventSummary }) {
       <p>
         One archer per row, with the columns {ENTRY_CSV_COLUMNS.join(', ')} (club, email and class may be
         empty). The division must be one of:{' '}
-        <strong>{summary.divisions.map((d) => d.name).join(', ')}</strong>. Nothing is stored until the whole
-        file is clean.
+        <strong>{summary.divisions.map((d) => d.name).join(', ')}</strong>. You can correct or drop rows
+        before importing; nothing is stored until every kept row is ready.
       </p>
       <div className="flex flex-wrap gap-2">
         <Button variant="secondary" onClick={() => template.mutate()} disabled={template.isPending}>
@@ -102,39 +114,44 @@ export function CsvImport({ summary }: { summary: EventSummary }) {
       )}
       {preview.isPending && <p>Checking the file…</p>}
       {preview.error && <Notice tone="error">{preview.error.message}</Notice>}
-      {preview.data && !preview.isPending && (
+      {entries.error && <Notice tone="error">{entries.error.message}</Notice>}
+      {checked && shown && (
         <>
-          {preview.data.problemCount === 0 ? (
-            <Notice tone="success">All {preview.data.readyCount} rows are ready to import.</Notice>
-          ) : (
-            <Notice tone="error">
-              {preview.data.problemCount} of {preview.data.rows.length} rows{' '}
-              {preview.data.problemCount === 1 ? 'has a problem' : 'have problems'}. Fix the file, then choose
-              it again.
-            </Notice>
-          )}
-          <PreviewRows preview={preview.data} />
+          <RowCounts ready={checked.ready} toFix={checked.toFix} dropped={checked.dropped} />
+          <label className="flex min-h-11 items-center gap-3 font-bold">
+            <input
+              type="checkbox"
+              className="h-6 w-6"
+              checked={onlyProblems}
+              onChange={(e) => setOnlyProblems(e.target.checked)}
+            />
+            Only rows with problems
+          </label>
+          {shown.length === 0 && <p>No row has a problem.</p>}
+          <ol className="space-y-2" aria-label="Rows in the file">
+            {shown.map((r) => (
+              <ImportRowEditor
+                key={r.row}
+                row={r}
+                divisions={summary.divisions}
+                onChange={(patch) => change(r.row, patch)}
+              />
+            ))}
+          </ol>
         </>
       )}
-      {importFile.error && <Notice tone="error">{importFile.error.message}</Notice>}
+      {importRows.error && <Notice tone="error">{importRows.error.message}</Notice>}
       {imported !== undefined && <Notice tone="success">Imported {imported} archers.</Notice>}
-      <Button
-        disabled={!ready || importFile.isPending}
-        onClick={() =>
-          file &&
-          importFile.mutate(file, {
-            onSuccess: (result) => {
-              setImported(result.imported);
-              setFile(undefined);
-              setInputKey((k) => k + 1);
-              preview.reset();
-            },
-          })
-        }
-      >
-        {preview.data && ready ? `Import ${preview.data.readyCount} archers` : 'Import'}
+      <Button disabled={!ready || importRows.isPending} onClick={submit}>
+        {checked && ready ? `Import ${checked.ready} archers` : 'Import'}
       </Button>
-      {!ready && file && preview.data && <p className="text-base">Import is off until every row is ready.</p>}
+      {checked && !ready && (
+        <p className="text-base">
+          {checked.ready === 0 && checked.toFix === 0
+            ? 'Every row is dropped: keep at least one to import.'
+            : 'Import is off until every kept row is ready: correct or drop the rows with problems.'}
+        </p>
+      )}
     </section>
   );
 }

@@ -1,8 +1,8 @@
 import { TASKS, type Task } from '../../contract/fieldTerms';
-import { Notice } from '../../ui/Notice';
-import { SelectField } from '../../ui/SelectField';
-import { TASK_LABELS } from '../../ui/scorecard/taskNames';
-import { useSetMemberTask, useTargetMembers } from './api/targetMembers';
+import { Notice } from '../Notice';
+import { SelectField } from '../SelectField';
+import { TASK_LABELS } from './taskNames';
+import { useSetMemberTask, useTargetMembers } from '../../api/targetMembers';
 
 /**
  * Who keeps which task on a target, for a judge to free a task (the person leaves the group) or

@@ -1,6 +1,6 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { apiRequest } from '../../../api/request';
-import type { SetMemberTaskInput, TargetMember } from '../../../contract/targetTasks';
+import { apiRequest } from './request';
+import type { SetMemberTaskInput, TargetMember } from '../contract/targetTasks';
 
 const membersPath = (eventId: number, sessionId: number, targetNumber: number) =>
   `/api/events/${eventId}/sessions/${sessionId}/targets/${targetNumber}/members`;

@@ -1,0 +1,52 @@
+import { useNavigate } from 'react-router-dom';
+import { localDb, type JoinedTarget } from '../../local/db';
+import { Notice } from '../../ui/Notice';
+import { useUnsynced } from './LeaveTask';
+import { TASK_LABELS } from '../../ui/scorecard/taskNames';
+import { useServerTask } from './useServerTask';
+
+/** Says so when a judge or organizer changed this person's task on the target, or took them off it. */
+export function TaskNotice({ target }: { target: JoinedTarget }) {
+  const found = useServerTask(target);
+  const unsynced = useUnsynced(target);
+  const navigate = useNavigate();
+  if (!found) return null;
+  if (found.kind === 'changed')
+    return (
+      <div data-testid="task-changed">
+        <Notice tone="info">
+          A judge or organizer changed your task on target {target.targetNumber}: you are now{' '}
+          <strong>{TASK_LABELS[found.to].toLowerCase()}</strong> (was {TASK_LABELS[found.from].toLowerCase()}
+          ).
+        </Notice>
+      </div>
+    );
+  const remove = async () => {
+    await localDb().targets.delete(target.key);
+    navigate('/');
+  };
+  return (
+    <div data-testid="task-removed" className="space-y-2">
+      <Notice tone="error">
+        A judge or organizer took you off target {target.targetNumber}: your task is free for someone else,
+        and the server no longer takes values from you here. Join again with the code on the target sheet if
+        you should keep a task.
+      </Notice>
+      {unsynced ? (
+        <p className="font-bold">
+          {unsynced === 1 ? '1 change' : `${unsynced} changes`} from this phone did not reach the server
+          first: save them as a file for a judge before removing the target.
+        </p>
+      ) : (
+        <button
+          type="button"
+          disabled={unsynced === undefined}
+          onClick={() => void remove()}
+          className="min-h-14 rounded-lg border-2 border-ink bg-card px-5 text-lg font-bold text-ink"
+        >
+          Remove target {target.targetNumber} from this phone
+        </button>
+      )}
+    </div>
+  );
+}
