@@ -5,34 +5,19 @@
  * the server sends it: its brotli copy (what Chromium gets), beside it the gzip copy (for
  * browsers without brotli), or the file itself when the build wrote no copy (scripts/precompress.ts).
  */
-import { existsSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import { join } from 'node:path';
+import { entryKeyOf, readViteManifest, staticClosure } from '../server/http/viteManifest';
 
-type Chunk = {
-  file: string;
-  src?: string;
-  isEntry?: boolean;
-  imports?: string[];
-  dynamicImports?: string[];
-  css?: string[];
-};
 const dist = 'dist';
-const manifest = JSON.parse(readFileSync(join(dist, '.vite', 'manifest.json'), 'utf8')) as Record<
-  string,
-  Chunk
->;
+const built = readViteManifest(dist);
+if (!built) throw new Error('No Vite manifest in dist/: run `npx vite build` first.');
+const manifest = built;
 
 /** The pad's first load on the wire with brotli (the font and icons come after the first paint). */
 const PAD_BUDGET_BYTES = 130 * 1024;
 
-function closure(keys: string[], seen = new Set<string>()): Set<string> {
-  for (const key of keys) {
-    if (seen.has(key)) continue;
-    seen.add(key);
-    closure(manifest[key]?.imports ?? [], seen);
-  }
-  return seen;
-}
+const closure = (keys: string[], seen?: Set<string>) => staticClosure(manifest, keys, seen);
 
 function servedBytes(file: string, copy: 'br' | 'gz'): number {
   const path = join(dist, file);
@@ -48,7 +33,7 @@ function wire(keys: Set<string>): { br: number; gz: number } {
   };
 }
 
-const entryKey = Object.keys(manifest).find((k) => manifest[k]!.isEntry && k.endsWith('index.html'));
+const entryKey = entryKeyOf(manifest);
 if (!entryKey) throw new Error('No entry chunk in the Vite manifest.');
 const shell = closure([entryKey]);
 

@@ -2,6 +2,7 @@ import { existsSync } from 'node:fs';
 import { join, sep } from 'node:path';
 import express, { type Router } from 'express';
 import expressStaticGzip from 'express-static-gzip';
+import { routePreloads } from './routePreloads';
 
 /**
  * Serves the built PWA and falls back to index.html for client routes. Paths under /api and
@@ -26,10 +27,13 @@ export function clientFiles(clientDir: string): Router | undefined {
       },
     },
   }) as express.RequestHandler;
+  const preloadsFor = routePreloads(clientDir);
   const router = express.Router();
   router.use(files);
   router.get(/^(?!\/api(\/|$)|\/\.well-known(\/|$)).*/, (req, res, next) => {
     if (!req.accepts('html')) return next();
+    const preloads = preloadsFor(req.path);
+    if (preloads) res.setHeader('Link', preloads);
     // Any client route is the shell, sent like the file itself (compressed, no-cache).
     req.url = '/index.html';
     files(req, res, next);
