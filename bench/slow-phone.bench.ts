@@ -167,7 +167,7 @@ async function offlineRepeat(browser: Browser, server: Awaited<ReturnType<typeof
   return lcps;
 }
 
-const server = await startBenchServer(4472, '.tmp/bench-slow-phone');
+const server = await startBenchServer(4474, '.tmp/bench-slow-phone');
 try {
   const browser = await chromium.launch({ executablePath: chromiumPath(), args: chromiumArgs });
   // Cold loads and taps without a service worker: every file comes over the (slowed) network.

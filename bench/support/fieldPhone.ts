@@ -12,18 +12,21 @@ import { DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
 export type BenchServer = { base: string; dir: string; child: ChildProcess };
 
 export async function startBenchServer(port: number, dir: string): Promise<BenchServer> {
+  const base = `http://127.0.0.1:${port}`;
+  const answers = () =>
+    fetch(`${base}/api/health`).then(
+      (r) => r.ok,
+      () => false,
+    );
+  // Another server on the port would be measured instead of this one.
+  if (await answers()) throw new Error(`Port ${port} is taken by another server; stop it first.`);
   rmSync(dir, { recursive: true, force: true });
   const child = spawn(process.execPath, ['--import', 'tsx', 'tests/e2e/support/startTestServer.ts'], {
     env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', DATA_DIR: dir, MAIL_CATCHER_PORT: '0' },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
-  const base = `http://127.0.0.1:${port}`;
   for (let i = 0; ; i += 1) {
-    const up = await fetch(`${base}/api/health`).then(
-      (r) => r.ok,
-      () => false,
-    );
-    if (up) return { base, dir, child };
+    if (await answers()) return { base, dir, child };
     if (i > 100) throw new Error('The bench server did not start.');
     await new Promise((r) => setTimeout(r, 200));
   }
