@@ -94,6 +94,8 @@ const tapPaints = (page: Page) =>
   page.evaluate(() => [...(globalThis as unknown as WithTaps).tapPaints.values()]);
 
 async function tap(page: Page, name: string) {
+  // A tab in the background gets no input: the page tapped is the one in front, as on a phone.
+  await page.bringToFront();
   const key = page.getByRole('button', { name, exact: true });
   await key.scrollIntoViewIfNeeded();
   const box = (await key.boundingBox())!;
@@ -130,6 +132,7 @@ async function tapsSideBySide(pad: Page, floor: Page): Promise<{ pad: number[]; 
   for (let taps = 0; taps < TAPS;) {
     const archers = await pad.getByRole('tab').count();
     for (let a = 0; a < archers && taps < TAPS; a += 1) {
+      await pad.bringToFront();
       await pad.getByRole('tab').nth(a).click();
       for (const v of values) {
         await tap(pad, `Arrow ${v}`);
@@ -137,6 +140,7 @@ async function tapsSideBySide(pad: Page, floor: Page): Promise<{ pad: number[]; 
         taps += 1;
       }
     }
+    await pad.bringToFront();
     await pad.getByRole('button', { name: 'Next end' }).click();
   }
   await pad.waitForTimeout(500);
