@@ -3,6 +3,7 @@ import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { VitePWA } from 'vite-plugin-pwa';
 import pkg from './package.json' with { type: 'json' };
+import { precompress } from './scripts/precompress';
 
 export default defineConfig({
   define: {
@@ -34,6 +35,8 @@ export default defineConfig({
           { src: '/icons/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
         ],
       },
+      // The service worker is written before the files are precompressed, so it gets its copies too.
+      integration: { closeBundleOrder: 'pre' },
       workbox: {
         // The first install takes control at once so a phone that loses signal right after
         // opening the app still has it; later versions wait for the person's go-ahead.
@@ -46,6 +49,7 @@ export default defineConfig({
         navigateFallbackDenylist: [/^\/api\//, /^\/\.well-known\//, /^\/files\//],
       },
     }),
+    precompress(),
   ],
   resolve: {
     // Dexie's package entry wraps its ES5 build; its ES module build for modern browsers is ~2 KiB gzip smaller.

@@ -1,34 +1,37 @@
 /**
- * Prints, for each route, the JavaScript a phone downloads on first load of that route, as the
- * gzip bytes served: the entry chunk and its static imports, the app's layout (sync loop, phone
- * database) for every route but the public results pages, the route's lazy chunk and its static
- * imports, and the query cache's chunk for screens that read server data.
+ * Prints, for each route, the bytes on the wire a phone downloads on first load of that route: the
+ * entry chunk and its static imports, the app's layout (sync loop, phone database) for every route
+ * but the public results pages, the route's lazy chunk and its static imports, the query cache's
+ * chunk for screens that read server data, and their CSS. Each file counts as the server sends it:
+ * its brotli copy (what Chromium gets), beside it the gzip copy (for browsers without brotli), or the
+ * file itself when the build wrote no copy (scripts/precompress.ts).
  */
-import { readFileSync } from 'node:fs';
-import { gzipSync } from 'node:zlib';
+import { existsSync, statSync } from 'node:fs';
 import { join } from 'node:path';
+import { entryKeyOf, readViteManifest, staticClosure } from '../server/http/viteManifest';
 
-type Chunk = { file: string; src?: string; isEntry?: boolean; imports?: string[]; dynamicImports?: string[] };
 const dist = 'dist';
-const manifest = JSON.parse(readFileSync(join(dist, '.vite', 'manifest.json'), 'utf8')) as Record<
-  string,
-  Chunk
->;
+const built = readViteManifest(dist);
+if (!built) throw new Error('No Vite manifest in dist/: run `npx vite build` first.');
+const manifest = built;
 
-function closure(keys: string[], seen = new Set<string>()): Set<string> {
-  for (const key of keys) {
-    if (seen.has(key)) continue;
-    seen.add(key);
-    closure(manifest[key]?.imports ?? [], seen);
-  }
-  return seen;
+const closure = (keys: string[], seen?: Set<string>) => staticClosure(manifest, keys, seen);
+
+function servedBytes(file: string, copy: 'br' | 'gz'): number {
+  const path = join(dist, file);
+  return statSync(existsSync(`${path}.${copy}`) ? `${path}.${copy}` : path).size;
 }
 
-const gzipKiB = (files: Set<string>) =>
-  [...files].reduce((sum, key) => sum + gzipSync(readFileSync(join(dist, manifest[key]!.file))).length, 0) /
-  1024;
+function wire(keys: Set<string>): { br: number; gz: number } {
+  const files = [...keys].flatMap((key) => [manifest[key]!.file, ...(manifest[key]!.css ?? [])]);
+  const unique = [...new Set(files)];
+  return {
+    br: unique.reduce((sum, f) => sum + servedBytes(f, 'br'), 0),
+    gz: unique.reduce((sum, f) => sum + servedBytes(f, 'gz'), 0),
+  };
+}
 
-const entryKey = Object.keys(manifest).find((k) => manifest[k]!.isEntry && k.endsWith('index.html'));
+const entryKey = entryKeyOf(manifest);
 if (!entryKey) throw new Error('No entry chunk in the Vite manifest.');
 const shell = closure([entryKey]);
 
@@ -41,7 +44,7 @@ const PUBLIC_SCREENS = [
   'src/features/results/ResultsScreen.tsx',
   'src/features/results/FieldResultsScreen.tsx',
 ];
-/** Goals for a route's first load, KiB gzip. */
+/** Goals for a route's first load, KiB gzip (the font and icons come after the first paint). */
 const GOALS: Record<string, number> = {
   'features/pad/PadScreen': 130,
   'features/results/ResultsScreen': 110,
@@ -52,8 +55,8 @@ const queryLibrary = [...closure([SERVER_DATA], new Set(shell))].filter(
   (k) => !shell.has(k) && !layout.has(k) && k !== SERVER_DATA,
 );
 
-export function routeSizes(): { route: string; kib: number }[] {
-  const rows = [{ route: '(app shell)', kib: gzipKiB(shell) }];
+export function routeSizes(): { route: string; br: number; gz: number }[] {
+  const rows = [{ route: '(app shell)', ...wire(shell) }];
   const screens = (manifest[entryKey!]!.dynamicImports ?? []).filter(
     (k) => k.startsWith('src/') && k !== SERVER_DATA && k !== APP_LAYOUT,
   );
@@ -62,14 +65,17 @@ export function routeSizes(): { route: string; kib: number }[] {
     // A screen that uses the query library is one lazyScreen opens with the query cache.
     if (queryLibrary.some((k) => files.has(k))) closure([SERVER_DATA], files);
     const name = key.replace(/^src\//, '').replace(/\.tsx?$/, '');
-    rows.push({ route: name, kib: gzipKiB(files) });
+    rows.push({ route: name, ...wire(files) });
   }
   return rows;
 }
 
-console.log('\nFirst-load JavaScript per route (gzip, shell included):');
+const kib = (bytes: number) => `${(bytes / 1024).toFixed(1).padStart(6)} KiB`;
+console.log('\nFirst load per route, bytes on the wire (JavaScript and CSS, shell included):');
+console.log('     brotli        gzip  route');
 for (const row of routeSizes()) {
   const goal = GOALS[row.route];
-  const verdict = goal === undefined ? '' : `  (goal ≤ ${goal} KiB ${row.kib <= goal ? 'met' : 'NOT met'})`;
-  console.log(`  ${row.kib.toFixed(1).padStart(7)} KiB  ${row.route}${verdict}`);
+  const verdict =
+    goal === undefined ? '' : `  (goal ≤ ${goal} KiB gzip: ${row.gz <= goal * 1024 ? 'met' : 'NOT met'})`;
+  console.log(`  ${kib(row.br)}  ${kib(row.gz)}  ${row.route}${verdict}`);
 }

@@ -10,6 +10,7 @@ import { securityHeaders } from './http/security';
 import { checkBodyShape } from './http/bodyShape';
 import { noStore } from './http/noStore';
 import { clientFiles } from './http/clientFiles';
+import { compressAnswers } from './http/compressAnswers';
 import { routeNotFound, errorHandler } from './http/errorHandler';
 import { requireUser } from './auth/requireUser';
 import { BCRYPT_COST } from './auth/passwords';
@@ -78,6 +79,7 @@ export function createApp(deps: AppDeps): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', deps.trustProxy ?? false);
   app.use(securityHeaders);
+  app.use(compressAnswers);
   if (deps.logRequests) app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));
 
   const api = express.Router();

@@ -14,16 +14,40 @@ function groupBy<T>(rows: T[], key: (row: T) => string): Map<string, T[]> {
 const WHOLE_SESSION_FROM = 16;
 
 /**
+ * The ends built on earlier reads, by end key, with the inputs each was built from: an end whose
+ * rows read the same is handed back as the same object, so a screen redraws only the ends a
+ * change touched (a tap changes one end; every end is read again after it).
+ */
+export type EndCache = Map<string, { inputs: string; end: LocalEnd }>;
+
+function reused(
+  cache: EndCache | undefined,
+  key: string,
+  inputs: unknown[],
+  build: () => LocalEnd,
+): LocalEnd {
+  if (!cache) return build();
+  const read = JSON.stringify(inputs);
+  const hit = cache.get(key);
+  if (hit?.inputs === read) return hit.end;
+  const end = build();
+  cache.set(key, { inputs: read, end });
+  return end;
+}
+
+/**
  * Every end of the given targets' archers as this phone knows it: the server's records, the
  * judges' records, and this person's waiting changes on top. Also this person's refused changes,
- * and those the server holds for a judge (they arrived after the session closed).
+ * and those the server holds for a judge (they arrived after the session closed), and the
+ * number of this person's changes on these targets not sent yet.
  */
 export async function loadSessionEnds(
   db: LocalDb,
   sessionId: number,
   userId: number,
   targets: JoinedTarget[],
-): Promise<{ ends: Map<string, LocalEnd>; rejected: OutboxRow[]; held: OutboxRow[] }> {
+  cache?: EndCache,
+): Promise<{ ends: Map<string, LocalEnd>; rejected: OutboxRow[]; held: OutboxRow[]; unsent: number }> {
   // Only these targets' ends are read: a writer's pad must not slow down as the whole field fills up.
   const endKeys = targets.flatMap((target) =>
     target.archers.flatMap((archer) =>
@@ -49,8 +73,10 @@ export async function loadSessionEnds(
       .where('status')
       .equals(status)
       .toArray()
-      .then((rows) => rows.filter((r) => r.userId === userId && wanted.has(r.endKey)));
-  const [records, settlements, pending, held, rejected, rulings, signatures] = await db.transaction(
+      .then((rows) =>
+        rows.filter((r) => r.userId === userId && prefixes.some((p) => r.endKey.startsWith(p))),
+      );
+  const [records, settlements, unsent, heldHere, rejectedHere, rulings, signatures] = await db.transaction(
     'r',
     [db.endRecords, db.settlements, db.outbox, db.rulings, db.endSignatures],
     () =>
@@ -64,6 +90,9 @@ export async function loadSessionEnds(
         byArcher(db.endSignatures),
       ]),
   );
+  // Card signatures (session:entry:card) count as unsent but belong to no end.
+  const ofEnds = (rows: OutboxRow[]) => rows.filter((r) => wanted.has(r.endKey));
+  const [pending, held, rejected] = [ofEnds(unsent), ofEnds(heldHere), ofEnds(rejectedHere)];
   const recordsByEnd = groupBy(records, (r) => r.endKey);
   const settlementByEnd = new Map(settlements.map((s) => [s.endKey, s]));
   const rulingsByEnd = groupBy(rulings, (r) => r.endKey);
@@ -71,13 +100,16 @@ export async function loadSessionEnds(
   const waitingByEnd = groupBy([...pending, ...held], (m) => m.endKey);
   const ends = new Map<string, LocalEnd>();
   for (const key of endKeys) {
+    const records = recordsByEnd.get(key) ?? [];
+    const settlement = settlementByEnd.get(key);
+    const waiting = waitingByEnd.get(key) ?? [];
+    const judged = { rulings: rulingsByEnd.get(key) ?? [], signatures: signaturesByEnd.get(key) ?? [] };
     ends.set(
       key,
-      localEnd(recordsByEnd.get(key) ?? [], settlementByEnd.get(key), waitingByEnd.get(key) ?? [], {
-        rulings: rulingsByEnd.get(key) ?? [],
-        signatures: signaturesByEnd.get(key) ?? [],
-      }),
+      reused(cache, key, [records, settlement, waiting, judged], () =>
+        localEnd(records, settlement, waiting, judged),
+      ),
     );
   }
-  return { ends, rejected, held };
+  return { ends, rejected, held, unsent: unsent.length };
 }

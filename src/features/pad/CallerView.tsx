@@ -1,5 +1,6 @@
 import { useEffect, useRef, useState } from 'react';
-import { endView, endsOfRound, sortEnd, type ArrowValue } from '../../core';
+import { endsOfRound, sortEnd, type ArrowValue } from '../../core';
+import { padEndView } from './padEndView';
 import { endKeyOf, localDb, type JoinedTarget } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
 import { recordChange } from '../../local/outbox';
@@ -28,7 +29,7 @@ function SettleEnd({
   local: LocalEnd;
 }) {
   const archer = target.archers[archerIndex]!;
-  const view = endView(local.facts);
+  const view = padEndView(local);
   const [choices, setChoices] = useState<Record<number, Choice>>({});
   const { save, problem } = useLocalSave();
   const first = local.slots[1];
@@ -162,7 +163,7 @@ export function CallerView({
 }) {
   const rows = target.archers.map((archer, archerIndex) => {
     const local = ends.get(endKeyOf(target.session.id, archer.entryId, endIndex));
-    return { archer, archerIndex, local, view: local ? endView(local.facts) : undefined };
+    return { archer, archerIndex, local, view: local ? padEndView(local) : undefined };
   });
   const mismatches = rows.filter((r) => r.view?.state === 'mismatch');
   const announcement = useMismatchAlert(

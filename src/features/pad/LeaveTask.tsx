@@ -1,27 +1,22 @@
 import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
-import { useLiveQuery } from 'dexie-react-hooks';
 import { apiRequest, messageOf } from '../../api/request';
-import { cardKeyOf, localDb, type JoinedTarget } from '../../local/db';
+import { localDb, type JoinedTarget } from '../../local/db';
 import { useOnline } from '../../local/online';
 import { TASK_LABELS } from '../../ui/scorecard/taskNames';
-
-/** This person's changes on the target that have not reached the server yet. */
-export function useUnsynced(target: JoinedTarget): number | undefined {
-  return useLiveQuery(async () => {
-    const prefixes = target.archers.map((a) => `${cardKeyOf(target.session.id, a.entryId)}:`);
-    const pending = await localDb().outbox.where('status').equals('pending').toArray();
-    return pending.filter((r) => r.userId === target.userId && prefixes.some((p) => r.endKey.startsWith(p)))
-      .length;
-  }, [target.key]);
-}
 
 /**
  * Leaves the task on this target so someone else can take it. Not while this phone still holds
  * changes the server has not got: leaving would cut them off from the target.
  */
-export function LeaveTask({ target }: { target: JoinedTarget }) {
-  const unsynced = useUnsynced(target);
+export function LeaveTask({
+  target,
+  unsent,
+}: {
+  target: JoinedTarget;
+  /** This person's changes on the target that have not reached the server yet (from the pad's read). */
+  unsent: number;
+}) {
   const online = useOnline();
   const navigate = useNavigate();
   const [asking, setAsking] = useState(false);
@@ -51,11 +46,11 @@ export function LeaveTask({ target }: { target: JoinedTarget }) {
       <h2 id="leave-task" className="font-bold">
         Leave {TASK_LABELS[target.task].toLowerCase()} on target {target.targetNumber}
       </h2>
-      {unsynced ? (
+      {unsent ? (
         <p role="status" className="font-bold text-caution-ink">
           <span aria-hidden="true">▲ </span>
-          {unsynced === 1 ? '1 change has' : `${unsynced} changes have`} not reached the event server yet.
-          Leave once they are sent (or save them as a file for a judge), so nothing is lost.
+          {unsent === 1 ? '1 change has' : `${unsent} changes have`} not reached the event server yet. Leave
+          once they are sent (or save them as a file for a judge), so nothing is lost.
         </p>
       ) : asking ? (
         <div role="group" aria-label="Leave this target?" className="space-y-2">
@@ -82,7 +77,6 @@ export function LeaveTask({ target }: { target: JoinedTarget }) {
       ) : (
         <button
           type="button"
-          disabled={unsynced === undefined}
           onClick={() => setAsking(true)}
           className="min-h-14 rounded-lg border-2 border-ink bg-card px-5 text-lg font-bold text-ink"
         >

@@ -1,7 +1,9 @@
-import { useState } from 'react';
+import { memo, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import { endView, endsOfRound } from '../../core';
+import { endsOfRound } from '../../core';
+import { padEndView } from './padEndView';
 import { endKeyOf, type JoinedTarget } from '../../local/db';
+import type { WriterSlot } from '../../contract/fieldTerms';
 import type { LocalEnd } from '../../local/endFacts';
 import { SafetyNote } from '../../ui/SafetyNote';
 import { useMe } from '../../local/me';
@@ -32,7 +34,7 @@ function firstOpenEnd(target: JoinedTarget, ends: Map<string, LocalEnd>): number
       const local = ends.get(endKeyOf(target.session.id, a.entryId, endIndex));
       const perEnd = endsOfRound(a.round)[endIndex]?.arrows ?? 0;
       if (slot && (local?.slots[slot]?.arrows.length ?? 0) < perEnd) return true;
-      const state = local ? endView(local.facts).state : 'open';
+      const state = local ? padEndView(local).state : 'open';
       // A flagged arrow still needs the target's attention (and a judge), even on agreed cards.
       if (openFlags(local).length > 0) return true;
       return state !== 'agreed' && state !== 'settled' && state !== 'signed';
@@ -42,14 +44,66 @@ function firstOpenEnd(target: JoinedTarget, ends: Map<string, LocalEnd>): number
   return count - 1;
 }
 
+/**
+ * One archer's tab: redrawn only when its own end changes (a tap on another archer's end keeps
+ * this end's object, see usePadData) or it is selected.
+ */
+const ArcherTab = memo(function ArcherTab({
+  index,
+  position,
+  firstName,
+  local,
+  slot,
+  perEnd,
+  selected,
+  onSelect,
+}: {
+  index: number;
+  position: string;
+  firstName: string;
+  local: LocalEnd | undefined;
+  slot: WriterSlot;
+  perEnd: number;
+  selected: boolean;
+  onSelect: (index: number) => void;
+}) {
+  const label = endLabel(local && padEndView(local));
+  const flagged = openFlags(local).length > 0;
+  const count = local?.slots[slot]?.arrows.length ?? 0;
+  return (
+    <button
+      type="button"
+      role="tab"
+      aria-selected={selected}
+      onClick={() => onSelect(index)}
+      className={`min-h-16 rounded-lg border-2 px-1 text-left ${selected ? 'border-ink bg-ink text-white' : 'border-line bg-card'}`}
+    >
+      <span className="block text-xl font-bold">{position}</span>
+      <span className="block truncate text-base">{firstName}</span>
+      <span className="block text-base">
+        <span aria-hidden="true">{label.mark}</span>
+        <span className="sr-only">{label.word}</span> {count}/{perEnd}
+        {flagged && (
+          <>
+            <span aria-hidden="true"> ⚑</span>
+            <span className="sr-only">, flagged for a judge</span>
+          </>
+        )}
+      </span>
+    </button>
+  );
+});
+
 function Pad({
   target,
   ends,
   rejected,
   held,
+  unsent,
 }: {
   target: JoinedTarget;
   ends: Map<string, LocalEnd>;
+  unsent: number;
   rejected: Parameters<typeof Rejections>[0]['rows'];
   held: Parameters<typeof HeldForJudge>[0]['rows'];
 }) {
@@ -82,7 +136,7 @@ function Pad({
           <span className="text-xl font-normal">· {TASK_LABELS[target.task]}</span>
         </h1>
       </header>
-      <TaskNotice target={target} />
+      <TaskNotice target={target} unsent={unsent} />
       <SafetyNote compact />
       <Rejections rows={rejected} target={target} />
       <HeldForJudge rows={held} target={target} />
@@ -114,36 +168,19 @@ function Pad({
       {slot ? (
         <>
           <div className="grid grid-cols-4 gap-2" role="tablist" aria-label="Archers in card order">
-            {target.archers.map((a, i) => {
-              const local = ends.get(endKeyOf(target.session.id, a.entryId, endIndex));
-              const label = endLabel(local && endView(local.facts));
-              const flagged = openFlags(local).length > 0;
-              const count = local?.slots[slot]?.arrows.length ?? 0;
-              const perEnd = endsOfRound(a.round)[endIndex]?.arrows ?? 0;
-              return (
-                <button
-                  key={a.entryId}
-                  type="button"
-                  role="tab"
-                  aria-selected={i === archerIndex}
-                  onClick={() => setArcherIndex(i)}
-                  className={`min-h-16 rounded-lg border-2 px-1 text-left ${i === archerIndex ? 'border-ink bg-ink text-white' : 'border-line bg-card'}`}
-                >
-                  <span className="block text-xl font-bold">{a.position}</span>
-                  <span className="block truncate text-base">{a.name.split(' ')[0]}</span>
-                  <span className="block text-base">
-                    <span aria-hidden="true">{label.mark}</span>
-                    <span className="sr-only">{label.word}</span> {count}/{perEnd}
-                    {flagged && (
-                      <>
-                        <span aria-hidden="true"> ⚑</span>
-                        <span className="sr-only">, flagged for a judge</span>
-                      </>
-                    )}
-                  </span>
-                </button>
-              );
-            })}
+            {target.archers.map((a, i) => (
+              <ArcherTab
+                key={a.entryId}
+                index={i}
+                position={a.position}
+                firstName={a.name.split(' ')[0] ?? ''}
+                local={ends.get(endKeyOf(target.session.id, a.entryId, endIndex))}
+                slot={slot}
+                perEnd={endsOfRound(a.round)[endIndex]?.arrows ?? 0}
+                selected={i === archerIndex}
+                onSelect={setArcherIndex}
+              />
+            ))}
           </div>
           <WriterPad
             target={target}
@@ -159,7 +196,7 @@ function Pad({
       )}
       {slot && <CardsToSignLink target={target} slot={slot} ends={ends} />}
       <SyncLine />
-      <LeaveTask target={target} />
+      <LeaveTask target={target} unsent={unsent} />
     </div>
   );
 }
@@ -194,6 +231,7 @@ export function PadScreen() {
       ends={data.ends}
       rejected={data.rejected}
       held={data.held}
+      unsent={data.unsent}
     />
   );
 }

@@ -1,14 +1,19 @@
 import { useNavigate } from 'react-router-dom';
 import { localDb, type JoinedTarget } from '../../local/db';
 import { Notice } from '../../ui/Notice';
-import { useUnsynced } from './LeaveTask';
 import { TASK_LABELS } from '../../ui/scorecard/taskNames';
 import { useServerTask } from './useServerTask';
 
 /** Says so when a judge or organizer changed this person's task on the target, or took them off it. */
-export function TaskNotice({ target }: { target: JoinedTarget }) {
+export function TaskNotice({
+  target,
+  unsent,
+}: {
+  target: JoinedTarget;
+  /** This person's changes on the target that have not reached the server yet (from the pad's read). */
+  unsent: number;
+}) {
   const found = useServerTask(target);
-  const unsynced = useUnsynced(target);
   const navigate = useNavigate();
   if (!found) return null;
   if (found.kind === 'changed')
@@ -32,15 +37,14 @@ export function TaskNotice({ target }: { target: JoinedTarget }) {
         and the server no longer takes values from you here. Join again with the code on the target sheet if
         you should keep a task.
       </Notice>
-      {unsynced ? (
+      {unsent ? (
         <p className="font-bold">
-          {unsynced === 1 ? '1 change' : `${unsynced} changes`} from this phone did not reach the server
-          first: save them as a file for a judge before removing the target.
+          {unsent === 1 ? '1 change' : `${unsent} changes`} from this phone did not reach the server first:
+          save them as a file for a judge before removing the target.
         </p>
       ) : (
         <button
           type="button"
-          disabled={unsynced === undefined}
           onClick={() => void remove()}
           className="min-h-14 rounded-lg border-2 border-ink bg-card px-5 text-lg font-bold text-ink"
         >

@@ -1,7 +1,6 @@
 import { useState } from 'react';
 import {
   cardTotals,
-  endView,
   endsOfRound,
   rulesForEnd,
   writerLock,
@@ -22,6 +21,7 @@ import { addArrow, flagArrow, removeArrow, type EditableEnd } from './endEdits';
 import { FLAG_LABELS, openFlags } from '../../ui/scorecard/endFlags';
 import { endLabel } from '../../ui/scorecard/endStateLabel';
 import { FlagNotes } from './FlagNotes';
+import { padEndView } from './padEndView';
 
 type Props = {
   target: JoinedTarget;
@@ -46,7 +46,7 @@ export function countedValues(
   local: LocalEnd | undefined,
   own: readonly ArrowValue[] | undefined,
 ): readonly ArrowValue[] | undefined {
-  const view = local && endView(local.facts);
+  const view = local && padEndView(local);
   return view?.arrows && view.decidedBy !== 'writers' ? view.arrows : own;
 }
 
@@ -72,7 +72,7 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
   // Once the store has caught up, show the store again (so a refused change visibly reverts).
   if (typed[key] && JSON.stringify(typed[key]) === JSON.stringify(stored)) setTyped(withoutKey(typed, key));
   const theirs = local?.slots[other(slot)];
-  const view = local ? endView(local.facts) : undefined;
+  const view = local ? padEndView(local) : undefined;
   const [undo, setUndo] = useState<Record<string, EditableEnd[]>>({});
   const [selected, setSelected] = useState<number>();
   const [notice, setNotice] = useState<{ tone: 'info' | 'error'; text: string }>();

@@ -1,7 +1,8 @@
+import { useState } from 'react';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { localDb, targetKeyOf, type JoinedTarget, type OutboxRow } from '../../local/db';
 import type { LocalEnd } from '../../local/endFacts';
-import { loadSessionEnds } from '../../local/sessionEnds';
+import { loadSessionEnds, type EndCache } from '../../local/sessionEnds';
 
 export type PadData = {
   target: JoinedTarget;
@@ -10,6 +11,8 @@ export type PadData = {
   rejected: OutboxRow[];
   /** Changes the server holds for a judge (they arrived after the session closed). */
   held: OutboxRow[];
+  /** This person's changes on the target not sent yet. */
+  unsent: number;
 };
 
 /** Everything the pad shows for one joined target, live from IndexedDB (works offline). */
@@ -18,6 +21,8 @@ export function usePadData(
   targetNumber: number,
   userId: number | undefined,
 ): PadData | null | undefined {
+  // Each tap reads every end again; the ends it did not change come back as the same objects.
+  const [cache] = useState<EndCache>(() => new Map());
   return useLiveQuery(() => {
     const db = localDb();
     // One read transaction per refresh: the next tap's write waits for every open one.
@@ -31,10 +36,16 @@ export function usePadData(
             ? undefined
             : await db.targets.get(targetKeyOf(userId, sessionId, targetNumber));
         if (!target) return null;
-        const { ends, rejected, held } = await loadSessionEnds(db, sessionId, target.userId, [target]);
+        const { ends, rejected, held, unsent } = await loadSessionEnds(
+          db,
+          sessionId,
+          target.userId,
+          [target],
+          cache,
+        );
         const entryIds = new Set(target.archers.map((a) => a.entryId));
         const onTarget = (rows: OutboxRow[]) => rows.filter((r) => entryIds.has(r.args.entryId));
-        return { target, ends, rejected: onTarget(rejected), held: onTarget(held) };
+        return { target, ends, rejected: onTarget(rejected), held: onTarget(held), unsent };
       },
     );
   }, [sessionId, targetNumber, userId]);

@@ -1,0 +1,212 @@
+/**
+ * The app as a mid-range phone on a weak signal sees it: Chromium (Pixel 7 viewport) with its CPU
+ * slowed 4× and its network at 1.6 Mbps down / 750 kbps up with 150 ms round trips, both set
+ * through the DevTools protocol.
+ * - Cold load (empty HTTP cache, no service worker; the phone has signed in and joined) of the pad
+ *   and of the home screen: largest contentful paint, budget ≤ 2.5 s.
+ * - Offline repeat load of the pad from the service worker: largest contentful paint, budget ≤ 1 s.
+ * - Tap → next paint on the pad's keys (Event Timing: an interaction's longest event, from the
+ *   input to the frame after its handlers), against a one-button page tapped the same way, each
+ *   pad tap followed by one there: budget p95 ≤ 1.5× the one-button page's.
+ * Needs a built client (`npm run build`) and Debian's Chromium. Figures are printed, never asserted.
+ */
+import { chromium, devices, type Browser, type BrowserContext, type Page } from '@playwright/test';
+import { chromiumArgs, chromiumPath } from '../tests/support/chromium';
+import { joinAsWriter, startBenchServer } from './support/fieldPhone';
+import { median, percentile } from './support/stats';
+
+const CPU_SLOWDOWN = 4;
+const WEAK_SIGNAL = {
+  offline: false,
+  latency: 150,
+  downloadThroughput: 1_600_000 / 8,
+  uploadThroughput: 750_000 / 8,
+};
+const LOADS = 3;
+const TAPS = 120;
+const TAP_PAUSE_MS = 250;
+
+async function slowDown(page: Page, network: boolean) {
+  const cdp = await page.context().newCDPSession(page);
+  await cdp.send('Emulation.setCPUThrottlingRate', { rate: CPU_SLOWDOWN });
+  await cdp.send('Network.enable');
+  if (network) await cdp.send('Network.emulateNetworkConditions', WEAK_SIGNAL);
+  return cdp;
+}
+
+/** The page's largest contentful paint (ms from navigation start), from its buffered entries. */
+function largestContentfulPaint(page: Page): Promise<number> {
+  return page.evaluate(
+    () =>
+      new Promise<number>((resolve) => {
+        new PerformanceObserver((list) => resolve(list.getEntries().at(-1)!.startTime)).observe({
+          type: 'largest-contentful-paint',
+          buffered: true,
+        } as unknown as ObserveOptions);
+      }),
+  );
+}
+
+/** Loads `url` `LOADS` times, each with an empty HTTP cache, and returns each load's LCP. */
+async function coldLoads(context: BrowserContext, url: string, ready: (page: Page) => Promise<void>) {
+  const lcps: number[] = [];
+  for (let i = 0; i < LOADS; i += 1) {
+    const page = await context.newPage();
+    const cdp = await slowDown(page, true);
+    await cdp.send('Network.clearBrowserCache');
+    await page.goto(url);
+    await ready(page);
+    await page.waitForLoadState('networkidle');
+    lcps.push(await largestContentfulPaint(page));
+    await page.close();
+  }
+  return lcps;
+}
+
+/** The page's own types, which this Node-typed file does not have (the DOM's event timing entries). */
+type TapEntry = {
+  interactionId?: number;
+  duration: number;
+  target?: { closest?: (s: string) => { ariaLabel: string | null } | null } | null;
+};
+type ObserveOptions = Parameters<InstanceType<typeof PerformanceObserver>['observe']>[0];
+type WithTaps = { tapPaints: Map<number, number> };
+
+/** Starts collecting, per tap on a matching element, its longest event's duration (tap → next paint). */
+async function watchTaps(page: Page, labelStart: string) {
+  await page.evaluate((start) => {
+    const longest = new Map<number, number>();
+    (globalThis as unknown as WithTaps).tapPaints = longest;
+    new PerformanceObserver((list) => {
+      for (const e of list.getEntries() as unknown as TapEntry[]) {
+        const label = e.target?.closest?.('button')?.ariaLabel ?? '';
+        if (!e.interactionId || !label.startsWith(start)) continue;
+        longest.set(e.interactionId, Math.max(longest.get(e.interactionId) ?? 0, e.duration));
+      }
+    }).observe({
+      type: 'event',
+      durationThreshold: 16,
+      buffered: true,
+    } as unknown as ObserveOptions);
+  }, labelStart);
+}
+const tapPaints = (page: Page) =>
+  page.evaluate(() => [...(globalThis as unknown as WithTaps).tapPaints.values()]);
+
+async function tap(page: Page, name: string) {
+  // A tab in the background gets no input: the page tapped is the one in front, as on a phone.
+  await page.bringToFront();
+  const key = page.getByRole('button', { name, exact: true });
+  await key.scrollIntoViewIfNeeded();
+  const box = (await key.boundingBox())!;
+  await page.touchscreen.tap(box.x + box.width / 2, box.y + box.height / 2);
+  await page.waitForTimeout(TAP_PAUSE_MS);
+}
+
+/** A page with one button that counts its taps: the floor this browser and throttle set. */
+const ONE_BUTTON_PAGE = `<!doctype html><meta name="viewport" content="width=device-width">
+<button aria-label="Tap me" style="font-size:32px;padding:24px">Tapped 0</button>
+<script>let n = 0; const b = document.querySelector('button');
+b.addEventListener('click', () => { n += 1; b.textContent = 'Tapped ' + n; });</script>`;
+
+/** The one-button page, open beside the pad, slowed and watched the same way. */
+async function oneButtonPage(context: BrowserContext, base: string): Promise<Page> {
+  const page = await context.newPage();
+  await page.route(`${base}/bench/one-button`, (route) =>
+    route.fulfill({ contentType: 'text/html', body: ONE_BUTTON_PAGE }),
+  );
+  await page.goto(`${base}/bench/one-button`);
+  await slowDown(page, false);
+  await watchTaps(page, 'Tap me');
+  return page;
+}
+
+/**
+ * Taps the pad's keys as a writer enters ends, each tap followed by one on the one-button page,
+ * so a burst of load from elsewhere on the machine weighs on both alike.
+ */
+async function tapsSideBySide(pad: Page, floor: Page): Promise<{ pad: number[]; floor: number[] }> {
+  await slowDown(pad, false);
+  await watchTaps(pad, 'Arrow ');
+  const values = ['X', '10', '9', '9', '8', '7'];
+  for (let taps = 0; taps < TAPS;) {
+    const archers = await pad.getByRole('tab').count();
+    for (let a = 0; a < archers && taps < TAPS; a += 1) {
+      await pad.bringToFront();
+      await pad.getByRole('tab').nth(a).click();
+      for (const v of values) {
+        await tap(pad, `Arrow ${v}`);
+        await tap(floor, 'Tap me');
+        taps += 1;
+      }
+    }
+    await pad.bringToFront();
+    await pad.getByRole('button', { name: 'Next end' }).click();
+  }
+  await pad.waitForTimeout(500);
+  return { pad: await tapPaints(pad), floor: await tapPaints(floor) };
+}
+
+async function offlineRepeat(browser: Browser, server: Awaited<ReturnType<typeof startBenchServer>>) {
+  const context = await browser.newContext({ ...devices['Pixel 7'] });
+  const page = await context.newPage();
+  await joinAsWriter(page, server, 21, 6);
+  // Installed and precached, then the phone loses its signal.
+  await page.evaluate(() =>
+    (
+      globalThis as unknown as { navigator: { serviceWorker: { ready: Promise<unknown> } } }
+    ).navigator.serviceWorker.ready.then(() => undefined),
+  );
+  const padUrl = page.url();
+  await context.setOffline(true);
+  const lcps: number[] = [];
+  for (let i = 0; i < LOADS; i += 1) {
+    const repeat = await context.newPage();
+    await slowDown(repeat, false);
+    await repeat.goto(padUrl);
+    await repeat.getByTestId('end-number').waitFor();
+    await repeat.waitForTimeout(500);
+    lcps.push(await largestContentfulPaint(repeat));
+    await repeat.close();
+  }
+  await context.close();
+  return lcps;
+}
+
+const server = await startBenchServer(4474, '.tmp/bench-slow-phone');
+try {
+  const browser = await chromium.launch({ executablePath: chromiumPath(), args: chromiumArgs });
+  // Cold loads and taps without a service worker: every file comes over the (slowed) network.
+  const context = await browser.newContext({ ...devices['Pixel 7'], serviceWorkers: 'block' });
+  const page = await context.newPage();
+  await joinAsWriter(page, server, 20, 5);
+  const padUrl = page.url();
+
+  const s = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
+  const loads = (label: string, lcps: number[], budgetMs: number) =>
+    console.log(
+      `${label}: LCP median ${s(median(lcps))}, worst ${s(Math.max(...lcps))} over ${lcps.length} loads (budget ≤ ${s(budgetMs)})`,
+    );
+  console.log(
+    `CPU ${CPU_SLOWDOWN}× slower; network 1.6 Mbps down, 750 kbps up, ${WEAK_SIGNAL.latency} ms round trip.`,
+  );
+  loads('cold pad', await coldLoads(context, padUrl, (p) => p.getByTestId('end-number').waitFor()), 2500);
+  loads(
+    'cold home (signed in)',
+    await coldLoads(context, `${server.base}/`, (p) => p.getByTestId('signed-in-name').waitFor()),
+    2500,
+  );
+  loads('offline repeat pad (service worker)', await offlineRepeat(browser, server), 1000);
+
+  const { pad, floor } = await tapsSideBySide(page, await oneButtonPage(context, server.base));
+  const figures = (ms: number[]) =>
+    `p50 ${percentile(ms, 50).toFixed(0)} ms, p95 ${percentile(ms, 95).toFixed(0)} ms, max ${Math.max(...ms).toFixed(0)} ms (${ms.length} taps)`;
+  console.log(`tap → next paint, one-button page: ${figures(floor)}`);
+  console.log(`tap → next paint, pad arrow keys: ${figures(pad)}`);
+  console.log(
+    `pad p95 / one-button p95 = ${(percentile(pad, 95) / percentile(floor, 95)).toFixed(2)} (budget ≤ 1.5)`,
+  );
+  await browser.close();
+} finally {
+  server.child.kill('SIGTERM');
+}
