@@ -1,6 +1,10 @@
 import { QueryClient, defaultShouldDehydrateQuery } from '@tanstack/react-query';
 import { createSyncStoragePersister } from '@tanstack/query-sync-storage-persister';
-import type { PersistQueryClientOptions, Persister } from '@tanstack/react-query-persist-client';
+import type {
+  PersistQueryClientOptions,
+  PersistedClient,
+  Persister,
+} from '@tanstack/react-query-persist-client';
 import { ApiError } from '../api/request';
 import { onOwnerChange, phoneOwner } from '../local/phoneOwner';
 
@@ -26,14 +30,37 @@ export const queryClient = new QueryClient({
   },
 });
 
-// What is in memory belongs to the person who signed in last; another person starts empty.
-onOwnerChange(() => queryClient.clear());
-
-const saved = createSyncStoragePersister({ storage: window.localStorage, key: 'ringcall.query-cache' });
+const STORAGE_KEY = 'ringcall.query-cache';
+const saved = createSyncStoragePersister({ storage: window.localStorage, key: STORAGE_KEY });
 /** The saved copy names its person in its buster (stamped when it is taken, not when written later). */
 const personal = (buster: string) => `${buster}|${phoneOwner() ?? 'nobody'}`;
+/** The newest copy handed to the (throttled) writer and not yet known to be written. */
+let unwritten: PersistedClient | undefined;
+// A reload, a closed tab or a phone putting the browser away must not lose the last second's
+// answers (a signed card would come back unsigned offline): write the newest copy at once.
+const writeNow = () => {
+  if (!unwritten) return;
+  try {
+    window.localStorage.setItem(STORAGE_KEY, JSON.stringify(unwritten));
+  } catch {
+    // Storage full: the throttled writer's copy (or none) stays; the screens ask the server again.
+  }
+  unwritten = undefined;
+};
+// What is in memory belongs to the person who signed in last; another person starts empty.
+onOwnerChange(() => {
+  unwritten = undefined;
+  queryClient.clear();
+});
+window.addEventListener('pagehide', writeNow);
+document.addEventListener('visibilitychange', () => {
+  if (document.visibilityState === 'hidden') writeNow();
+});
 const personBound: Persister = {
-  persistClient: (client) => saved.persistClient({ ...client, buster: personal(client.buster) }),
+  persistClient: (client) => {
+    unwritten = { ...client, buster: personal(client.buster) };
+    return saved.persistClient(unwritten);
+  },
   restoreClient: async () => {
     const client = await saved.restoreClient();
     if (client?.buster === personal(__APP_VERSION__)) return { ...client, buster: __APP_VERSION__ };
@@ -41,7 +68,10 @@ const personBound: Persister = {
     if (client) await saved.removeClient();
     return undefined;
   },
-  removeClient: saved.removeClient,
+  removeClient: () => {
+    unwritten = undefined;
+    return saved.removeClient();
+  },
 };
 
 export const persistOptions: Omit<PersistQueryClientOptions, 'queryClient'> = {
