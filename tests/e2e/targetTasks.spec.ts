@@ -6,7 +6,7 @@ import { joinTarget, phoneOf } from './support/fieldPhones';
 import { signedInPhone } from './support/signIn';
 
 /** A demo target no other browser test scores. */
-const TARGET = 5;
+const TARGET = 6;
 const END = ['10', '9', '9', '8', '7', '6'];
 const MISHEARD = ['10', '9', '9', '8', '7', '5'];
 
