@@ -15,7 +15,7 @@ export function BracketsScreen() {
       <header className="space-y-1">
         <h1 className="text-3xl font-bold leading-tight">Eliminations</h1>
         <p>
-          <Link className="font-bold underline" to={`/results/${eventId}`}>
+          <Link className="inline-flex min-h-12 items-center font-bold underline" to={`/results/${eventId}`}>
             Qualification standings
           </Link>
         </p>

@@ -184,7 +184,10 @@ function Card({ sessionId, entryId, userId }: { sessionId: number; entryId: numb
         </ul>
       )}
       {c.final && c.signatures[0] && (
-        <Link to={`/verify?sig=${encodeURIComponent(c.signatures[0].jws)}`} className="font-bold underline">
+        <Link
+          to={`/verify?sig=${encodeURIComponent(c.signatures[0].jws)}`}
+          className="inline-flex min-h-12 items-center font-bold underline"
+        >
           Check this card's signature
         </Link>
       )}

@@ -263,7 +263,7 @@ export function ShootOffsScreen() {
   return (
     <div className="space-y-4">
       <h1 className="text-3xl font-bold">Shoot-offs</h1>
-      <Link to={`/desk/${eventId}`} className="font-bold underline">
+      <Link to={`/desk/${eventId}`} className="inline-flex min-h-12 items-center font-bold underline">
         ◂ Judge desk
       </Link>
       <RequireSignIn>

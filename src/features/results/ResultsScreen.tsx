@@ -25,18 +25,32 @@ export function ResultsScreen() {
                 {!results.event.published && ' · not published yet: only the event’s people see this'}
               </p>
               <p className="flex flex-wrap gap-x-4">
-                <Link className="font-bold underline" to={`/results/${eventId}/field`}>
+                <Link
+                  className="inline-flex min-h-12 items-center font-bold underline"
+                  to={`/results/${eventId}/field`}
+                >
                   Field screen
                 </Link>
-                <Link className="font-bold underline" to={`/results/${eventId}/brackets`}>
+                <Link
+                  className="inline-flex min-h-12 items-center font-bold underline"
+                  to={`/results/${eventId}/brackets`}
+                >
                   Eliminations
                 </Link>
                 {results.event.published && (
                   <>
-                    <a className="font-bold underline" href={`/api/results/${eventId}/pdf`} download>
+                    <a
+                      className="inline-flex min-h-12 items-center font-bold underline"
+                      href={`/api/results/${eventId}/pdf`}
+                      download
+                    >
                       Print (PDF)
                     </a>
-                    <a className="font-bold underline" href={`/api/results/${eventId}/csv`} download>
+                    <a
+                      className="inline-flex min-h-12 items-center font-bold underline"
+                      href={`/api/results/${eventId}/csv`}
+                      download
+                    >
                       Download CSV
                     </a>
                   </>
@@ -70,7 +84,7 @@ export function ResultsScreen() {
                     </h3>
                     {results.event.published && (
                       <a
-                        className="font-bold underline"
+                        className="inline-flex min-h-12 items-center font-bold underline"
                         href={`/api/results/${eventId}/pdf?division=${division.divisionId}`}
                         download
                       >

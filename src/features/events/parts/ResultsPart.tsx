@@ -73,10 +73,13 @@ function ResultsSettingsForm({ summary, results }: { summary: EventSummary; resu
           Publish the results
         </label>
         <p className="flex flex-wrap gap-x-4">
-          <Link className="font-bold underline" to={`/results/${eventId}`}>
+          <Link className="inline-flex min-h-12 items-center font-bold underline" to={`/results/${eventId}`}>
             Open the results page
           </Link>
-          <Link className="font-bold underline" to={`/results/${eventId}/field`}>
+          <Link
+            className="inline-flex min-h-12 items-center font-bold underline"
+            to={`/results/${eventId}/field`}
+          >
             Field screen
           </Link>
         </p>
