@@ -9,7 +9,7 @@ import {
 import type { MatchDto, MatchEndArgs, MatchShootOffArgs } from '../../contract/matches';
 import type { OutboxRow } from '../../local/db';
 
-/** One end of the match card as the judge's phone shows it: the server's copy or this phone's waiting change. */
+/** One end of the match card as the judge's phone shows it: the server's copy or this phone's own change. */
 export type CardEnd = {
   a: MatchDto['ends'][number]['a'];
   b: MatchDto['ends'][number]['b'];
@@ -43,16 +43,21 @@ export function matchCard(match: MatchDto, format: MatchFormat, rows: readonly O
   let shootOffWaiting = false;
   let signed: MatchCardView['signed'] = match.signedAt ? 'server' : null;
   for (const row of matchRowsOf(rows, match.id)) {
-    if (row.status !== 'pending') continue;
+    // A delivered change counts until the server's copy shows it: the copy may be from before it
+    // arrived (it is asked for again once the change is delivered).
+    const pending = row.status === 'pending';
+    if (!pending && row.status !== 'applied') continue;
     if (row.kind === 'match.end') {
       const args = row.args as MatchEndArgs;
-      ends[args.endIndex] = { a: args.a, b: args.b, waiting: true };
+      if (pending || args.endIndex >= match.ends.length)
+        ends[args.endIndex] = { a: args.a, b: args.b, waiting: pending };
     } else if (row.kind === 'match.shootoff') {
+      if (!pending && match.shootOff.a && match.shootOff.b) continue;
       const args = row.args as MatchShootOffArgs;
       shootOff.a = args.a;
       shootOff.b = args.b;
-      shootOffWaiting = true;
-    } else if (row.kind === 'match.sign' && !signed) signed = 'waiting';
+      shootOffWaiting = pending;
+    } else if (row.kind === 'match.sign' && !signed) signed = pending ? 'waiting' : 'server';
   }
   const filled = ends.filter(Boolean);
   let state: MatchState | null = null;
