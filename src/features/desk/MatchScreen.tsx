@@ -91,7 +91,7 @@ function EndsTable({
     <table className="w-full border-collapse text-left" data-testid="match-ends">
       <caption className="sr-only">Ends of the match</caption>
       <thead>
-        <tr className="border-b-2 border-line">
+        <tr className="border-b-2 border-line [&>th]:px-1 [&>th]:align-bottom">
           <th scope="col">{format === 'sets' ? 'Set' : 'End'}</th>
           <th scope="col">{nameOf(match, 'a')}</th>
           <th scope="col">{nameOf(match, 'b')}</th>
@@ -105,19 +105,24 @@ function EndsTable({
           const points = card.state?.ends[i]?.setPoints;
           return (
             <tr key={i} className="border-b border-line" data-testid={`match-end-${i + 1}`}>
-              <th scope="row">{i + 1}</th>
+              <th scope="row" className="px-1 py-1 align-top">
+                {i + 1}
+              </th>
               {SIDES.map((side) => (
-                <td key={side}>
-                  {end[side].join(' ')} = <span className="font-bold">{sum(end[side])}</span>
-                  {points && <span> · {points[side]} pt</span>}
+                <td key={side} className="px-1 py-1 align-top">
+                  <span className="block whitespace-nowrap">{end[side].join(' ')}</span>
+                  <span className="block">
+                    = <span className="font-bold">{sum(end[side])}</span>
+                    {points && ` · ${points[side]} pt`}
+                  </span>
                 </td>
               ))}
-              <td>
+              <td className="px-1 py-1 align-top">
                 {end.waiting ? '▲ waiting to sync' : '✓ synced'}
                 {onCorrect && (
                   <button
                     type="button"
-                    className="ml-2 min-h-11 min-w-11 rounded-lg border-2 border-ink px-2 font-bold"
+                    className="mt-1 block min-h-11 min-w-11 rounded-lg border-2 border-ink px-2 font-bold"
                     onClick={() => onCorrect(i)}
                     aria-label={`Correct end ${i + 1}`}
                   >
