@@ -3,8 +3,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { roundEndCount, getRound, type ArrowValue } from '../../src/core';
 import type { BracketDto, MatchDto } from '../../src/contract/matches';
-import { nowIso } from '../../server/time';
-import { setUpField, type Field } from './support/fieldSetup';
+import { setUpField, writeAgreedEnds, type Field } from './support/fieldSetup';
 import { giveRole, makeEvent, makePerson, type TestPerson } from './support/people';
 import { Phone } from './support/phone';
 import type { MutationResult } from '../../src/contract/sync';
@@ -29,27 +28,7 @@ beforeAll(async () => {
     divisions: [{ name: 'Recurve Men', bowStyle: 'recurve', roundId: '18m' }],
     targets: [{ number: 1, archers: names }],
   });
-  const rows = [];
-  for (const a of field.targets.get(1)!.archers) {
-    const drop = names.find((n) => n.name === a.name)!.drop;
-    for (let endIndex = 0; endIndex < ENDS; endIndex += 1) {
-      const arrows = endIndex === 0 ? ['10', '10', String(10 - drop)] : ['10', '10', '10'];
-      for (const slot of [1, 2])
-        rows.push({
-          session_id: field.sessionId,
-          entry_id: a.entryId,
-          end_index: endIndex,
-          slot,
-          arrows_json: JSON.stringify(arrows),
-          flags_json: '[]',
-          revision: 1,
-          written_by: field.organizer.id,
-          written_at: nowIso(),
-          mutation_id: randomUUID(),
-        });
-    }
-  }
-  await server.db('end_entries').insert(rows);
+  await writeAgreedEnds(server.db, field, ENDS, (a) => names.find((n) => n.name === a.name)!.drop);
   const divisionId = (await server.db('divisions').where({ event_id: field.eventId }).first('id'))
     .id as number;
   const res = await request(server.app)

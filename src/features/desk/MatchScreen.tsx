@@ -1,9 +1,8 @@
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { ARROW_VALUES, arrowPoints, type ArrowValue, type MatchFormat, type Side } from '../../core';
 import type { BracketDto, MatchDto, MatchShootOffArgs } from '../../contract/matches';
-import { RequireSignIn } from '../../account/RequireSignIn';
 import { useEventBrackets } from '../../api/eventBrackets';
 import { localDb, type OutboxRow } from '../../local/db';
 import { recordChange } from '../../local/outbox';
@@ -15,6 +14,8 @@ import { Field } from '../../ui/Field';
 import { Notice } from '../../ui/Notice';
 import { ArrowKeypad } from '../../ui/scorecard/ArrowKeypad';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
+import { RefusedNotice } from '../../ui/scorecard/RefusedNotice';
+import { JudgeOnly } from './JudgeOnly';
 import { ArrowCountdown } from './ArrowCountdown';
 import { matchCard, matchRowsOf, type MatchCardView } from './matchCard';
 
@@ -46,6 +47,34 @@ function addValues(draft: Draft, values: ArrowValue[], per = ARROWS): Draft {
 }
 const undoValue = (d: Draft): Draft =>
   d.b.length > 0 ? { ...d, b: d.b.slice(0, -1) } : { ...d, a: d.a.slice(0, -1) };
+
+/** One titled part of the match card. */
+function Panel({
+  id,
+  title,
+  testId,
+  strong,
+  children,
+}: {
+  id: string;
+  title: string;
+  testId?: string;
+  strong?: boolean;
+  children: ReactNode;
+}) {
+  return (
+    <section
+      aria-labelledby={id}
+      className={`surface space-y-3 rounded-xl bg-card p-3 ${strong ? 'border-4 border-ink' : 'border-2 border-line'}`}
+      data-testid={testId}
+    >
+      <h2 id={id} className="text-2xl font-bold">
+        {title}
+      </h2>
+      {children}
+    </section>
+  );
+}
 
 function Scoreline({ match, card, format }: { match: MatchDto; card: MatchCardView; format: MatchFormat }) {
   const state = card.state;
@@ -168,13 +197,7 @@ function EndEntry({
   const complete = draft.a.length === ARROWS && draft.b.length === ARROWS;
   const side: Side = draft.a.length < ARROWS ? 'a' : 'b';
   return (
-    <section
-      aria-labelledby="end-entry"
-      className="surface space-y-3 rounded-xl border-2 border-line bg-card p-3"
-    >
-      <h2 id="end-entry" className="text-2xl font-bold">
-        End {draft.endIndex + 1}
-      </h2>
+    <Panel id="end-entry" title={`End ${draft.endIndex + 1}`}>
       <DraftLines match={match} draft={draft} per={ARROWS} />
       {!complete && (
         <>
@@ -204,7 +227,7 @@ function EndEntry({
           Save end {draft.endIndex + 1}
         </Button>
       )}
-    </section>
+    </Panel>
   );
 }
 
@@ -246,14 +269,7 @@ function ShootOffEntry({
     (s) => mm[s].trim() !== '' && Number.isFinite(distance(s)) && distance(s) >= 0 && distance(s) <= 1000,
   );
   return (
-    <section
-      aria-labelledby="shoot-off"
-      className="surface space-y-3 rounded-xl border-2 border-line bg-card p-3"
-      data-testid="match-shoot-off"
-    >
-      <h2 id="shoot-off" className="text-2xl font-bold">
-        Shoot-off: one arrow each
-      </h2>
+    <Panel id="shoot-off" title="Shoot-off: one arrow each" testId="match-shoot-off">
       {card.state?.next === 'judge' && (
         <p className="font-bold">
           ▲ The arrows are level: measure them, or say which one is closer to the centre.
@@ -301,7 +317,7 @@ function ShootOffEntry({
           </div>
         </div>
       )}
-    </section>
+    </Panel>
   );
 }
 
@@ -320,14 +336,7 @@ function MatchOver({
   const winner = state.winner!;
   const how = state.decidedBy === 'shoot-off' ? ' in the shoot-off' : '';
   return (
-    <section
-      aria-labelledby="match-over"
-      className="surface space-y-3 rounded-xl border-4 border-ink bg-card p-3"
-      data-testid="match-over"
-    >
-      <h2 id="match-over" className="text-2xl font-bold">
-        ◆ Match over
-      </h2>
+    <Panel id="match-over" title="◆ Match over" testId="match-over" strong>
       <p className="text-xl">
         <span className="font-bold">{nameOf(match, winner)}</span> wins {state.score[winner]}–
         {state.score[winner === 'a' ? 'b' : 'a']}
@@ -344,7 +353,7 @@ function MatchOver({
       ) : (
         <Button onClick={() => save({ kind: 'match.sign', args: target })}>Sign the match</Button>
       )}
-    </section>
+    </Panel>
   );
 }
 
@@ -370,7 +379,6 @@ function MatchCardPanel({
       await recordChange(localDb(), userId, change);
       syncLoop().kick();
     });
-  const refused = mine.filter((r) => r.status === 'rejected' && !r.seenAt);
   const state = card.state;
   const open = card.signed === null && !match.winner;
   const nextEnd = open && state?.next === 'end' ? card.ends.length : undefined;
@@ -384,25 +392,7 @@ function MatchCardPanel({
         {match.targetNumber !== null && ` · target ${match.targetNumber}`} ·{' '}
         {bracket.format === 'sets' ? 'set system' : 'cumulative'}
       </p>
-      {refused.length > 0 && (
-        <Notice tone="error">
-          Not accepted by the event server: {refused.map((r) => r.reason).join(' ')}{' '}
-          <button
-            type="button"
-            className="min-h-12 rounded-lg border-2 border-brick bg-card px-3 font-bold"
-            onClick={() => {
-              const at = new Date().toISOString();
-              saveLocal(() =>
-                localDb().outbox.bulkUpdate(
-                  refused.map((r) => ({ key: [r.clientId, r.seq], changes: { seenAt: at } })),
-                ),
-              );
-            }}
-          >
-            I have read this
-          </button>
-        </Notice>
-      )}
+      <RefusedNotice rows={mine} save={saveLocal} />
       {problem && <Notice tone="error">{problem}</Notice>}
       {card.problem && <Notice tone="error">{card.problem}</Notice>}
       <Scoreline match={match} card={card} format={bracket.format} />
@@ -471,15 +461,9 @@ export function MatchScreen() {
       <Link to={`/desk/${eventId}/matches`} className="font-bold underline">
         ◂ Matches
       </Link>
-      <RequireSignIn>
-        {(me) =>
-          !me.roles.some((r) => r.eventId === eventId && r.role === 'judge') ? (
-            <Notice tone="error">Only the event's judges score matches.</Notice>
-          ) : (
-            <MatchPanel eventId={eventId} matchId={matchId} userId={me.user.id} />
-          )
-        }
-      </RequireSignIn>
+      <JudgeOnly eventId={eventId} only="Only the event's judges score matches.">
+        {(userId) => <MatchPanel eventId={eventId} matchId={matchId} userId={userId} />}
+      </JudgeOnly>
       <SyncLine />
     </div>
   );

@@ -1,9 +1,9 @@
 import { Link, useParams } from 'react-router-dom';
-import { RequireSignIn } from '../../account/RequireSignIn';
 import { useEventBrackets } from '../../api/eventBrackets';
 import { matchStatus, roundName } from '../../ui/bracketLabels';
 import { Notice } from '../../ui/Notice';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
+import { JudgeOnly } from './JudgeOnly';
 
 const sideName = (s: { archers: { name: string }[]; seed: number } | undefined) =>
   s ? `${s.archers.map((a) => a.name).join(', ')} (${s.seed})` : 'to be decided';
@@ -62,15 +62,9 @@ export function MatchesScreen() {
       <Link to={`/desk/${eventId}`} className="font-bold underline">
         ◂ Judge desk
       </Link>
-      <RequireSignIn>
-        {(me) =>
-          !me.roles.some((r) => r.eventId === eventId && r.role === 'judge') ? (
-            <Notice tone="error">Only the event's judges score matches.</Notice>
-          ) : (
-            <OpenMatches eventId={eventId} />
-          )
-        }
-      </RequireSignIn>
+      <JudgeOnly eventId={eventId} only="Only the event's judges score matches.">
+        {() => <OpenMatches eventId={eventId} />}
+      </JudgeOnly>
       <SyncLine />
     </div>
   );
