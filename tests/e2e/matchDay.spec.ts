@@ -1,10 +1,10 @@
-import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
+import { expect, test, type Page } from '@playwright/test';
 import { DEMO_JUDGES, DEMO_ORGANIZER } from '../../server/demo/demoPeople';
 import { checkA11y } from './support/a11y';
 import { apiPhone, token } from './support/apiPhone';
 import { readDemoRows } from './support/demoDb';
-import { operatorMailTo } from './support/operatorMail';
 import { signedInPhone } from './support/signIn';
+import { setUpSmallEvent } from './support/smallEvent';
 
 /*
  * The afternoon in the app: the organizer creates a four-archer bracket on the event screen (first
@@ -14,15 +14,6 @@ import { signedInPhone } from './support/signIn';
  * Its own event (a one-end custom round), so no other spec's targets or divisions are touched.
  */
 
-const ROUND = {
-  id: 'match-day-e2e',
-  name: 'One end',
-  venue: 'outdoor',
-  distances: [
-    { label: '18 m', distanceM: 18, faceId: 'full-122', arrows: 3, arrowsPerEnd: 3, secondsPerEnd: 120 },
-  ],
-  bowStyles: ['recurve'],
-};
 const ARCHERS = ['Mara Thistle', 'Nils Ashdown', 'Oona Brack', 'Pim Ledger'];
 const QUALIFICATION = [
   ['10', '10', '10'],
@@ -31,18 +22,6 @@ const QUALIFICATION = [
   ['9', '9', '9'],
 ];
 const JUDGE = DEMO_JUDGES[1]!;
-
-async function call(
-  request: APIRequestContext,
-  bearer: string,
-  method: 'post' | 'patch',
-  path: string,
-  data: object,
-) {
-  const res = await request[method](path, { headers: { Authorization: `Bearer ${bearer}` }, data });
-  expect(res.status(), `${method} ${path}: ${await res.text()}`).toBeLessThan(300);
-  return res.json();
-}
 
 async function shot(page: Page, name: string) {
   await page.screenshot({ path: `.tmp/screens/match-day-${name}.png`, fullPage: true });
@@ -65,38 +44,18 @@ test('the organizer creates a bracket, the judge scores matches offline on the p
   const organizer = await token(request, DEMO_ORGANIZER.email);
   const judge = await token(request, JUDGE.email);
 
-  const event = await call(request, organizer, 'post', '/api/events', {
-    name: `Match day ${Date.now() % 10_000}`,
-    startsOn: '2026-12-13',
-    endsOn: '2026-12-13',
-    timeZone: 'UTC',
-  });
-  const eventId = event.id as number;
-  await call(request, organizer, 'post', `/api/events/${eventId}/staff`, {
-    email: JUDGE.email,
-    role: 'judge',
-  });
-  const invitation = await operatorMailTo(request, JUDGE.email, new RegExp(event.name as string));
-  const inviteToken = decodeURIComponent(/invite\?token=([^\s]+)/.exec(invitation.text)![1]!);
-  await call(request, judge, 'post', '/api/invitations/accept', { token: inviteToken });
-  const division = await call(request, organizer, 'post', `/api/events/${eventId}/divisions`, {
-    bowStyle: 'recurve',
-    className: 'Afternoon',
-  });
-  const session = await call(request, organizer, 'post', `/api/events/${eventId}/sessions`, {
-    name: 'Morning qualification',
-    startsAt: '2026-12-13T09:00',
-    rounds: [{ divisionId: division.id, customRound: ROUND }],
-  });
-  const sessionId = session.id as number;
-  for (const name of ARCHERS)
-    await call(request, organizer, 'post', `/api/events/${eventId}/entries`, {
-      name,
-      divisionId: division.id,
-    });
-  await call(request, organizer, 'post', `/api/events/${eventId}/sessions/${sessionId}/assign`, {});
-  await call(request, organizer, 'post', `/api/events/${eventId}/sessions/${sessionId}/join-codes`, {});
-
+  const { eventId, divisionId, sessionId } = await setUpSmallEvent(
+    request,
+    { organizer, judge, judgeEmail: JUDGE.email },
+    {
+      name: 'Match day',
+      date: '2026-12-13',
+      className: 'Afternoon',
+      sessionName: 'Morning qualification',
+      roundId: 'match-day-e2e',
+      archers: ARCHERS,
+    },
+  );
   const archers = readDemoRows<{ entry_id: number; name: string }>(
     `select t.entry_id, e.name from target_assignments t join entries e on e.id = t.entry_id
      where t.session_id = ? order by e.name`,
@@ -133,7 +92,7 @@ test('the organizer creates a bracket, the judge scores matches offline on the p
   // The organizer opens Eliminations on the event screen: the server refuses while Pim still shoots.
   const org = await signedInPhone(browser, DEMO_ORGANIZER.email);
   await org.goto(`/events/${eventId}?part=eliminations`);
-  const part = org.getByTestId(`eliminations-${division.id}`);
+  const part = org.getByTestId(`eliminations-${divisionId}`);
   await expect(part.getByLabel('Match format')).toHaveValue('sets');
   await part.getByLabel('Archers in the bracket').selectOption('everyone');
   await part.getByRole('button', { name: /Create the bracket/ }).click();
