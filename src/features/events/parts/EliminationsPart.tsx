@@ -71,7 +71,8 @@ function NewBracket({ summary, division }: { summary: EventSummary; division: Di
   const eventId = summary.event.id;
   const sessions = summary.sessions.filter((s) => s.rounds.some((r) => r.divisionId === division.id));
   const [sessionId, setSessionId] = useState(String(sessions.at(-1)?.id ?? ''));
-  const [size, setSize] = useState<(typeof SIZES)[number]>('8');
+  // A division smaller than the smallest bracket offered goes through whole.
+  const [size, setSize] = useState<(typeof SIZES)[number]>(division.entryCount >= 8 ? '8' : 'everyone');
   const [format, setFormat] = useState<MatchFormat>(defaultFormat(division));
   const create = useCreateBracket(eventId);
   if (sessions.length === 0)
