@@ -207,4 +207,25 @@ test('the organizer creates a bracket, the judge scores matches offline on the p
   );
   await checkA11y(desk, 'judge: final open');
   await shot(desk, 'judge-final-open');
+
+  // The organizer places the final on target 5 (free again), moves it to 7, and records Pim's
+  // no-show in the bronze match: Nils goes through.
+  const bronze = idOf(1, 0, true);
+  await org.reload();
+  const finalRow = part.getByTestId(`open-match-${final}`);
+  await finalRow.getByRole('textbox', { name: /Target for/ }).fill('5');
+  await finalRow.getByRole('button', { name: 'Place on target' }).click();
+  await expect(finalRow).toContainText('on target 5');
+  await finalRow.getByRole('textbox', { name: /Target for/ }).fill('7');
+  await finalRow.getByRole('button', { name: 'Move' }).click();
+  await expect(finalRow).toContainText('on target 7');
+  const bronzeRow = part.getByTestId(`open-match-${bronze}`);
+  await bronzeRow.getByText('Withdrawal or no-show').click();
+  await bronzeRow.getByLabel('Who does not shoot').selectOption({ label: 'Pim Ledger (4)' });
+  await bronzeRow.getByLabel('Why').selectOption('no-show');
+  await checkA11y(org, 'eliminations: walkover');
+  await bronzeRow.getByRole('button', { name: 'Record it: Nils Ashdown (2) goes through' }).click();
+  await expect(part.getByTestId(`open-match-${bronze}`)).toHaveCount(0);
+  await expect(finalRow).toBeVisible();
+  await shot(org, 'organizer-final-placed');
 });
