@@ -108,3 +108,27 @@ export type BracketDto = {
   /** Final places as far as they are known, best first. */
   places: { place: number; entryId: number; name: string; seed: number }[];
 };
+
+/*
+ * The judge's match changes as they travel through the phone's outbox (sync kinds `match.end`,
+ * `match.shootoff`, `match.sign`): the same bodies as the routes, with the event and match named.
+ */
+const matchRef = { eventId: id, matchId: id };
+
+export const matchEndArgsSchema = z.object({
+  ...matchRef,
+  endIndex: z.number().int().min(0).max(MATCH_END_INDEX_MAX, `A match has ends 1 to ${MATCH_MAX_ENDS}.`),
+  a: threeValues,
+  b: threeValues,
+});
+export type MatchEndArgs = z.infer<typeof matchEndArgsSchema>;
+
+export const matchShootOffArgsSchema = z.object({
+  ...matchRef,
+  a: shootOffArrowSchema,
+  b: shootOffArrowSchema,
+});
+export type MatchShootOffArgs = z.infer<typeof matchShootOffArgsSchema>;
+
+export const matchSignArgsSchema = z.object(matchRef);
+export type MatchSignArgs = z.infer<typeof matchSignArgsSchema>;

@@ -12,6 +12,7 @@ import {
   type RulingDto,
 } from './judging';
 import { shootOffRecordArgsSchema } from './results';
+import { matchEndArgsSchema, matchShootOffArgsSchema, matchSignArgsSchema } from './matches';
 
 /**
  * The field path between phone and server. Every change a phone makes is a mutation with a
@@ -68,11 +69,20 @@ export const mutationSchema = z.discriminatedUnion(
     z.object({ ...base, kind: z.literal('card.sign'), args: cardSignArgsSchema }),
     // A judge's shoot-off arrow (results).
     z.object({ ...base, kind: z.literal('shootoff.record'), args: shootOffRecordArgsSchema }),
+    // A judge's match ends, shoot-off arrows and signature (eliminations, docs/matches.md).
+    z.object({ ...base, kind: z.literal('match.end'), args: matchEndArgsSchema }),
+    z.object({ ...base, kind: z.literal('match.shootoff'), args: matchShootOffArgsSchema }),
+    z.object({ ...base, kind: z.literal('match.sign'), args: matchSignArgsSchema }),
   ],
   { error: 'Unknown kind of change. This phone may need the newest version of Ringcall.' },
 );
 export type Mutation = z.infer<typeof mutationSchema>;
 export type MutationKind = Mutation['kind'];
+/** A judge's change to an elimination match: applied through the match services, not the field batch. */
+export type MatchMutation = Extract<Mutation, { kind: 'match.end' | 'match.shootoff' | 'match.sign' }>;
+/** A change about a qualification end, card or shoot-off: what the field batch applies. */
+export type FieldMutation = Exclude<Mutation, MatchMutation>;
+export const isMatchMutation = (m: Mutation): m is MatchMutation => m.kind.startsWith('match.');
 
 /** A change's JSON longer than this is refused on its own (the largest real change is ~1,500). */
 export const MUTATION_MAX_CHARS = 8_000;

@@ -1,3 +1,4 @@
+import type { MatchEndArgs, MatchShootOffArgs, MatchSignArgs } from '../contract/matches';
 import { Dexie, type EntityTable } from 'dexie';
 import type {
   CardSignatureDto,
@@ -41,9 +42,18 @@ export type OutboxRow = {
   id: string;
   userId: number;
   kind: MutationKind;
-  args: EndWriteArgs | EndSettleArgs | EndRuleArgs | EndSignArgs | CardSignArgs | ShootOffRecordArgs;
+  args:
+    | EndWriteArgs
+    | EndSettleArgs
+    | EndRuleArgs
+    | EndSignArgs
+    | CardSignArgs
+    | ShootOffRecordArgs
+    | MatchEndArgs
+    | MatchShootOffArgs
+    | MatchSignArgs;
   at: string;
-  /** The end this change is about (session:entry:end), for the pad's overlay; a card or a shoot-off arrow has its own suffix. */
+  /** The end this change is about (session:entry:end), for the pad's overlay; a card, a shoot-off arrow or a match has its own key. */
   endKey: string;
   status: OutboxStatus;
   reason?: string;

@@ -34,8 +34,9 @@ export async function forgetOthers(db: LocalDb, keep: number | undefined): Promi
           !waiting.some(
             (r) =>
               r.userId === t.userId &&
+              'sessionId' in r.args &&
               r.args.sessionId === t.session.id &&
-              t.archers.some((a) => a.entryId === r.args.entryId),
+              t.archers.some((a) => 'entryId' in r.args && a.entryId === r.args.entryId),
           ),
       );
       await db.targets.bulkDelete(stale.map((t) => t.key));

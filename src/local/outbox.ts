@@ -1,6 +1,7 @@
 import type { EndSettleArgs, EndWriteArgs, Mutation } from '../contract/sync';
 import type { CardSignArgs, EndRuleArgs, EndSignArgs } from '../contract/judging';
 import type { ShootOffRecordArgs } from '../contract/results';
+import type { MatchEndArgs, MatchShootOffArgs, MatchSignArgs } from '../contract/matches';
 import { Dexie } from 'dexie';
 import { cardKeyOf, endKeyOf, shootOffKeyOf, type LocalDb, type OutboxRow } from './db';
 import { writeAtOnce } from './writeAtOnce';
@@ -39,15 +40,27 @@ type NewChange =
   | { kind: 'end.rule'; args: EndRuleArgs }
   | { kind: 'end.sign'; args: EndSignArgs }
   | { kind: 'card.sign'; args: CardSignArgs }
-  | { kind: 'shootoff.record'; args: ShootOffRecordArgs };
+  | { kind: 'shootoff.record'; args: ShootOffRecordArgs }
+  | { kind: 'match.end'; args: MatchEndArgs }
+  | { kind: 'match.shootoff'; args: MatchShootOffArgs }
+  | { kind: 'match.sign'; args: MatchSignArgs };
+
+/** A match change's key: the match, then the end, the shoot-off or the signature. */
+export const matchKeyOf = (matchId: number, what: string) => `match:${matchId}:${what}`;
 
 /** The end a change is about, the card for a card signature, the arrow for a shoot-off. */
 const subjectKey = (change: NewChange) =>
-  change.kind === 'card.sign'
-    ? `${cardKeyOf(change.args.sessionId, change.args.entryId)}:card`
-    : change.kind === 'shootoff.record'
-      ? shootOffKeyOf(change.args.sessionId, change.args.entryId, change.args.arrowIndex)
-      : endKeyOf(change.args.sessionId, change.args.entryId, change.args.endIndex);
+  change.kind === 'match.end'
+    ? matchKeyOf(change.args.matchId, `end:${change.args.endIndex}`)
+    : change.kind === 'match.shootoff'
+      ? matchKeyOf(change.args.matchId, 'shoot-off')
+      : change.kind === 'match.sign'
+        ? matchKeyOf(change.args.matchId, 'sign')
+        : change.kind === 'card.sign'
+          ? `${cardKeyOf(change.args.sessionId, change.args.entryId)}:card`
+          : change.kind === 'shootoff.record'
+            ? shootOffKeyOf(change.args.sessionId, change.args.entryId, change.args.arrowIndex)
+            : endKeyOf(change.args.sessionId, change.args.entryId, change.args.endIndex);
 
 /** The next sequence number per client, as last committed from this page (see recordChange). */
 const knownNextSeq = new Map<string, number>();

@@ -13,8 +13,8 @@ export function summarizeWaiting(rows: readonly Pick<OutboxRow, 'kind' | 'endKey
   // A re-recorded shoot-off arrow replaces the earlier one: count arrows, not changes.
   const shootOffArrows = new Set<string>();
   for (const row of rows) {
-    if (row.kind === 'end.sign' || row.kind === 'card.sign') signatures += 1;
-    else if (row.kind === 'shootoff.record') shootOffArrows.add(row.endKey);
+    if (row.kind === 'end.sign' || row.kind === 'card.sign' || row.kind === 'match.sign') signatures += 1;
+    else if (row.kind === 'shootoff.record' || row.kind === 'match.shootoff') shootOffArrows.add(row.endKey);
     else ends.add(row.endKey);
   }
   return { changes: rows.length, ends: ends.size, signatures, shootOffArrows: shootOffArrows.size };

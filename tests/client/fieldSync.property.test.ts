@@ -340,7 +340,7 @@ async function checkOutcome(
       (r) =>
         !unreadable.has(r.id) &&
         r.kind === 'end.write' &&
-        r.args.entryId === entryId &&
+        (r.args as EndWriteArgs).entryId === entryId &&
         (r.args as EndWriteArgs).endIndex === endIndex,
     ).length;
     expect(row.revision).toBe(writes);

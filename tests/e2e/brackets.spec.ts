@@ -1,9 +1,9 @@
-import { expect, test, type APIRequestContext } from '@playwright/test';
+import { expect, test } from '@playwright/test';
 import { DEMO_JUDGES, DEMO_ORGANIZER } from '../../server/demo/demoPeople';
 import { checkA11y } from './support/a11y';
 import { apiPhone, token } from './support/apiPhone';
 import { readDemoRows } from './support/demoDb';
-import { operatorMailTo } from './support/operatorMail';
+import { apiCall, setUpSmallEvent } from './support/smallEvent';
 
 /*
  * A four-archer bracket seen on a spectator's phone: qualification shot through the field loop
@@ -12,33 +12,12 @@ import { operatorMailTo } from './support/operatorMail';
  * the bracket moving on and the final places.
  */
 
-const ROUND = {
-  id: 'bracket-e2e',
-  name: 'One end',
-  venue: 'outdoor',
-  distances: [
-    { label: '18 m', distanceM: 18, faceId: 'full-122', arrows: 3, arrowsPerEnd: 3, secondsPerEnd: 120 },
-  ],
-  bowStyles: ['recurve'],
-};
 const QUALIFICATION = [
   ['10', '10', '10'],
   ['10', '10', '9'],
   ['10', '9', '9'],
   ['9', '9', '9'],
 ];
-
-async function call(
-  request: APIRequestContext,
-  bearer: string,
-  method: 'post' | 'put' | 'patch',
-  path: string,
-  data: object,
-) {
-  const res = await request[method](path, { headers: { Authorization: `Bearer ${bearer}` }, data });
-  expect(res.status(), `${method} ${path}: ${await res.text()}`).toBeLessThan(300);
-  return res.json();
-}
 
 test('a spectator follows a four-archer bracket to its final places on a phone', async ({
   browser,
@@ -49,39 +28,19 @@ test('a spectator follows a four-archer bracket to its final places on a phone',
   const judge = await token(request, DEMO_JUDGES[1]!.email);
 
   // The organizer sets up a small event: one division, a one-end round, four archers.
-  const event = await call(request, organizer, 'post', '/api/events', {
-    name: `Bracket evening ${Date.now() % 10_000}`,
-    startsOn: '2026-12-12',
-    endsOn: '2026-12-12',
-    timeZone: 'UTC',
-  });
-  const eventId = event.id as number;
-  // The demo judge is invited as a judge of the new event and accepts from the mail.
-  await call(request, organizer, 'post', `/api/events/${eventId}/staff`, {
-    email: DEMO_JUDGES[1]!.email,
-    role: 'judge',
-  });
-  const invitation = await operatorMailTo(request, DEMO_JUDGES[1]!.email, new RegExp(event.name as string));
-  const inviteToken = decodeURIComponent(/invite\?token=([^\s]+)/.exec(invitation.text)![1]!);
-  await call(request, judge, 'post', '/api/invitations/accept', { token: inviteToken });
-  const division = await call(request, organizer, 'post', `/api/events/${eventId}/divisions`, {
-    bowStyle: 'recurve',
-    className: 'Evening',
-  });
-  const session = await call(request, organizer, 'post', `/api/events/${eventId}/sessions`, {
-    name: 'Evening qualification',
-    startsAt: '2026-12-12T18:00',
-    rounds: [{ divisionId: division.id, customRound: ROUND }],
-  });
-  const sessionId = session.id as number;
-  for (const name of ['Ines Arbour', 'Jonah Quill', 'Kit Fairway', 'Lena Marsh'])
-    await call(request, organizer, 'post', `/api/events/${eventId}/entries`, {
-      name,
-      divisionId: division.id,
-    });
-  await call(request, organizer, 'post', `/api/events/${eventId}/sessions/${sessionId}/assign`, {});
-  await call(request, organizer, 'post', `/api/events/${eventId}/sessions/${sessionId}/join-codes`, {});
-  await call(request, organizer, 'patch', `/api/events/${eventId}/results-settings`, { published: true });
+  const { eventId, divisionId, sessionId } = await setUpSmallEvent(
+    request,
+    { organizer, judge, judgeEmail: DEMO_JUDGES[1]!.email },
+    {
+      name: 'Bracket evening',
+      date: '2026-12-12',
+      className: 'Evening',
+      sessionName: 'Evening qualification',
+      roundId: 'bracket-e2e',
+      archers: ['Ines Arbour', 'Jonah Quill', 'Kit Fairway', 'Lena Marsh'],
+    },
+  );
+  await apiCall(request, organizer, 'patch', `/api/events/${eventId}/results-settings`, { published: true });
 
   // Two writers enter each archer's end, the same values: agreed ends make the standings.
   const archers = readDemoRows<{ entry_id: number; target_number: number; name: string }>(
@@ -108,9 +67,9 @@ test('a spectator follows a four-archer bracket to its final places on a phone',
   }
 
   // Seeded 1 Ines … 4 Lena; semi-finals 1–4 and 2–3.
-  let body = await call(request, organizer, 'post', `/api/events/${eventId}/brackets`, {
+  let body = await apiCall(request, organizer, 'post', `/api/events/${eventId}/brackets`, {
     sessionId,
-    divisionId: division.id,
+    divisionId,
     size: 'everyone',
   });
   const match = (round: number, slot: number, bronze = false) =>
@@ -119,14 +78,14 @@ test('a spectator follows a four-archer bracket to its final places on a phone',
     )!.id;
   const sets = async (id: number, list: [string, string][]) => {
     for (const [i, [a, b]] of list.entries())
-      body = await call(request, judge, 'put', `/api/events/${eventId}/matches/${id}/ends/${i}`, {
+      body = await apiCall(request, judge, 'put', `/api/events/${eventId}/matches/${id}/ends/${i}`, {
         a: a.split(' '),
         b: b.split(' '),
       });
   };
   const straight: [string, string][] = Array.from({ length: 3 }, () => ['10 10 10', '9 9 9']);
   await sets(match(0, 0), straight);
-  body = await call(request, judge, 'post', `/api/events/${eventId}/matches/${match(0, 0)}/sign`, {});
+  body = await apiCall(request, judge, 'post', `/api/events/${eventId}/matches/${match(0, 0)}/sign`, {});
   await sets(match(0, 1), [
     ['10 10 10', '9 9 9'],
     ['9 9 9', '10 10 10'],
@@ -134,7 +93,7 @@ test('a spectator follows a four-archer bracket to its final places on a phone',
     ['9 9 9', '10 10 10'],
     ['9 9 9', '9 9 9'],
   ]);
-  body = await call(request, judge, 'put', `/api/events/${eventId}/matches/${match(0, 1)}/shoot-off`, {
+  body = await apiCall(request, judge, 'put', `/api/events/${eventId}/matches/${match(0, 1)}/shoot-off`, {
     a: { value: '10' },
     b: { value: '10' },
   });
@@ -156,14 +115,14 @@ test('a spectator follows a four-archer bracket to its final places on a phone',
   await page.screenshot({ path: '.tmp/screens/brackets-semis.png', fullPage: true });
 
   // The judge marks Kit's arrow closer and signs; the final and bronze are shot; places follow.
-  body = await call(request, judge, 'put', `/api/events/${eventId}/matches/${match(0, 1)}/shoot-off`, {
+  body = await apiCall(request, judge, 'put', `/api/events/${eventId}/matches/${match(0, 1)}/shoot-off`, {
     a: { value: '10' },
     b: { value: '10', closer: true },
   });
-  body = await call(request, judge, 'post', `/api/events/${eventId}/matches/${match(0, 1)}/sign`, {});
+  body = await apiCall(request, judge, 'post', `/api/events/${eventId}/matches/${match(0, 1)}/sign`, {});
   await sets(match(1, 0), straight);
-  body = await call(request, judge, 'post', `/api/events/${eventId}/matches/${match(1, 0)}/sign`, {});
-  body = await call(
+  body = await apiCall(request, judge, 'post', `/api/events/${eventId}/matches/${match(1, 0)}/sign`, {});
+  body = await apiCall(
     request,
     organizer,
     'post',

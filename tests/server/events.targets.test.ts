@@ -5,7 +5,11 @@ import { startTestServer, type TestServer } from './support/testServer';
 import { addArchers, setUpEvent, type SetUpEvent } from './support/eventSetup';
 import { planTargets } from '../../server/services/organizer/targetAssignment';
 import { findConflicts, type PlacedArcher } from '../../server/services/organizer/targetConflicts';
-import { JOIN_CODE_ALPHABET, JOIN_CODE_LENGTH, randomJoinCode } from '../../server/services/organizer/joinCodes';
+import {
+  JOIN_CODE_ALPHABET,
+  JOIN_CODE_LENGTH,
+  randomJoinCode,
+} from '../../server/services/organizer/joinCodes';
 import { facesPerTarget } from '../../server/services/organizer/targetFaces';
 import { getRound } from '../../src/core';
 

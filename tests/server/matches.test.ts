@@ -1,10 +1,8 @@
-import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { roundEndCount, getRound, type ArrowValue } from '../../src/core';
 import type { BracketDto, MatchDto } from '../../src/contract/matches';
-import { nowIso } from '../../server/time';
-import { setUpField, type Field } from './support/fieldSetup';
+import { setUpField, writeAgreedEnds, type Field } from './support/fieldSetup';
 import { giveRole, makePerson, type TestPerson } from './support/people';
 import { startTestServer, type TestServer } from './support/testServer';
 
@@ -47,32 +45,14 @@ beforeAll(async () => {
     name: string;
   }[])
     divisions.set(d.name, d.id);
-  const rows = [];
-  for (const t of field.targets.values()) {
-    for (const a of t.archers) {
-      const drop = names.find((n) => n.name === a.name)!.drop;
-      // The last junior has one end to shoot: the standings are not final.
-      const ends = a.name === 'Recurve Juniors 4' ? ENDS - 1 : ENDS;
-      for (let endIndex = 0; endIndex < ends; endIndex += 1) {
-        const arrows = endIndex === 0 ? ['10', '10', String(10 - drop)] : ['10', '10', '10'];
-        for (const slot of [1, 2]) {
-          rows.push({
-            session_id: field.sessionId,
-            entry_id: a.entryId,
-            end_index: endIndex,
-            slot,
-            arrows_json: JSON.stringify(arrows),
-            flags_json: '[]',
-            revision: 1,
-            written_by: field.organizer.id,
-            written_at: nowIso(),
-            mutation_id: randomUUID(),
-          });
-        }
-      }
-    }
-  }
-  for (let i = 0; i < rows.length; i += 200) await server.db('end_entries').insert(rows.slice(i, i + 200));
+  await writeAgreedEnds(
+    server.db,
+    field,
+    ENDS,
+    (a) => names.find((n) => n.name === a.name)!.drop,
+    // The last junior has one end to shoot: the standings are not final.
+    (a) => (a.name === 'Recurve Juniors 4' ? ENDS - 1 : ENDS),
+  );
   archer = await makePerson(server.db, 'Entered Archer');
   await giveRole(server.db, field.eventId, archer, 'archer');
   await server

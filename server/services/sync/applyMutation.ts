@@ -1,4 +1,4 @@
-import type { Mutation } from '../../../src/contract/sync';
+import type { FieldMutation as Mutation } from '../../../src/contract/sync';
 import type { SigningKeys } from '../signing/serverKeys';
 import { applyShootOff } from '../results/applyShootOff';
 import { applyCardSign } from './applyCardSign';

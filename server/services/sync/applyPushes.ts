@@ -1,4 +1,5 @@
 import {
+  isMatchMutation,
   isUnreadable,
   type MutationResult,
   type PushResponse,
@@ -9,6 +10,7 @@ import type { Outcome } from '../../groupCommit';
 import { forbidden } from '../../http/httpError';
 import type { SigningKeys } from '../signing/serverKeys';
 import { nowIso } from '../../time';
+import { applyMatchChange } from '../matches/applyMatchChange';
 import { applyMutation } from './applyMutation';
 import type { Author } from './effects';
 import { FieldBatch } from './fieldBatch';
@@ -67,7 +69,9 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
 
   const batch = await FieldBatch.load(
     trx,
-    plans.flatMap((p) => p.steps.flatMap((s) => ('apply' in s && !isUnreadable(s.m) ? [s.m] : []))),
+    plans.flatMap((p) =>
+      p.steps.flatMap((s) => ('apply' in s && !isUnreadable(s.m) && !isMatchMutation(s.m) ? [s.m] : [])),
+    ),
     [...new Set(plans.map((p) => p.push.userId))],
   );
   const receivedAt = nowIso();
@@ -101,7 +105,9 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
           mutationId: m.id,
           ...(push.transcribedBy ? { transcribedBy: push.transcribedBy } : {}),
         };
-        reason = await applyMutation(batch, m, by, push.signingKeys);
+        reason = isMatchMutation(m)
+          ? await applyMatchChange(trx, m, by)
+          : await applyMutation(batch, m, by, push.signingKeys);
         status = reason === null ? 'applied' : 'rejected';
       } catch (error) {
         if (!(error instanceof LateArrival)) throw error;

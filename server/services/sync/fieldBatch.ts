@@ -1,6 +1,6 @@
 import type { EndFacts } from '../../../src/core';
 import type { CardSignatureDto, EndSignatureDto } from '../../../src/contract/judging';
-import type { Mutation } from '../../../src/contract/sync';
+import type { FieldMutation as Mutation } from '../../../src/contract/sync';
 import { cardKeyOf, endKeyOf, recordKeyOf } from '../../../src/contract/recordKeys';
 import type { Db } from '../../db';
 import { endFactsOf } from '../judging/endRecords';

@@ -1,4 +1,4 @@
-import type { Mutation } from '../../../src/contract/sync';
+import type { FieldMutation as Mutation } from '../../../src/contract/sync';
 import { cardKeyOf, endKeyOf, recordKeyOf } from '../../../src/contract/recordKeys';
 import type { Db } from '../../db';
 import {

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { LateDecisionDto, LateValueDto } from '../../../src/contract/lateValues';
-import type { EndSettleArgs, EndWriteArgs, Mutation } from '../../../src/contract/sync';
+import type { EndSettleArgs, EndWriteArgs, FieldMutation, Mutation } from '../../../src/contract/sync';
 import type { Db } from '../../db';
 import { conflict, notFound } from '../../http/httpError';
 import { nowIso } from '../../time';
@@ -256,11 +256,11 @@ export async function acceptLateValue(
       kind: row.kind,
       args: JSON.parse(row.args_json),
     };
-    const batch = await FieldBatch.load(trx, [m as Mutation], [row.user_id]);
+    const batch = await FieldBatch.load(trx, [m as FieldMutation], [row.user_id]);
     batch.acceptingLate = true;
     const refused = await applyMutation(
       batch,
-      m as Mutation,
+      m as FieldMutation,
       {
         userId: row.user_id,
         at: row.at,

@@ -65,7 +65,12 @@ export async function replayLog(db: Db): Promise<FieldState> {
       settlements.set(settlementKey(row), row);
     } else if (m.kind === 'end.rule') {
       rulings.push(rulingRow(JSON.parse(m.args_json) as EndRuleArgs, by));
-    } else if (m.kind !== 'end.sign' && m.kind !== 'card.sign' && m.kind !== 'shootoff.record') {
+    } else if (
+      // Signatures, shoot-off arrows and match cards are records of their own, not replayed.
+      !['end.sign', 'card.sign', 'shootoff.record', 'match.end', 'match.shootoff', 'match.sign'].includes(
+        m.kind,
+      )
+    ) {
       throw new Error(`The mutation log holds an applied change of unknown kind "${m.kind}".`);
     }
   }

@@ -23,4 +23,5 @@ export {
 } from './seeding';
 export type { FirstRoundMatch } from './seeding';
 export { finalPlaces } from './finalPlaces';
+export { MATCH_SECONDS_PER_ARROW } from './timing';
 export type { BracketArcher, FinalPlace } from './finalPlaces';

@@ -1,6 +1,6 @@
 import { Link, useParams } from 'react-router-dom';
 import { Notice } from '../../ui/Notice';
-import { useEventBrackets } from './api/eventBrackets';
+import { useEventBrackets } from '../../api/eventBrackets';
 import { BracketView } from './components/BracketView';
 
 /**

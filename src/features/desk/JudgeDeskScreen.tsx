@@ -217,6 +217,7 @@ function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: numb
         )
       )}
       <ShootOffsLink eventId={eventId} />
+      <MatchesLink eventId={eventId} />
       <LateValues eventId={eventId} sessionId={sessionId} />
       <PaperCountersigns eventId={eventId} sessionId={sessionId} />
       <ImportWaiting eventId={eventId} />
@@ -236,6 +237,17 @@ function ShootOffsLink({ eventId }: { eventId: number }) {
   );
 }
 
+function MatchesLink({ eventId }: { eventId: number }) {
+  return (
+    <Link
+      to={`/desk/${eventId}/matches`}
+      className="surface flex min-h-16 items-center rounded-xl border-2 border-ink bg-card p-3 text-xl font-bold"
+    >
+      Matches ▸
+    </Link>
+  );
+}
+
 function SessionPicker({ eventId }: { eventId: number }) {
   const summary = useEventSummary(eventId);
   if (summary.isPending) return <p>Loading the event…</p>;
@@ -244,6 +256,9 @@ function SessionPicker({ eventId }: { eventId: number }) {
     <ul className="space-y-2">
       <li>
         <ShootOffsLink eventId={eventId} />
+      </li>
+      <li>
+        <MatchesLink eventId={eventId} />
       </li>
       {summary.data.sessions.map((s) => (
         <li key={s.id}>

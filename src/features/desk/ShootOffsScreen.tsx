@@ -7,11 +7,12 @@ import { localDb, type OutboxRow } from '../../local/db';
 import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
 import { useLocalSave } from '../../local/useLocalSave';
-import { RequireSignIn } from '../../account/RequireSignIn';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { ArrowKeypad } from '../../ui/scorecard/ArrowKeypad';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
+import { RefusedNotice } from '../../ui/scorecard/RefusedNotice';
+import { JudgeOnly } from './JudgeOnly';
 import { useEventResults } from '../../api/eventResults';
 import {
   equalAt,
@@ -215,7 +216,6 @@ function ShootOffs({ eventId, userId }: { eventId: number; userId: number }) {
     );
   }
   const groups = shootOffGroups(results.data.results, changes ?? []);
-  const refused = (changes ?? []).filter((c) => c.status === 'rejected' && !c.seenAt);
   const record: RecordArrow = (args) =>
     save(async () => {
       await recordChange(localDb(), userId, { kind: 'shootoff.record', args });
@@ -227,25 +227,7 @@ function ShootOffs({ eventId, userId }: { eventId: number; userId: number }) {
         Standings as of {new Date(results.data.results.computedAt).toLocaleTimeString()}; arrows recorded here
         are kept on this phone until they reach the event server.
       </p>
-      {refused.length > 0 && (
-        <Notice tone="error">
-          Not accepted by the event server: {refused.map((r) => r.reason).join(' ')}{' '}
-          <button
-            type="button"
-            className="min-h-12 rounded-lg border-2 border-brick bg-card px-3 font-bold"
-            onClick={() => {
-              const at = new Date().toISOString();
-              save(() =>
-                localDb().outbox.bulkUpdate(
-                  refused.map((r) => ({ key: [r.clientId, r.seq], changes: { seenAt: at } })),
-                ),
-              );
-            }}
-          >
-            I have read this
-          </button>
-        </Notice>
-      )}
+      <RefusedNotice rows={changes ?? []} save={save} />
       {problem && <Notice tone="error">{problem}</Notice>}
       {groups.length === 0 ? (
         <p>No tie waits for a shoot-off in this event.</p>
@@ -266,15 +248,9 @@ export function ShootOffsScreen() {
       <Link to={`/desk/${eventId}`} className="inline-flex min-h-12 items-center font-bold underline">
         ◂ Judge desk
       </Link>
-      <RequireSignIn>
-        {(me) =>
-          !me.roles.some((r) => r.eventId === eventId && r.role === 'judge') ? (
-            <Notice tone="error">Only the event's judges record shoot-offs.</Notice>
-          ) : (
-            <ShootOffs eventId={eventId} userId={me.user.id} />
-          )
-        }
-      </RequireSignIn>
+      <JudgeOnly eventId={eventId} only="Only the event's judges record shoot-offs.">
+        {(userId) => <ShootOffs eventId={eventId} userId={userId} />}
+      </JudgeOnly>
     </div>
   );
 }

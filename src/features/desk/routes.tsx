@@ -12,6 +12,14 @@ export const deskRoutes: RouteObject[] = [
     element: lazyScreen(async () => (await import('./ShootOffsScreen')).ShootOffsScreen),
   },
   {
+    path: 'desk/:eventId/matches',
+    element: lazyScreen(async () => (await import('./MatchesScreen')).MatchesScreen),
+  },
+  {
+    path: 'desk/:eventId/matches/:matchId',
+    element: lazyScreen(async () => (await import('./MatchScreen')).MatchScreen),
+  },
+  {
     path: 'desk/:eventId/:sessionId',
     element: lazyScreen(async () => (await import('./JudgeDeskScreen')).JudgeDeskScreen),
   },

@@ -66,7 +66,12 @@ export function shootOffGroups(results: EventResults, changes: OutboxRow[]): Sho
           rows.map((r) => {
             const arrows = knownArrows(
               r,
-              changes.filter((c) => c.args.sessionId === session.sessionId && c.args.entryId === r.entryId),
+              changes.filter(
+                (c) =>
+                  'sessionId' in c.args &&
+                  c.args.sessionId === session.sessionId &&
+                  c.args.entryId === r.entryId,
+              ),
             );
             return {
               id: String(r.entryId),

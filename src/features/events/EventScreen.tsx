@@ -12,6 +12,7 @@ import { EntriesPart } from './parts/EntriesPart';
 import { StaffPart } from './parts/StaffPart';
 import { TargetsPart } from './parts/TargetsPart';
 import { ResultsPart } from './parts/ResultsPart';
+import { EliminationsPart } from './parts/EliminationsPart';
 
 /** The next thing to set up, in the order an event is built. */
 function nextStep(s: EventSummary): { text: string; part: string } | undefined {
@@ -40,6 +41,7 @@ function Overview({ summary }: { summary: EventSummary }) {
     { id: 'staff', label: 'Staff', count: summary.counts.organizers + summary.counts.judges },
     { id: 'targets', label: 'Targets & printing' },
     { id: 'results', label: 'Results' },
+    { id: 'eliminations', label: 'Eliminations' },
   ];
   const eventId = summary.event.id;
   return (
@@ -60,9 +62,10 @@ function Overview({ summary }: { summary: EventSummary }) {
         {current === 'staff' && <StaffPart eventId={eventId} />}
         {current === 'targets' && <TargetsPart summary={summary} />}
         {current === 'results' && <ResultsPart summary={summary} />}
-        {!['divisions', 'sessions', 'entries', 'staff', 'targets', 'results'].includes(current) && (
-          <DetailsPart summary={summary} />
-        )}
+        {current === 'eliminations' && <EliminationsPart summary={summary} />}
+        {!['divisions', 'sessions', 'entries', 'staff', 'targets', 'results', 'eliminations'].includes(
+          current,
+        ) && <DetailsPart summary={summary} />}
       </section>
     </div>
   );

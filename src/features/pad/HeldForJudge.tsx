@@ -32,7 +32,8 @@ export function HeldForJudge({ rows, target }: { rows: OutboxRow[]; target: Join
       <ul className="list-disc space-y-1 pl-5">
         {latest.map((r) => (
           <li key={r.id}>
-            {'endIndex' in r.args ? `End ${r.args.endIndex + 1}` : 'Card'}, {nameOf(r.args.entryId)}
+            {'endIndex' in r.args ? `End ${r.args.endIndex + 1}` : 'Card'},{' '}
+            {'entryId' in r.args ? nameOf(r.args.entryId) : 'a match'}
             {'arrows' in r.args && r.args.arrows.length > 0 ? `: ${r.args.arrows.join(' ')}` : ''}
           </li>
         ))}

@@ -44,7 +44,8 @@ export function usePadData(
           cache,
         );
         const entryIds = new Set(target.archers.map((a) => a.entryId));
-        const onTarget = (rows: OutboxRow[]) => rows.filter((r) => entryIds.has(r.args.entryId));
+        const onTarget = (rows: OutboxRow[]) =>
+          rows.filter((r) => 'entryId' in r.args && entryIds.has(r.args.entryId));
         return { target, ends, rejected: onTarget(rejected), held: onTarget(held), unsent };
       },
     );

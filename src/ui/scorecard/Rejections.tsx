@@ -15,8 +15,8 @@ export function Rejections({ rows, target }: { rows: OutboxRow[]; target: Joined
       <ul className="space-y-1">
         {unseen.map((r) => (
           <li key={r.id}>
-            {'endIndex' in r.args ? `End ${r.args.endIndex + 1}` : 'Card'}, {nameOf(r.args.entryId)}:{' '}
-            {r.reason}
+            {'endIndex' in r.args ? `End ${r.args.endIndex + 1}` : 'Card'},{' '}
+            {'entryId' in r.args ? nameOf(r.args.entryId) : 'a match'}: {r.reason}
           </li>
         ))}
       </ul>

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import type { BowStyleName, Position } from '../../../src/contract/events';
 import { getRound } from '../../../src/core';
 import type { Db } from '../../../server/db';
@@ -156,4 +157,41 @@ export async function setUpMixedField(db: Db, options: { closed?: boolean } = {}
       },
     ],
   });
+}
+
+/**
+ * Agreed ends written straight into the database (both writers, the same values), for tests that
+ * need final standings without the field loop: each archer's ends, the first one dropping
+ * `drop(archer)` points from a perfect end; `ends(archer)` how many were shot (default all).
+ */
+export async function writeAgreedEnds(
+  db: Db,
+  field: Field,
+  endsInRound: number,
+  drop: (archer: FieldArcher) => number,
+  ends: (archer: FieldArcher) => number = () => endsInRound,
+): Promise<void> {
+  const rows = [];
+  for (const t of field.targets.values()) {
+    for (const a of t.archers) {
+      for (let endIndex = 0; endIndex < ends(a); endIndex += 1) {
+        const arrows = endIndex === 0 ? ['10', '10', String(10 - drop(a))] : ['10', '10', '10'];
+        for (const slot of [1, 2]) {
+          rows.push({
+            session_id: field.sessionId,
+            entry_id: a.entryId,
+            end_index: endIndex,
+            slot,
+            arrows_json: JSON.stringify(arrows),
+            flags_json: '[]',
+            revision: 1,
+            written_by: field.organizer.id,
+            written_at: nowIso(),
+            mutation_id: randomUUID(),
+          });
+        }
+      }
+    }
+  }
+  for (let i = 0; i < rows.length; i += 200) await db('end_entries').insert(rows.slice(i, i + 200));
 }

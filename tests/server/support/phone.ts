@@ -12,6 +12,7 @@ import type {
 } from '../../../src/contract/sync';
 import type { CardSignArgs, EndRuleArgs, EndSignArgs } from '../../../src/contract/judging';
 import type { ShootOffRecordArgs } from '../../../src/contract/results';
+import type { MatchEndArgs, MatchShootOffArgs, MatchSignArgs } from '../../../src/contract/matches';
 import type { Db } from '../../../server/db';
 import type { TestPerson } from './people';
 
@@ -75,6 +76,19 @@ export class Phone {
   /** A judge's shoot-off arrow. */
   shootOff(args: ShootOffInput): Mutation {
     return this.next({ kind: 'shootoff.record', args: { ...args, closer: args.closer ?? false } });
+  }
+
+  /** A judge's match end, shoot-off arrows or signature (eliminations). */
+  matchEnd(args: MatchEndArgs): Mutation {
+    return this.next({ kind: 'match.end', args });
+  }
+
+  matchShootOff(args: MatchShootOffArgs): Mutation {
+    return this.next({ kind: 'match.shootoff', args });
+  }
+
+  matchSign(args: MatchSignArgs): Mutation {
+    return this.next({ kind: 'match.sign', args });
   }
 
   private next(change: Pick<Mutation, 'kind' | 'args'>): Mutation {

@@ -1,6 +1,6 @@
 import type { BracketDto } from '../../../contract/matches';
 import { MatchCard } from './MatchCard';
-import { roundName } from './labels';
+import { roundName } from '../../../ui/bracketLabels';
 
 /** One division's bracket: final places so far, then each round from the first, the bronze match beside the final. */
 export function BracketView({ bracket }: { bracket: BracketDto }) {

@@ -1,6 +1,6 @@
 import type { MatchDto } from '../../../contract/matches';
 import type { Side } from '../../../core';
-import { matchStatus } from './labels';
+import { matchStatus } from '../../../ui/bracketLabels';
 
 /** One match: its two sides with seed, archer and score; the winner is marked by a word and a shape, never by colour alone. */
 export function MatchCard({ match }: { match: MatchDto }) {

@@ -1,6 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
-import { apiRequest } from '../../../api/request';
-import type { BracketDto } from '../../../contract/matches';
+import { apiRequest } from './request';
+import type { BracketDto } from '../contract/matches';
 
 export const bracketsKey = (eventId: number) => ['brackets', eventId] as const;
 

@@ -1,4 +1,4 @@
-import type { MatchDto } from '../../../contract/matches';
+import type { MatchDto } from '../contract/matches';
 
 /** A round's name by how many matches it has: the final, the semi-finals, then "1/8" and so on. */
 export function roundName(round: number, rounds: number): string {

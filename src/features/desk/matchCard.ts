@@ -1,0 +1,72 @@
+import {
+  matchState,
+  ScoringError,
+  type MatchFormat,
+  type MatchState,
+  type ShootOffArrow,
+  type Side,
+} from '../../core';
+import type { MatchDto, MatchEndArgs, MatchShootOffArgs } from '../../contract/matches';
+import type { OutboxRow } from '../../local/db';
+
+/** One end of the match card as the judge's phone shows it: the server's copy or this phone's own change. */
+export type CardEnd = {
+  a: MatchDto['ends'][number]['a'];
+  b: MatchDto['ends'][number]['b'];
+  waiting: boolean;
+};
+
+export type MatchCardView = {
+  ends: CardEnd[];
+  shootOff: Partial<Record<Side, ShootOffArrow>>;
+  shootOffWaiting: boolean;
+  /** The core's reading of the card with this phone's waiting changes laid over the server's. */
+  state: MatchState | null;
+  /** The core refused the card as laid over (a waiting change the server will refuse too). */
+  problem: string | null;
+  signed: 'server' | 'waiting' | null;
+};
+
+/** This phone's changes to one match, oldest first; rejected rows are never laid over. */
+export const matchRowsOf = (rows: readonly OutboxRow[], matchId: number) =>
+  rows
+    .filter((r) => r.kind.startsWith('match.') && 'matchId' in r.args && r.args.matchId === matchId)
+    .sort((x, y) => x.seq - y.seq);
+
+/**
+ * The match card on the judge's phone: pending outbox rows laid over the server's copy (like the
+ * pad's ends), so what is on screen is what is stored, offline too. Read by the core's matchState.
+ */
+export function matchCard(match: MatchDto, format: MatchFormat, rows: readonly OutboxRow[]): MatchCardView {
+  const ends: CardEnd[] = match.ends.map((e) => ({ ...e, waiting: false }));
+  const shootOff: Partial<Record<Side, ShootOffArrow>> = { ...match.shootOff };
+  let shootOffWaiting = false;
+  let signed: MatchCardView['signed'] = match.signedAt ? 'server' : null;
+  for (const row of matchRowsOf(rows, match.id)) {
+    // A delivered change counts until the server's copy shows it: the copy may be from before it
+    // arrived (it is asked for again once the change is delivered).
+    const pending = row.status === 'pending';
+    if (!pending && row.status !== 'applied') continue;
+    if (row.kind === 'match.end') {
+      const args = row.args as MatchEndArgs;
+      if (pending || args.endIndex >= match.ends.length)
+        ends[args.endIndex] = { a: args.a, b: args.b, waiting: pending };
+    } else if (row.kind === 'match.shootoff') {
+      if (!pending && match.shootOff.a && match.shootOff.b) continue;
+      const args = row.args as MatchShootOffArgs;
+      shootOff.a = args.a;
+      shootOff.b = args.b;
+      shootOffWaiting = pending;
+    } else if (row.kind === 'match.sign' && !signed) signed = pending ? 'waiting' : 'server';
+  }
+  const filled = ends.filter(Boolean);
+  let state: MatchState | null = null;
+  let problem: string | null = null;
+  try {
+    state = matchState(format, { ends: filled, shootOff });
+  } catch (error) {
+    if (!(error instanceof ScoringError)) throw error;
+    problem = error.message;
+  }
+  return { ends: filled, shootOff, shootOffWaiting, state, problem, signed };
+}

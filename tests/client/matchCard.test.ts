@@ -1,0 +1,146 @@
+import 'fake-indexeddb/auto';
+import { afterEach, describe, expect, it } from 'vitest';
+import type { ArrowValue } from '../../src/core';
+import type { MatchDto } from '../../src/contract/matches';
+import { LocalDb, type OutboxRow } from '../../src/local/db';
+import { recordChange } from '../../src/local/outbox';
+import { summarizeWaiting, waitingWords } from '../../src/local/waitingSummary';
+import { waitingInWords } from '../../src/local/waitingInWords';
+import { matchCard } from '../../src/features/desk/matchCard';
+
+/*
+ * The judge's match card on the phone: the outbox rows laid over the server's copy (pending ones
+ * always, delivered ones until the copy shows them), read by the core; words for waiting changes.
+ */
+
+const dbs: LocalDb[] = [];
+afterEach(async () => {
+  for (const db of dbs.splice(0)) await db.delete();
+});
+
+const v = (text: string) => text.split(' ') as ArrowValue[];
+const side = (seed: number, name: string) => ({ seed, archers: [{ entryId: seed, name, club: '' }] });
+const match = (extra: Partial<MatchDto> = {}): MatchDto => ({
+  id: 7,
+  round: 0,
+  slot: 0,
+  bronze: false,
+  targetNumber: 5,
+  sides: { a: side(1, 'Ada'), b: side(4, 'Bo') },
+  ends: [],
+  shootOff: {},
+  state: null,
+  winner: null,
+  decidedBy: null,
+  signedAt: null,
+  ...extra,
+});
+const row = (
+  seq: number,
+  kind: OutboxRow['kind'],
+  args: OutboxRow['args'],
+  status: OutboxRow['status'],
+): OutboxRow => ({
+  clientId: 'c',
+  seq,
+  id: `id-${seq}`,
+  userId: 1,
+  kind,
+  args,
+  at: '2026-12-13T10:00:00.000Z',
+  endKey: `match:7:${seq}`,
+  status,
+});
+const ref = { eventId: 3, matchId: 7 };
+
+describe('matchCard', () => {
+  it('lays waiting ends over the server copy and reads them with the core', () => {
+    const card = matchCard(match({ ends: [{ a: v('10 10 10'), b: v('9 9 9') }] }), 'sets', [
+      row(1, 'match.end', { ...ref, endIndex: 1, a: v('10 10 9'), b: v('9 9 9') }, 'pending'),
+      row(2, 'match.end', { ...ref, endIndex: 2, a: v('10 9 9'), b: v('9 9 8') }, 'pending'),
+      row(3, 'match.sign', ref, 'pending'),
+    ]);
+    expect(card.ends.map((e) => e.waiting)).toEqual([false, true, true]);
+    expect(card.state).toMatchObject({ score: { a: 6, b: 0 }, winner: 'a', next: 'none' });
+    expect(card.signed).toBe('waiting');
+  });
+
+  it('keeps a delivered end until the server copy shows it, then trusts the copy', () => {
+    const delivered = row(
+      1,
+      'match.end',
+      { ...ref, endIndex: 0, a: v('10 10 10'), b: v('9 9 9') },
+      'applied',
+    );
+    expect(matchCard(match(), 'sets', [delivered]).ends).toHaveLength(1);
+    // A later copy (another judge corrected the end) wins over this phone's delivered change.
+    const copy = match({ ends: [{ a: v('9 9 9'), b: v('9 9 9') }] });
+    expect(matchCard(copy, 'sets', [delivered]).ends[0]!.a).toEqual(v('9 9 9'));
+  });
+
+  it('never lays a refused change over, and says when the core refuses the card', () => {
+    const refused = row(1, 'match.end', { ...ref, endIndex: 0, a: v('10 10 10'), b: v('9 9 9') }, 'rejected');
+    expect(matchCard(match(), 'sets', [refused]).ends).toHaveLength(0);
+    const early = row(
+      2,
+      'match.shootoff',
+      { ...ref, a: { value: '9', closer: true }, b: { value: '9', closer: false } },
+      'pending',
+    );
+    const card = matchCard(match(), 'sets', [early]);
+    expect(card.state).toBeNull();
+    expect(card.problem).toMatch(/shoot-off/);
+  });
+
+  it('decides a 5–5 match by the arrow marked closer', () => {
+    const ends = ['10 10 10|9 9 9', '9 9 9|10 10 10', '10 10 10|9 9 9', '9 9 9|10 10 10', '9 9 9|9 9 9'].map(
+      (s) => {
+        const [a, b] = s.split('|') as [string, string];
+        return { a: v(a), b: v(b) };
+      },
+    );
+    const card = matchCard(match({ ends }), 'sets', [
+      row(
+        1,
+        'match.shootoff',
+        { ...ref, a: { value: '9', closer: false }, b: { value: '9', closer: true } },
+        'pending',
+      ),
+    ]);
+    expect(card.state).toMatchObject({ winner: 'b', decidedBy: 'shoot-off' });
+    expect(card.shootOffWaiting).toBe(true);
+  });
+});
+
+describe('match changes in the outbox', () => {
+  it('are counted and described in words', async () => {
+    const db = new LocalDb(`match-card-${Date.now()}`);
+    dbs.push(db);
+    await recordChange(db, 1, {
+      kind: 'match.end',
+      args: { ...ref, endIndex: 0, a: v('10 10 10'), b: v('9 9 9') },
+    });
+    await recordChange(db, 1, {
+      kind: 'match.end',
+      args: { ...ref, endIndex: 0, a: v('10 10 9'), b: v('9 9 9') },
+    });
+    await recordChange(db, 1, {
+      kind: 'match.shootoff',
+      args: { ...ref, a: { value: '9', closer: true }, b: { value: '9', closer: false } },
+    });
+    await recordChange(db, 1, { kind: 'match.sign', args: ref });
+    const rows = await db.outbox.toArray();
+    expect(rows.map((r) => r.endKey)).toEqual([
+      'match:7:end:0',
+      'match:7:end:0',
+      'match:7:shoot-off',
+      'match:7:sign',
+    ]);
+    expect(waitingWords(summarizeWaiting(rows))).toBe('1 end, 1 signature and 1 shoot-off arrow');
+    expect(await waitingInWords(db, 1)).toEqual([
+      'End 1 of match 7',
+      'The shoot-off arrows of match 7',
+      'Your signature on match 7',
+    ]);
+  });
+});
