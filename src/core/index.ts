@@ -65,3 +65,5 @@ export { endView, rulingSteps, settlementApplies } from './endState';
 export type { EndFacts, EndState, EndView, Settlement, ValuesBefore, WriterRecord } from './endState';
 
 export * from './matches';
+
+export * from './practice';
