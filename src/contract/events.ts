@@ -231,7 +231,7 @@ export const updateEntrySchema = z
       .union([z.literal(''), emailSchema], { error: 'That does not look like an e-mail address.' })
       .optional(),
     divisionId: idSchema.optional(),
-  className: optionalNameText('the class (for example Under 18 or 50+)', 60).optional(),
+    className: optionalNameText('the class (for example Under 18 or 50+)', 60).optional(),
   })
   .refine(...someChange);
 export type UpdateEntryInput = z.infer<typeof updateEntrySchema>;

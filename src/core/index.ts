@@ -49,8 +49,9 @@ export type { WriterLock } from './endLock';
 export { cardTotals } from './card';
 export type { CardEnd, CardTotals, DistanceTally, Tally } from './card';
 
-export { oneArrowPerSpot, scorePlottedArrow } from './plotting';
-export type { PlottedArrow, PlottedScore } from './plotting';
+// Plotting (./plotting) and practice (./practice) are imported from their own files: through this
+// index their code would join the chunk every screen shares, the pad's too, though only the
+// practice screens use them.
 
 export { crossCheck } from './crossCheck';
 export type { CrossCheck, CrossCheckArrow, CrossCheckStatus } from './crossCheck';
@@ -65,5 +66,3 @@ export { endView, rulingSteps, settlementApplies } from './endState';
 export type { EndFacts, EndState, EndView, Settlement, ValuesBefore, WriterRecord } from './endState';
 
 export * from './matches';
-
-export * from './practice';

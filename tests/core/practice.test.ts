@@ -11,8 +11,8 @@ import {
   offsetOnSpot,
   plotPracticeArrow,
   practiceTally,
-} from '../../src/core';
-import type { PlotSetup } from '../../src/core';
+} from '../../src/core/practice';
+import type { PlotSetup } from '../../src/core/practice';
 
 describe('practiceTally', () => {
   it('counts a session like a card (WA Book 3)', () => {

@@ -1,0 +1,199 @@
+import { useCallback, useState } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { useLiveQuery } from 'dexie-react-hooks';
+import { arrowPoints, scoringValues } from '../../core';
+import type { ArrowValue } from '../../core';
+import { countedValues, isPlotted } from '../../core/practice';
+import type { PracticeArrow } from '../../core/practice';
+import { localDb, type PracticeEndRow, type PracticeSessionRow } from '../../local/db';
+import { ArrowKeypad } from '../../ui/scorecard/ArrowKeypad';
+import { EndArrows } from '../../ui/scorecard/EndArrows';
+import { SafetyNote } from '../../ui/SafetyNote';
+import { Button } from '../../ui/Button';
+import { BOW_STYLE_LABELS, endSetup, nextEndIndex, plannedEnds, sessionTitle } from './plan';
+import { addPracticeArrow, finishPracticeSession, practiceEnds, undoPracticeArrow } from './practiceStore';
+import { PlotFace } from './PlotFace';
+import { SessionSummary } from './SessionSummary';
+
+type Mode = 'plot' | 'keys';
+const MODE_KEY = 'ringcall.practiceMode';
+
+function savedMode(): Mode {
+  try {
+    return localStorage.getItem(MODE_KEY) === 'keys' ? 'keys' : 'plot';
+  } catch {
+    return 'plot';
+  }
+}
+
+const linkClass = 'inline-flex min-h-11 items-center text-base font-bold underline';
+
+/** One practice session: enter or plot the next arrows, then its summary. Works from IndexedDB alone. */
+export function PracticeSessionScreen() {
+  const { sessionId = '' } = useParams();
+  const data = useLiveQuery(async () => {
+    const session = await localDb().practiceSessions.get(sessionId);
+    return { session, ends: session ? await practiceEnds(sessionId) : [] };
+  }, [sessionId]);
+  if (!data) return <p>Opening…</p>;
+  if (!data.session)
+    return (
+      <div className="space-y-4">
+        <h1 className="text-3xl font-bold">Practice session not found</h1>
+        <p>It may have been deleted on this phone.</p>
+        <Link to="/practice" className={linkClass}>
+          Back to the practice log
+        </Link>
+      </div>
+    );
+  return <SessionView session={data.session} ends={data.ends} />;
+}
+
+function SessionView({ session, ends }: { session: PracticeSessionRow; ends: PracticeEndRow[] }) {
+  const [mode, setMode] = useState<Mode>(savedMode);
+  const [error, setError] = useState<string>();
+  const plan = plannedEnds(session);
+  const index = session.finishedAt ? undefined : nextEndIndex(session, ends);
+  const setup = index === undefined ? undefined : endSetup(session, index);
+  const current = ends.find((e) => e.index === index);
+  const arrowCount = ends.reduce((n, e) => n + e.arrows.length, 0);
+
+  const chooseMode = (next: Mode) => {
+    setMode(next);
+    try {
+      localStorage.setItem(MODE_KEY, next);
+    } catch {
+      // Private mode: the choice lasts for this visit.
+    }
+  };
+  const add = useCallback(
+    (arrows: PracticeArrow[]) => {
+      void (async () => {
+        for (const arrow of arrows) await addPracticeArrow(session.id, arrow);
+      })().catch(() => setError('This phone could not store the arrow. Try again.'));
+    },
+    [session.id],
+  );
+  const onValues = useCallback((values: ArrowValue[]) => add(values.map((value) => ({ value }))), [add]);
+  const undo = useCallback(() => void undoPracticeArrow(session.id), [session.id]);
+
+  return (
+    <div className="space-y-5">
+      <header className="space-y-1">
+        <p>
+          <Link to="/practice" className={linkClass}>
+            ← Practice log
+          </Link>
+        </p>
+        <h1 className="text-3xl font-bold leading-tight">{sessionTitle(session)}</h1>
+        <p>
+          {BOW_STYLE_LABELS[session.bowStyle]} · {new Date(session.startedAt).toLocaleString()}
+          {session.note && <span className="block">{session.note}</span>}
+        </p>
+      </header>
+      {setup && index !== undefined ? (
+        <section aria-labelledby="practice-end" className="space-y-3">
+          <SafetyNote compact />
+          <h2 id="practice-end" className="text-2xl font-bold">
+            End {index + 1}
+            {plan ? ` of ${plan.length}` : ''} · {setup.distanceM} m
+          </h2>
+          <EndArrows
+            arrows={current ? countedValues(current.arrows) : []}
+            slots={setup.arrows}
+            label={`End ${index + 1} so far`}
+          />
+          <div role="group" aria-label="How to enter arrows" className="grid grid-cols-2 gap-2">
+            {(['plot', 'keys'] as const).map((m) => (
+              <Button
+                key={m}
+                variant={mode === m ? 'primary' : 'secondary'}
+                aria-pressed={mode === m}
+                onClick={() => chooseMode(m)}
+              >
+                {m === 'plot' ? 'Plot on the face' : 'Type values'}
+              </Button>
+            ))}
+          </div>
+          {mode === 'plot' ? (
+            <PlotFace
+              setup={{ ...session, faceId: setup.faceId }}
+              placed={(current?.arrows ?? []).filter(isPlotted).map((a) => ({ xMm: a.xMm, yMm: a.yMm }))}
+              onKeep={(arrow) => add([arrow])}
+            />
+          ) : (
+            <ArrowKeypad
+              allowed={scoringValues(setup.faceId, session.bowStyle, session.venue)}
+              onValues={onValues}
+              onUndo={undo}
+              canUndo={arrowCount > 0}
+            />
+          )}
+          <div className="grid grid-cols-2 gap-2">
+            {mode === 'plot' && (
+              <Button variant="secondary" onClick={undo} disabled={arrowCount === 0}>
+                ↶ Undo last arrow
+              </Button>
+            )}
+            <Button
+              variant="secondary"
+              className={mode === 'plot' ? '' : 'col-span-2'}
+              onClick={() => void finishPracticeSession(session.id)}
+              disabled={arrowCount === 0}
+            >
+              Finish session
+            </Button>
+          </div>
+          {error && <p role="alert">{error}</p>}
+        </section>
+      ) : (
+        <section className="space-y-2">
+          <p className="text-lg font-bold" data-testid="session-finished">
+            <span aria-hidden="true">✓ </span>Session finished: {arrowCount} arrows stored on this phone.
+          </p>
+          {arrowCount > 0 && (
+            <Button variant="secondary" onClick={undo}>
+              ↶ Undo last arrow (reopens the session)
+            </Button>
+          )}
+        </section>
+      )}
+      {arrowCount > 0 ? (
+        <>
+          <SessionSummary ends={ends} />
+          <EndList ends={ends} />
+        </>
+      ) : (
+        <p>No arrows yet. Tap where your first arrow hit, or switch to typing values.</p>
+      )}
+    </div>
+  );
+}
+
+function EndList({ ends }: { ends: PracticeEndRow[] }) {
+  const rows = ends.map((end) => {
+    const values = countedValues(end.arrows);
+    return { end, values, total: values.reduce((s, v) => s + arrowPoints(v), 0) };
+  });
+  const running = rows.map((_, i) => rows.slice(0, i + 1).reduce((s, r) => s + r.total, 0));
+  return (
+    <section aria-labelledby="practice-ends" className="space-y-2">
+      <h2 id="practice-ends" className="text-2xl font-bold">
+        Ends
+      </h2>
+      <ol className="space-y-2">
+        {rows.map(({ end, values, total }, i) => (
+          <li key={end.key} className="flex items-center gap-3">
+            <span className="w-16 shrink-0 font-bold">End {end.index + 1}</span>
+            <div className="min-w-0 flex-1">
+              <EndArrows arrows={values} slots={values.length} label={`End ${end.index + 1}`} />
+            </div>
+            <span className="w-20 shrink-0 text-right">
+              <strong>{total}</strong> <span className="text-ink-soft">/ {running[i]}</span>
+            </span>
+          </li>
+        ))}
+      </ol>
+    </section>
+  );
+}
