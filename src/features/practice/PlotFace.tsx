@@ -22,7 +22,7 @@ export function PlotFace({ setup, placed, onKeep }: Props) {
   const [mark, setMark] = useState<OffsetMm | undefined>(undefined);
   const face = getFace(setup.faceId);
   const frame = faceFrame(setup.faceId);
-  const markRadius = Math.max(setup.shaftDiameterMm / 2, face.diameterMm / 150);
+  const markRadius = Math.max(setup.shaftDiameterMm / 2, face.diameterMm / 80);
   const pending = mark ? plotPracticeArrow(setup, mark.xMm, mark.yMm) : undefined;
 
   const pointAt = (e: PointerEvent<SVGSVGElement>): OffsetMm | undefined => {

@@ -85,7 +85,7 @@ function SessionView({ session, ends }: { session: PracticeSessionRow; ends: Pra
             ← Practice log
           </Link>
         </p>
-        <h1 className="text-3xl font-bold leading-tight">{sessionTitle(session)}</h1>
+        <h1 className="text-2xl font-bold leading-tight">{sessionTitle(session)}</h1>
         <p>
           {BOW_STYLE_LABELS[session.bowStyle]} · {new Date(session.startedAt).toLocaleString()}
           {session.note && <span className="block">{session.note}</span>}
@@ -93,7 +93,6 @@ function SessionView({ session, ends }: { session: PracticeSessionRow; ends: Pra
       </header>
       {setup && index !== undefined ? (
         <section aria-labelledby="practice-end" className="space-y-3">
-          <SafetyNote compact />
           <h2 id="practice-end" className="text-2xl font-bold">
             End {index + 1}
             {plan ? ` of ${plan.length}` : ''} · {setup.distanceM} m
@@ -103,18 +102,6 @@ function SessionView({ session, ends }: { session: PracticeSessionRow; ends: Pra
             slots={setup.arrows}
             label={`End ${index + 1} so far`}
           />
-          <div role="group" aria-label="How to enter arrows" className="grid grid-cols-2 gap-2">
-            {(['plot', 'keys'] as const).map((m) => (
-              <Button
-                key={m}
-                variant={mode === m ? 'primary' : 'secondary'}
-                aria-pressed={mode === m}
-                onClick={() => chooseMode(m)}
-              >
-                {m === 'plot' ? 'Plot on the face' : 'Type values'}
-              </Button>
-            ))}
-          </div>
           {mode === 'plot' ? (
             <PlotFace
               setup={{ ...session, faceId: setup.faceId }}
@@ -144,7 +131,22 @@ function SessionView({ session, ends }: { session: PracticeSessionRow; ends: Pra
               Finish session
             </Button>
           </div>
+          <div role="group" aria-label="How to enter arrows" className="grid grid-cols-2 gap-2">
+            {(['plot', 'keys'] as const).map((m) => (
+              <Button
+                key={m}
+                variant="secondary"
+                aria-pressed={mode === m}
+                onClick={() => chooseMode(m)}
+                className="px-2"
+              >
+                {mode === m && <span aria-hidden="true">✓ </span>}
+                {m === 'plot' ? 'Plot on the face' : 'Type values'}
+              </Button>
+            ))}
+          </div>
           {error && <p role="alert">{error}</p>}
+          <SafetyNote compact />
         </section>
       ) : (
         <section className="space-y-2">
@@ -183,14 +185,14 @@ function EndList({ ends }: { ends: PracticeEndRow[] }) {
       </h2>
       <ol className="space-y-2">
         {rows.map(({ end, values, total }, i) => (
-          <li key={end.key} className="flex items-center gap-3">
-            <span className="w-16 shrink-0 font-bold">End {end.index + 1}</span>
-            <div className="min-w-0 flex-1">
-              <EndArrows arrows={values} slots={values.length} label={`End ${end.index + 1}`} />
-            </div>
-            <span className="w-20 shrink-0 text-right">
-              <strong>{total}</strong> <span className="text-ink-soft">/ {running[i]}</span>
-            </span>
+          <li key={end.key} className="space-y-1">
+            <p className="flex justify-between">
+              <span className="font-bold">End {end.index + 1}</span>
+              <span>
+                <strong>{total}</strong> <span className="text-ink-soft">· running {running[i]}</span>
+              </span>
+            </p>
+            <EndArrows arrows={values} slots={values.length} label={`End ${end.index + 1}`} />
           </li>
         ))}
       </ol>

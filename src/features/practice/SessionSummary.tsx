@@ -30,7 +30,11 @@ function Group({ part }: { part: DistancePart }) {
   const { group, faceId } = part;
   if (!group) return <p>No plotted arrows here: plot arrows on the face to see the group.</p>;
   const face = getFace(faceId);
-  const r = face.diameterMm / 150;
+  // A closer look: the group and the centre, at least three zones across, at most the whole face.
+  const reach = Math.max(...part.points.map((p) => Math.hypot(p.xMm, p.yMm)), 3 * face.zoneWidthMm);
+  const outer = face.zones[face.zones.length - 1]?.outerRadiusMm ?? face.diameterMm / 2;
+  const viewRadius = Math.min(reach * 1.15, outer * 1.08);
+  const r = viewRadius / 35;
   return (
     <div className="space-y-2">
       <p>
@@ -40,6 +44,7 @@ function Group({ part }: { part: DistancePart }) {
       <TargetFace
         faceId={faceId}
         singleSpot
+        view={{ xMm: 0, yMm: 0, radiusMm: viewRadius }}
         label={`Plotted arrows on the ${face.label}, with the group centre ${describeCentre(group)} and a circle of ${Math.round(group.spreadMm)} mm around it`}
         className="max-w-sm"
       >

@@ -57,20 +57,37 @@ type Props = Omit<SVGProps<SVGSVGElement>, 'ref'> & {
   /** Draw one spot only (a group measured from its spot's centre). */
   singleSpot?: boolean;
   label: string;
+  /** Show only this square around (x, y), in mm, instead of the whole face (a closer look). */
+  view?: { xMm: number; yMm: number; radiusMm: number } | undefined;
   children?: ReactNode;
   className?: string;
 };
 
 /** A target face drawn to scale in mm (1 unit = 1 mm), with marks laid over it as children. */
-export function TargetFace({ faceId, singleSpot = false, label, children, className = '', ...svg }: Props) {
-  const frame = faceFrame(faceId, singleSpot);
+export function TargetFace({
+  faceId,
+  singleSpot = false,
+  label,
+  view,
+  children,
+  className = '',
+  ...svg
+}: Props) {
+  const frame = view
+    ? {
+        x: view.xMm - view.radiusMm,
+        y: view.yMm - view.radiusMm,
+        width: 2 * view.radiusMm,
+        height: 2 * view.radiusMm,
+      }
+    : faceFrame(faceId, singleSpot);
   const centres = singleSpot ? [0] : getFace(faceId).spotCentresMm;
   return (
     <svg
       viewBox={`${frame.x} ${frame.y} ${frame.width} ${frame.height}`}
       role="img"
       aria-label={label}
-      className={`mx-auto block max-h-[60vh] w-full ${className}`}
+      className={`mx-auto block max-h-[60vh] w-full overflow-hidden ${className}`}
       {...svg}
     >
       {centres.map((cy) => (
