@@ -1,6 +1,5 @@
 import { useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
-import { useLiveQuery } from 'dexie-react-hooks';
 import { BOW_STYLES, FACE_IDS, ROUND_CATALOG, getFace, roundArrowCount } from '../../core';
 import { countedValues, practiceTally } from '../../core/practice';
 import type { BowStyle, FaceId, Venue } from '../../core';
@@ -11,6 +10,7 @@ import { SelectField } from '../../ui/SelectField';
 import { Notice } from '../../ui/Notice';
 import { SafetyNote } from '../../ui/SafetyNote';
 import { BOW_STYLE_LABELS, sessionTitle } from './plan';
+import { useStored } from './useStored';
 import {
   deletePracticeSession,
   restorePracticeSession,
@@ -193,7 +193,7 @@ function StartPractice() {
 
 function PastSessions() {
   const [deleted, setDeleted] = useState<DeletedPractice>();
-  const sessions = useLiveQuery(async () => {
+  const sessions = useStored(async () => {
     const db = localDb();
     const rows = await db.practiceSessions.orderBy('startedAt').reverse().toArray();
     const ends = await db.practiceEnds.toArray();
@@ -203,7 +203,7 @@ function PastSessions() {
         ends.filter((e) => e.sessionId === session.id).flatMap((e) => countedValues(e.arrows)),
       ),
     }));
-  });
+  }, 'all');
   const remove = (id: string) => void deletePracticeSession(id).then((gone) => setDeleted(gone));
   const undo = () => {
     if (!deleted) return;

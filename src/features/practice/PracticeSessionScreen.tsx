@@ -1,19 +1,19 @@
 import { useCallback, useState } from 'react';
-import { Link, useParams } from 'react-router-dom';
-import { useLiveQuery } from 'dexie-react-hooks';
+import { Link } from 'react-router-dom';
 import { arrowPoints, scoringValues } from '../../core';
 import type { ArrowValue } from '../../core';
 import { countedValues, isPlotted } from '../../core/practice';
 import type { PracticeArrow } from '../../core/practice';
 import { localDb, type PracticeEndRow, type PracticeSessionRow } from '../../local/db';
 import { ArrowKeypad } from '../../ui/scorecard/ArrowKeypad';
-import { EndArrows } from '../../ui/scorecard/EndArrows';
+import { EndValues } from './EndValues';
 import { SafetyNote } from '../../ui/SafetyNote';
 import { Button } from '../../ui/Button';
 import { BOW_STYLE_LABELS, endSetup, nextEndIndex, plannedEnds, sessionTitle } from './plan';
 import { addPracticeArrow, finishPracticeSession, practiceEnds, undoPracticeArrow } from './practiceStore';
 import { PlotFace } from './PlotFace';
 import { SessionSummary } from './SessionSummary';
+import { useStored } from './useStored';
 
 type Mode = 'plot' | 'keys';
 const MODE_KEY = 'ringcall.practiceMode';
@@ -29,12 +29,11 @@ function savedMode(): Mode {
 const linkClass = 'inline-flex min-h-11 items-center text-base font-bold underline';
 
 /** One practice session: enter or plot the next arrows, then its summary. Works from IndexedDB alone. */
-export function PracticeSessionScreen() {
-  const { sessionId = '' } = useParams();
-  const data = useLiveQuery(async () => {
+export function PracticeSessionScreen({ sessionId }: { sessionId: string }) {
+  const data = useStored(async () => {
     const session = await localDb().practiceSessions.get(sessionId);
     return { session, ends: session ? await practiceEnds(sessionId) : [] };
-  }, [sessionId]);
+  }, sessionId);
   if (!data) return <p>Opening…</p>;
   if (!data.session)
     return (
@@ -97,8 +96,8 @@ function SessionView({ session, ends }: { session: PracticeSessionRow; ends: Pra
             End {index + 1}
             {plan ? ` of ${plan.length}` : ''} · {setup.distanceM} m
           </h2>
-          <EndArrows
-            arrows={current ? countedValues(current.arrows) : []}
+          <EndValues
+            values={current ? countedValues(current.arrows) : []}
             slots={setup.arrows}
             label={`End ${index + 1} so far`}
           />
@@ -192,7 +191,7 @@ function EndList({ ends }: { ends: PracticeEndRow[] }) {
                 <strong>{total}</strong> <span className="text-ink-soft">· running {running[i]}</span>
               </span>
             </p>
-            <EndArrows arrows={values} slots={values.length} label={`End ${end.index + 1}`} />
+            <EndValues values={values} slots={values.length} label={`End ${end.index + 1}`} />
           </li>
         ))}
       </ol>

@@ -4,13 +4,7 @@ import { lazyScreen } from '../../app/lazyScreen';
 export const practiceRoutes: RouteObject[] = [
   {
     // Works from IndexedDB alone, with no account: no query library in its first load.
-    path: 'practice',
-    element: lazyScreen(async () => (await import('./screens')).PracticeScreen, { serverData: false }),
-  },
-  {
-    path: 'practice/:sessionId',
-    element: lazyScreen(async () => (await import('./screens')).PracticeSessionScreen, {
-      serverData: false,
-    }),
+    path: 'practice/*',
+    element: lazyScreen(async () => (await import('./PracticeArea')).PracticeArea, { serverData: false }),
   },
 ];
