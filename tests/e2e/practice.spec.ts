@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { expect, test, type Page } from '@playwright/test';
 import { checkA11y } from './support/a11y';
 
@@ -86,6 +87,15 @@ test('with no account and no signal, a practice session plotted arrow by arrow i
   await expect(page.getByTestId('practice-sessions')).toContainText('from 12 arrows');
   await checkA11y(page, 'practice log with one session');
   await page.screenshot({ path: '.tmp/screens/practice-log.png', fullPage: true });
+
+  // The log leaves the phone as CSV, one row an arrow, with no signal.
+  const download = page.waitForEvent('download');
+  await page.getByRole('button', { name: 'Export the log as CSV' }).click();
+  const csv = readFileSync((await (await download).path())!, 'utf8')
+    .trimEnd()
+    .split('\r\n');
+  expect(csv).toHaveLength(1 + 12);
+  expect(csv[1]).toContain('Club hall');
 
   // Delete, then undo: the session comes back whole.
   await page.getByRole('button', { name: /^Delete Free practice/ }).click();

@@ -4,6 +4,7 @@ import { BOW_STYLES, FACE_IDS, ROUND_CATALOG, getFace, roundArrowCount } from '.
 import { countedValues, practiceTally } from '../../core/practice';
 import type { BowStyle, FaceId, Venue } from '../../core';
 import { localDb } from '../../local/db';
+import { saveFile } from '../../api/downloadFile';
 import { Button } from '../../ui/Button';
 import { Field } from '../../ui/Field';
 import { SelectField } from '../../ui/SelectField';
@@ -11,6 +12,7 @@ import { Notice } from '../../ui/Notice';
 import { SafetyNote } from '../../ui/SafetyNote';
 import { BOW_STYLE_LABELS, sessionTitle } from './plan';
 import { useStored } from './useStored';
+import { practiceCsv } from './practiceCsv';
 import {
   deletePracticeSession,
   restorePracticeSession,
@@ -103,15 +105,18 @@ function StartPractice() {
       </h2>
       <div role="group" aria-label="Bow style" className="grid grid-cols-3 gap-2">
         {BOW_STYLES.map((b) => (
-          <Button
+          // Three to a line on a phone: the shared Button's larger type would not fit "Compound".
+          <button
             key={b}
-            variant={b === bowStyle ? 'primary' : 'secondary'}
+            type="button"
             aria-pressed={b === bowStyle}
             onClick={() => chooseBow(b)}
-            className="px-2"
+            className={`min-h-14 rounded-lg border-2 px-1 text-base font-bold transition-transform active:scale-[0.97] ${
+              b === bowStyle ? 'border-moss bg-moss text-white' : 'border-ink bg-card text-ink'
+            }`}
           >
             {BOW_STYLE_LABELS[b]}
-          </Button>
+          </button>
         ))}
       </div>
       <Field
@@ -205,6 +210,14 @@ function PastSessions() {
     }));
   }, 'all');
   const remove = (id: string) => void deletePracticeSession(id).then((gone) => setDeleted(gone));
+  const exportCsv = async () => {
+    const db = localDb();
+    const csv = practiceCsv(await db.practiceSessions.toArray(), await db.practiceEnds.toArray());
+    saveFile(
+      new Blob([csv], { type: 'text/csv;charset=utf-8' }),
+      `ringcall-practice-${new Date().toISOString().slice(0, 10)}.csv`,
+    );
+  };
   const undo = () => {
     if (!deleted) return;
     void restorePracticeSession(deleted).then(() => setDeleted(undefined));
@@ -258,6 +271,11 @@ function PastSessions() {
           </li>
         ))}
       </ul>
+      {sessions && sessions.length > 0 && (
+        <Button variant="secondary" className="w-full" onClick={() => void exportCsv()}>
+          Export the log as CSV
+        </Button>
+      )}
     </section>
   );
 }
