@@ -49,6 +49,17 @@ test('with no account and no signal, a practice session plotted arrow by arrow i
   await page.screenshot({ path: '.tmp/screens/practice-plot-start.png', fullPage: true });
 
   for (const [i, plot] of PLOTS.entries()) {
+    if (i === 2) await page.getByRole('button', { name: 'Closer look (inner zones)' }).click();
+    if (i === 11) {
+      // The last arrow by keyboard: the mark starts at the centre, each arrow key moves it a
+      // quarter zone (5 mm on the 40 cm face), Enter keeps it: (40, -15) mm.
+      await page.getByTestId('plot-face').focus();
+      for (let k = 0; k < 8; k += 1) await page.keyboard.press('ArrowRight');
+      for (let k = 0; k < 3; k += 1) await page.keyboard.press('ArrowUp');
+      await expect(page.getByTestId('keep-arrow')).toHaveText(/Keep arrow: (9|10)/);
+      await page.keyboard.press('Enter');
+      break;
+    }
     const target = await pixelsOf(page, plot.xMm, plot.yMm);
     if (i === 0) {
       // The first arrow is dragged into place from the centre before it is kept.
@@ -61,8 +72,9 @@ test('with no account and no signal, a practice session plotted arrow by arrow i
       await page.mouse.click(target.x, target.y);
     }
     if (i === 3) {
-      await checkA11y(page, 'practice session, a mark waiting');
+      await checkA11y(page, 'practice session, a mark waiting, closer look');
       await page.screenshot({ path: '.tmp/screens/practice-plot-mark.png', fullPage: true });
+      await page.getByRole('button', { name: 'Whole face' }).click();
     }
     await page.getByTestId('keep-arrow').click();
     if (i === 5) await expect(page.getByRole('heading', { name: /End 2 of 2/ })).toBeVisible();
@@ -71,8 +83,9 @@ test('with no account and no signal, a practice session plotted arrow by arrow i
   const summary = page.getByTestId('practice-summary');
   await expect(page.getByTestId('session-finished')).toContainText('12 arrows');
   await expect(summary).toContainText('from 12 arrows');
-  // Mean of the twelve points: (30, -10) → √1000 ≈ 31.6 mm, atan2(30, 10) ≈ 71.6° → 2 o'clock
-  // (a pixel of rounding per tap may move it by a millimetre).
+  // Mean of the twelve points: about (30, -10) → √1000 ≈ 31.6 mm, atan2(30, 10) ≈ 71.6° → 2 o'clock
+  // (the keyboard's arrow at (40, -15) instead of (43, -17.5) and a pixel of rounding per tap may
+  // move it by a millimetre).
   await expect(summary).toContainText(/3[12] mm at 2 o’clock/);
   await checkA11y(page, 'practice session, summary');
   await page.screenshot({ path: '.tmp/screens/practice-summary.png', fullPage: true });

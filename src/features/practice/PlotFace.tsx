@@ -1,6 +1,6 @@
 import { useRef, useState, type KeyboardEvent, type PointerEvent } from 'react';
 import { getFace } from '../../core';
-import { plotPracticeArrow } from '../../core/practice';
+import { offsetOnSpot, plotPracticeArrow } from '../../core/practice';
 import type { OffsetMm, PlotSetup, PracticeArrow } from '../../core/practice';
 import { Button } from '../../ui/Button';
 import { ArrowMark, TargetFace, faceFrame } from './TargetFace';
@@ -22,7 +22,16 @@ export function PlotFace({ setup, placed, onKeep }: Props) {
   const [mark, setMark] = useState<OffsetMm | undefined>(undefined);
   const face = getFace(setup.faceId);
   const frame = faceFrame(setup.faceId);
-  const markRadius = Math.max(setup.shaftDiameterMm / 2, face.diameterMm / 80);
+  // A closer look: the inner zones of one spot, twice as large. The spot is the one the mark (or
+  // the last arrow) was on when asked for, and stays put while a mark is dragged.
+  const [closerOn, setCloserOn] = useState<number | undefined>(undefined);
+  const lookCloser = () => {
+    const focus = mark ?? placed[placed.length - 1];
+    setCloserOn(focus ? focus.yMm - offsetOnSpot(setup.faceId, focus.xMm, focus.yMm).yMm : 0);
+  };
+  const closer = closerOn !== undefined;
+  const view = closer ? { xMm: 0, yMm: closerOn, radiusMm: frame.radius / 2 } : undefined;
+  const markRadius = Math.max(setup.shaftDiameterMm / 2, (view ? frame.radius : face.diameterMm) / 80);
   const pending = mark ? plotPracticeArrow(setup, mark.xMm, mark.yMm) : undefined;
 
   const pointAt = (e: PointerEvent<SVGSVGElement>): OffsetMm | undefined => {
@@ -70,6 +79,7 @@ export function PlotFace({ setup, placed, onKeep }: Props) {
       <TargetFace
         ref={svg}
         faceId={setup.faceId}
+        view={view}
         role="application"
         label="Target face: tap where the arrow hit, drag to adjust. Arrow keys move the mark, Enter keeps it."
         tabIndex={0}
@@ -115,6 +125,14 @@ export function PlotFace({ setup, placed, onKeep }: Props) {
         </Button>
         <Button variant="secondary" onClick={() => setMark(undefined)} disabled={!mark}>
           Clear
+        </Button>
+        <Button
+          variant="secondary"
+          className="col-span-2"
+          aria-pressed={closer}
+          onClick={() => (closer ? setCloserOn(undefined) : lookCloser())}
+        >
+          {closer ? 'Whole face' : 'Closer look (inner zones)'}
         </Button>
       </div>
     </div>
