@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
-import { BOW_STYLES, FACE_IDS, ROUND_CATALOG, getFace, roundArrowCount } from '../../core';
+import { BOW_STYLES, ROUND_CATALOG, roundArrowCount } from '../../core';
 import { countedValues, practiceTally } from '../../core/practice';
 import type { BowStyle, FaceId, Venue } from '../../core';
 import { localDb } from '../../local/db';
@@ -8,6 +8,7 @@ import { saveFile } from '../../api/downloadFile';
 import { Button } from '../../ui/Button';
 import { Field } from '../../ui/Field';
 import { SelectField } from '../../ui/SelectField';
+import { FaceSelect } from '../../ui/FaceSelect';
 import { Notice } from '../../ui/Notice';
 import { SafetyNote } from '../../ui/SafetyNote';
 import { BOW_STYLE_LABELS, sessionTitle } from './plan';
@@ -169,17 +170,7 @@ function StartPractice() {
             <option key={n}>{n}</option>
           ))}
         </SelectField>
-        <SelectField
-          label="Face"
-          value={free.faceId}
-          onChange={(e) => setFree({ ...free, faceId: e.target.value as FaceId })}
-        >
-          {FACE_IDS.map((id) => (
-            <option key={id} value={id}>
-              {getFace(id).label}
-            </option>
-          ))}
-        </SelectField>
+        <FaceSelect value={free.faceId} onChange={(faceId) => setFree({ ...free, faceId })} />
         <Field
           label="Ends"
           hint="Empty: open-ended"

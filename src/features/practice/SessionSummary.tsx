@@ -51,23 +51,22 @@ function Group({ part }: { part: DistancePart }) {
         {part.points.map((p, i) => (
           <ArrowMark key={i} x={p.xMm} y={p.yMm} r={r} />
         ))}
-        <circle
-          cx={group.centre.xMm}
-          cy={group.centre.yMm}
-          r={Math.max(group.spreadMm, r)}
-          fill="none"
-          stroke="#ffffff"
-          strokeWidth={r * 0.9}
-          strokeDasharray={`${r * 2} ${r}`}
-        />
-        <circle
-          cx={group.centre.xMm}
-          cy={group.centre.yMm}
-          r={Math.max(group.spreadMm, r)}
-          fill="none"
-          stroke="#1b1b1b"
-          strokeWidth={r * 0.4}
-        />
+        {/* The spread's circle: a dark line on a dashed light one, seen on every zone colour. */}
+        {[
+          { stroke: '#ffffff', width: 0.9, dash: `${r * 2} ${r}` },
+          { stroke: '#1b1b1b', width: 0.4, dash: undefined },
+        ].map((line) => (
+          <circle
+            key={line.stroke}
+            cx={group.centre.xMm}
+            cy={group.centre.yMm}
+            r={Math.max(group.spreadMm, r)}
+            fill="none"
+            stroke={line.stroke}
+            strokeWidth={r * line.width}
+            strokeDasharray={line.dash}
+          />
+        ))}
         <path
           d={`M ${group.centre.xMm - 3 * r} ${group.centre.yMm} h ${6 * r} M ${group.centre.xMm} ${group.centre.yMm - 3 * r} v ${6 * r}`}
           stroke="#1b1b1b"
