@@ -67,8 +67,11 @@ function SessionView({ session, ends }: { session: PracticeSessionRow; ends: Pra
   };
   const add = useCallback(
     (arrows: PracticeArrow[]) => {
+      const tapped = performance.now();
       void (async () => {
         for (const arrow of arrows) await addPracticeArrow(session.id, arrow);
+        // Read by bench/practice-plot.bench.ts: from the tap to the committed transaction.
+        performance.measure('ringcall:practice-tap-to-commit', { start: tapped });
       })().catch(() => setError('This phone could not store the arrow. Try again.'));
     },
     [session.id],

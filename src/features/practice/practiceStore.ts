@@ -23,9 +23,12 @@ export async function practiceEnds(sessionId: string, db = localDb()): Promise<P
  */
 export function addPracticeArrow(sessionId: string, arrow: PracticeArrow, db = localDb()): Promise<boolean> {
   return db.transaction('rw', db.practiceSessions, db.practiceEnds, async () => {
-    const session = await db.practiceSessions.get(sessionId);
+    // Both reads at once: each round trip inside the transaction delays its commit.
+    const [session, ends] = await Promise.all([
+      db.practiceSessions.get(sessionId),
+      practiceEnds(sessionId, db),
+    ]);
     if (!session || session.finishedAt) return false;
-    const ends = await practiceEnds(sessionId, db);
     const index = nextEndIndex(session, ends);
     const setup = index === undefined ? undefined : endSetup(session, index);
     if (index === undefined || !setup) return false;
