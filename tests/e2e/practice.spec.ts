@@ -116,3 +116,24 @@ test('with no account and no signal, a practice session plotted arrow by arrow i
   await page.getByRole('button', { name: 'Undo' }).click();
   await expect(page.getByTestId('practice-sessions')).toContainText('from 12 arrows');
 });
+
+test('a catalog round starts in two taps and takes values from the pad’s keys and a keyboard', async ({
+  page,
+}) => {
+  await page.goto('/practice');
+  await page.getByRole('button', { name: 'Barebow' }).click();
+  await page.getByRole('button', { name: /50 m barebow round/ }).click();
+  await expect(page.getByRole('heading', { level: 1 })).toHaveText('50 m barebow round');
+  await expect(page.getByRole('heading', { name: /End 1 of 12 · 50 m/ })).toBeVisible();
+  await page.getByRole('button', { name: 'Type values' }).click();
+  await page.getByRole('button', { name: 'Arrow X', exact: true }).click();
+  // A keyboard: "1" then "0" is 10, "9" is 9, "m" a miss (src/ui/scorecard/keyEntry.ts).
+  await page.keyboard.press('1');
+  await page.keyboard.press('0');
+  await page.keyboard.press('9');
+  await page.keyboard.press('m');
+  await expect(page.getByRole('list', { name: 'End 1 so far' })).toHaveText(/X109M/);
+  await expect(page.getByTestId('practice-summary')).toContainText('29 from 4 arrows');
+  await checkA11y(page, 'practice session, typing values');
+  await page.screenshot({ path: '.tmp/screens/practice-keys.png', fullPage: true });
+});
