@@ -2,7 +2,8 @@
  * Plotted-arrow scoring throughput: 1,000,000 random positions on the 122 cm face and on the
  * 40 cm triple face. Prints median time and arrows per second; asserts nothing.
  */
-import { arrowPoints, getFace, scorePlottedArrow } from '../src/core';
+import { arrowPoints, getFace } from '../src/core';
+import { scorePlottedArrow } from '../src/core/plotting';
 import type { BowStyle, FaceId, Venue } from '../src/core';
 
 const ARROWS = 1_000_000;

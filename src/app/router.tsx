@@ -12,6 +12,7 @@ import { cardRoutes } from '../features/cards/routes';
 import { eventRoutes } from '../features/events/routes';
 import { resultsRoutes } from '../features/results/routes';
 import { bracketRoutes } from '../features/brackets/routes';
+import { practiceRoutes } from '../features/practice/routes';
 
 /** The screen area: a screen that throws, or whose chunk cannot be fetched, shows RouteError inside the layout. */
 function ScreenArea() {
@@ -65,6 +66,7 @@ const routes: RouteObject[] = [
           ...cardRoutes,
           ...eventRoutes,
           ...bracketRoutes,
+          ...practiceRoutes,
           {
             // The operator's, not an app role's: no sign-in, and nothing of it in the query cache.
             path: 'operator/mail',

@@ -49,8 +49,9 @@ export type { WriterLock } from './endLock';
 export { cardTotals } from './card';
 export type { CardEnd, CardTotals, DistanceTally, Tally } from './card';
 
-export { oneArrowPerSpot, scorePlottedArrow } from './plotting';
-export type { PlottedArrow, PlottedScore } from './plotting';
+// Plotting (./plotting) and practice (./practice) are imported from their own files: through this
+// index their code would join the chunk every screen shares, the pad's too, though only the
+// practice screens use them.
 
 export { crossCheck } from './crossCheck';
 export type { CrossCheck, CrossCheckArrow, CrossCheckStatus } from './crossCheck';

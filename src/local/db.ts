@@ -1,5 +1,7 @@
 import type { MatchEndArgs, MatchShootOffArgs, MatchSignArgs } from '../contract/matches';
 import { Dexie, type EntityTable } from 'dexie';
+import type { BowStyle, FaceId, Venue } from '../core';
+import type { PracticeArrow } from '../core/practice';
 import type {
   CardSignatureDto,
   EndRuleArgs,
@@ -63,6 +65,46 @@ export type OutboxRow = {
 
 export type MetaRow = { key: string; value: unknown };
 
+/** The owner of practice recorded while no one is signed in on this phone. */
+export const NO_ACCOUNT = 0;
+
+/**
+ * A practice session, kept on this phone (see docs/practice.md). A catalog round gives its ends;
+ * free practice gives one distance and face, and a number of ends or none (open).
+ */
+export type PracticeSessionRow = {
+  id: string;
+  /** Who recorded it: a person's id, or NO_ACCOUNT (adopted by the next person who signs in). */
+  ownerId: number;
+  startedAt: string;
+  /** A round from the catalog; absent for free practice. */
+  roundId?: string;
+  bowStyle: BowStyle;
+  venue: Venue;
+  /** Free practice's setup (a round's come from the catalog). */
+  distanceM: number;
+  faceId: FaceId;
+  arrowsPerEnd: number;
+  /** Ends planned; null is open-ended. */
+  plannedEnds: number | null;
+  /** Used by the plotting rule: a line touch is judged at the shaft's edge. */
+  shaftDiameterMm: number;
+  note?: string;
+  finishedAt?: string;
+};
+
+/** One end of a practice session, arrows in the order they were entered or plotted. */
+export type PracticeEndRow = {
+  /** sessionId:index */
+  key: string;
+  sessionId: string;
+  index: number;
+  distanceM: number;
+  faceId: FaceId;
+  arrows: PracticeArrow[];
+  at: string;
+};
+
 export class LocalDb extends Dexie {
   meta!: EntityTable<MetaRow, 'key'>;
   targets!: EntityTable<JoinedTarget, 'key'>;
@@ -72,6 +114,8 @@ export class LocalDb extends Dexie {
   rulings!: EntityTable<RulingRow, 'id'>;
   endSignatures!: EntityTable<EndSignatureRow, 'id'>;
   cardSignatures!: EntityTable<CardSignatureRow, 'id'>;
+  practiceSessions!: EntityTable<PracticeSessionRow, 'id'>;
+  practiceEnds!: EntityTable<PracticeEndRow, 'key'>;
 
   constructor(name = 'ringcall') {
     // No live-query cache: a tap's write bypasses Dexie (see writeAtOnce), and a cached answer
@@ -89,6 +133,11 @@ export class LocalDb extends Dexie {
       rulings: 'id, endKey, sessionId',
       endSignatures: 'id, endKey, sessionId',
       cardSignatures: 'id, cardKey, sessionId',
+    });
+    // Version 3 adds the practice log; earlier data is kept as it is.
+    this.version(3).stores({
+      practiceSessions: 'id, startedAt, ownerId',
+      practiceEnds: 'key, sessionId',
     });
   }
 }

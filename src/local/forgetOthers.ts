@@ -1,4 +1,4 @@
-import type { LocalDb, OutboxRow } from './db';
+import { NO_ACCOUNT, type LocalDb, type OutboxRow } from './db';
 
 /** A change the server has not accepted yet: it belongs to its person until it reaches the server. */
 const isWaiting = (row: OutboxRow) => row.status !== 'applied';
@@ -10,7 +10,8 @@ const isWaiting = (row: OutboxRow) => row.status !== 'applied';
  *
  * Another person's changes that have not reached the server stay, and so does each target they
  * are about: they go to the server when that person signs in again. Every screen reads them
- * by person, so no one else sees them.
+ * by person, so no one else sees them. Practice stays the same way (it lives only on the phone);
+ * practice recorded with no one signed in becomes the practice of the person signing in.
  */
 export async function forgetOthers(db: LocalDb, keep: number | undefined): Promise<void> {
   await db.transaction(
@@ -24,8 +25,11 @@ export async function forgetOthers(db: LocalDb, keep: number | undefined): Promi
       db.rulings,
       db.endSignatures,
       db.cardSignatures,
+      db.practiceSessions,
     ],
     async () => {
+      if (keep !== undefined)
+        await db.practiceSessions.where('ownerId').equals(NO_ACCOUNT).modify({ ownerId: keep });
       const others = (await db.outbox.toArray()).filter((r) => r.userId !== keep);
       const waiting = others.filter(isWaiting);
       const targets = (await db.targets.toArray()).filter((t) => t.userId !== keep);

@@ -7,11 +7,10 @@ import {
   TRIPLE_SPOT_SPACING_MM,
   compareArrowValues,
   getFace,
-  oneArrowPerSpot,
-  scorePlottedArrow,
   scoresInnerTenOnly,
 } from '../../src/core';
 import type { ArrowValue, BowStyle, FaceId, Venue } from '../../src/core';
+import { oneArrowPerSpot, scorePlottedArrow } from '../../src/core/plotting';
 
 type Setup = { faceId: FaceId; bowStyle: BowStyle; venue: Venue };
 

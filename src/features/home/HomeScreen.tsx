@@ -97,11 +97,24 @@ function Welcome({ known }: { known: boolean }) {
   );
 }
 
+/** For everyone, signed in or not: the practice log needs no account. */
+function PracticeLink() {
+  return (
+    <section aria-label="Practice" className="surface rounded-xl border border-line bg-card p-4">
+      <Link to="/practice" className="flex min-h-14 flex-col justify-center" data-testid="practice-link">
+        <span className="text-xl font-bold underline">Practice log</span>
+        <span>Score alone, plot each arrow, see your group. Kept on this phone, no account needed.</span>
+      </Link>
+    </section>
+  );
+}
+
 export function HomeScreen() {
   const me = useMe();
   return (
     <div className="space-y-6">
       {me.data ? <PersonHome me={me.data} /> : <Welcome known={!me.isPending} />}
+      <PracticeLink />
       <SafetyNote />
       <footer className="text-base text-ink-soft">
         <ServerLine />

@@ -1,8 +1,9 @@
-import { FACE_IDS, getFace, type BowStyle, type FaceId } from '../../../core';
+import type { BowStyle, FaceId } from '../../../core';
 import type { RoundSummary } from '../../../contract/events';
 import { Button } from '../../../ui/Button';
 import { Field } from '../../../ui/Field';
 import { SelectField } from '../../../ui/SelectField';
+import { FaceSelect } from '../../../ui/FaceSelect';
 
 export type DistanceDraft = { distanceM: string; faceId: FaceId; arrows: string; arrowsPerEnd: string };
 export type CustomRoundDraft = { name: string; venue: 'outdoor' | 'indoor'; distances: DistanceDraft[] };
@@ -97,17 +98,7 @@ export function CustomRoundFields({
               value={d.distanceM}
               onChange={(e) => setDistance(i, { distanceM: e.target.value })}
             />
-            <SelectField
-              label="Face"
-              value={d.faceId}
-              onChange={(e) => setDistance(i, { faceId: e.target.value as FaceId })}
-            >
-              {FACE_IDS.map((id) => (
-                <option key={id} value={id}>
-                  {getFace(id).label}
-                </option>
-              ))}
-            </SelectField>
+            <FaceSelect value={d.faceId} onChange={(faceId) => setDistance(i, { faceId })} />
             <Field
               label="Arrows"
               inputMode="numeric"

@@ -1,0 +1,122 @@
+import { NO_ACCOUNT, localDb, type PracticeEndRow, type PracticeSessionRow } from '../../local/db';
+import { phoneOwner } from '../../local/phoneOwner';
+import type { PracticeArrow } from '../../core/practice';
+import { endSetup, nextEndIndex } from './plan';
+
+export type NewPracticeSession = Omit<PracticeSessionRow, 'id' | 'ownerId' | 'startedAt' | 'finishedAt'>;
+
+const endKey = (sessionId: string, index: number) => `${sessionId}:${index}`;
+
+export async function startPracticeSession(session: NewPracticeSession, db = localDb()): Promise<string> {
+  const id = crypto.randomUUID();
+  const ownerId = phoneOwner() ?? NO_ACCOUNT;
+  await db.practiceSessions.add({ ...session, id, ownerId, startedAt: new Date().toISOString() });
+  return id;
+}
+
+/**
+ * The practice of whoever uses the phone now (signed in, or no one), newest first, with its ends.
+ * A shared phone shows no one else's: theirs stays on the phone, hidden, until they sign in again.
+ */
+export async function ownPractice(
+  owner: number | undefined,
+  db = localDb(),
+): Promise<{ sessions: PracticeSessionRow[]; ends: PracticeEndRow[] }> {
+  const sessions = (
+    await db.practiceSessions
+      .where('ownerId')
+      .equals(owner ?? NO_ACCOUNT)
+      .toArray()
+  ).sort((a, b) => b.startedAt.localeCompare(a.startedAt));
+  const ends = await db.practiceEnds
+    .where('sessionId')
+    .anyOf(sessions.map((x) => x.id))
+    .toArray();
+  return { sessions, ends };
+}
+
+export async function practiceEnds(sessionId: string, db = localDb()): Promise<PracticeEndRow[]> {
+  const ends = await db.practiceEnds.where('sessionId').equals(sessionId).toArray();
+  return ends.sort((a, b) => a.index - b.index);
+}
+
+/**
+ * Stores one arrow in the session's current end (a new end when the last is full) and closes the
+ * session when its last planned end fills. Refused (false) when the session is already full.
+ */
+export function addPracticeArrow(sessionId: string, arrow: PracticeArrow, db = localDb()): Promise<boolean> {
+  return db.transaction('rw', db.practiceSessions, db.practiceEnds, async () => {
+    // Both reads at once: each round trip inside the transaction delays its commit.
+    const [session, ends] = await Promise.all([
+      db.practiceSessions.get(sessionId),
+      practiceEnds(sessionId, db),
+    ]);
+    if (!session || session.finishedAt) return false;
+    const index = nextEndIndex(session, ends);
+    const setup = index === undefined ? undefined : endSetup(session, index);
+    if (index === undefined || !setup) return false;
+    const existing = ends.find((e) => e.index === index);
+    const at = new Date().toISOString();
+    const end: PracticeEndRow = existing
+      ? { ...existing, arrows: [...existing.arrows, arrow], at }
+      : {
+          key: endKey(sessionId, index),
+          sessionId,
+          index,
+          distanceM: setup.distanceM,
+          faceId: setup.faceId,
+          arrows: [arrow],
+          at,
+        };
+    await db.practiceEnds.put(end);
+    const others = ends.filter((e) => e.index !== index);
+    if (
+      nextEndIndex(
+        session,
+        [...others, end].sort((a, b) => a.index - b.index),
+      ) === undefined
+    )
+      await db.practiceSessions.update(sessionId, { finishedAt: at });
+    return true;
+  });
+}
+
+/** Takes back the last arrow of the session (and reopens it if it was finished). */
+export function undoPracticeArrow(sessionId: string, db = localDb()): Promise<void> {
+  return db.transaction('rw', db.practiceSessions, db.practiceEnds, async () => {
+    const ends = await practiceEnds(sessionId, db);
+    const last = ends[ends.length - 1];
+    if (!last) return;
+    if (last.arrows.length <= 1) await db.practiceEnds.delete(last.key);
+    else await db.practiceEnds.put({ ...last, arrows: last.arrows.slice(0, -1) });
+    await db.practiceSessions.update(sessionId, { finishedAt: undefined });
+  });
+}
+
+export async function finishPracticeSession(sessionId: string, db = localDb()): Promise<void> {
+  await db.practiceSessions.update(sessionId, { finishedAt: new Date().toISOString() });
+}
+
+/** What a deletion removed, to put back on Undo. */
+export type DeletedPractice = { session: PracticeSessionRow; ends: PracticeEndRow[] };
+
+export function deletePracticeSession(
+  sessionId: string,
+  db = localDb(),
+): Promise<DeletedPractice | undefined> {
+  return db.transaction('rw', db.practiceSessions, db.practiceEnds, async () => {
+    const session = await db.practiceSessions.get(sessionId);
+    if (!session) return undefined;
+    const ends = await practiceEnds(sessionId, db);
+    await db.practiceEnds.bulkDelete(ends.map((e) => e.key));
+    await db.practiceSessions.delete(sessionId);
+    return { session, ends };
+  });
+}
+
+export function restorePracticeSession({ session, ends }: DeletedPractice, db = localDb()): Promise<void> {
+  return db.transaction('rw', db.practiceSessions, db.practiceEnds, async () => {
+    await db.practiceSessions.put(session);
+    await db.practiceEnds.bulkPut(ends);
+  });
+}
