@@ -198,4 +198,6 @@ try {
   );
 } finally {
   await browser.close();
+  // The server child would keep this process alive, and `npm run bench` waiting, for ever.
+  server.kill('SIGTERM');
 }
