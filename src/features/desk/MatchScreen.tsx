@@ -458,7 +458,7 @@ export function MatchScreen() {
   return (
     <div className="space-y-4">
       <h1 className="text-3xl font-bold">Match</h1>
-      <Link to={`/desk/${eventId}/matches`} className="font-bold underline">
+      <Link to={`/desk/${eventId}/matches`} className="inline-flex min-h-12 items-center font-bold underline">
         ◂ Matches
       </Link>
       <JudgeOnly eventId={eventId} only="Only the event's judges score matches.">

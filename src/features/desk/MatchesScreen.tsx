@@ -59,7 +59,7 @@ export function MatchesScreen() {
   return (
     <div className="space-y-4">
       <h1 className="text-3xl font-bold">Matches</h1>
-      <Link to={`/desk/${eventId}`} className="font-bold underline">
+      <Link to={`/desk/${eventId}`} className="inline-flex min-h-12 items-center font-bold underline">
         ◂ Judge desk
       </Link>
       <JudgeOnly eventId={eventId} only="Only the event's judges score matches.">

@@ -37,7 +37,10 @@ export function EliminationsPart({ summary }: { summary: EventSummary }) {
       <p>
         Once a division’s standings are final, create its bracket here. Judges score the matches from the
         judge desk; everyone follows them on the{' '}
-        <Link to={`/results/${eventId}/brackets`} className="font-bold underline">
+        <Link
+          to={`/results/${eventId}/brackets`}
+          className="inline-flex min-h-12 items-center font-bold underline"
+        >
           Eliminations page
         </Link>
         .
