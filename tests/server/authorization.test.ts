@@ -213,6 +213,27 @@ const BODY_ROUTES: BodyRule[] = [
     wrongTypes: { format: 3, clients: 'all' },
     as: 'judge',
   },
+  { method: 'post', path: (f) => `${ev(f)}/entries/import`, wrongTypes: { rows: 'all' } },
+  {
+    method: 'post',
+    path: (f) => `${ev(f)}/brackets`,
+    wrongTypes: { sessionId: 'x', divisionId: [], size: 7.5, format: 'knockout' },
+  },
+  // Match routes check the body before looking for the match (the fixture has none).
+  { method: 'patch', path: (f) => `${ev(f)}/matches/999999/target`, wrongTypes: { targetNumber: 'five' } },
+  { method: 'post', path: (f) => `${ev(f)}/matches/999999/walkover`, wrongTypes: { side: 'c', reason: 1 } },
+  {
+    method: 'put',
+    path: (f) => `${ev(f)}/matches/999999/ends/0`,
+    wrongTypes: { a: 'X X X', b: [10, 10, 10] },
+    as: 'judge',
+  },
+  {
+    method: 'put',
+    path: (f) => `${ev(f)}/matches/999999/shoot-off`,
+    wrongTypes: { a: { value: 'Q' }, b: { value: '9', distanceMm: -3, closer: true } },
+    as: 'judge',
+  },
 ];
 
 describe('bad input is refused with a readable message', () => {
