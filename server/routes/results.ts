@@ -2,8 +2,8 @@ import { Router, type Request, type RequestHandler } from 'express';
 import { resultsSendSchema, resultsSettingsSchema } from '../../src/contract/results';
 import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
-import { badRequest, notFound } from '../http/httpError';
-import { idParam } from '../http/params';
+import { notFound } from '../http/httpError';
+import { divisionQuery, idParam } from '../http/params';
 import { validateBody } from '../http/validate';
 import { eventBrackets } from '../services/matches/bracketView';
 import { finalPlacesOf } from '../services/results/bracketPlaces';
@@ -55,12 +55,7 @@ export function resultsRoutes(ctx: AppContext): Router {
 
   /** The standings now, and the one division `?division=ID` names (none: the whole event). */
   const standingsOf = async (req: Request, event: ResultsEvent) => {
-    const raw = req.query.division;
-    let divisionId: number | undefined;
-    if (raw !== undefined) {
-      divisionId = typeof raw === 'string' && /^\d{1,9}$/.test(raw) ? Number(raw) : NaN;
-      if (!(divisionId > 0)) throw badRequest('division must be the number of one of the event’s divisions.');
-    }
+    const divisionId = divisionQuery(req);
     const results = await cache.results(event, await cache.version(event));
     const known = results.sessions.some((s) => s.divisions.some((d) => d.divisionId === divisionId));
     if (divisionId !== undefined && !known) throw notFound('That division has no standings in this event.');

@@ -177,3 +177,46 @@ describe('send results', () => {
     expect(first.text_body).toContain('- Recurve Men, eliminations: final place 3 of 4');
   });
 });
+
+describe('the bracket PDF', () => {
+  const bracketPdf = (query = '', auth?: { Authorization: string }) => {
+    const req = request(server.app).get(`${base()}/brackets/pdf${query}`);
+    return (auth ? req.set(auth) : req).buffer(true).parse(binary);
+  };
+  const hasTitle = (body: Buffer, title: string) => body.toString('latin1').includes(`(${title})`);
+
+  it('prints each division’s bracket on a landscape page, for whoever may see the brackets', async () => {
+    // Published above: anyone may read it.
+    const res = await bracketPdf();
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/pdf');
+    expect(res.headers['content-disposition']).toBe(
+      `attachment; filename="eliminations-${field.eventId}.pdf"`,
+    );
+    const body = res.body as Buffer;
+    expect(body.subarray(0, 5).toString()).toBe('%PDF-');
+    expect(pdfPageCount(body)).toBe(1);
+    // A4 landscape.
+    expect(body.toString('latin1')).toMatch(/\/MediaBox \[0 0 841\.89 595\.28\]/);
+    expect(hasTitle(body, 'Eliminations - Field Shoot - Recurve Men')).toBe(true);
+    const one = await bracketPdf(`?division=${divisions.get('Recurve Men')!}`);
+    expect(one.status).toBe(200);
+    expect(one.headers['content-disposition']).toContain(`-division-${divisions.get('Recurve Men')!}.pdf`);
+  });
+
+  it('answers a division without a bracket or not a number with a readable 4xx', async () => {
+    const none = await request(server.app).get(
+      `${base()}/brackets/pdf?division=${divisions.get('Compound Women')!}`,
+    );
+    expect(none.status).toBe(404);
+    expect(none.body.error.message).toMatch(/no bracket/);
+    const bad = await request(server.app).get(`${base()}/brackets/pdf?division=abc`);
+    expect(bad.status).toBe(400);
+  });
+
+  it('is for the event’s people only until the results are published', async () => {
+    await request(server.app).patch(`${base()}/results-settings`).set(org()).send({ published: false });
+    expect((await request(server.app).get(`${base()}/brackets/pdf`)).status).toBe(403);
+    expect((await bracketPdf('', field.judge.auth)).status).toBe(200);
+  });
+});
