@@ -161,6 +161,9 @@ test('a spectator follows a four-archer bracket to its final places on a phone',
   await expect(places).toContainText('4. Jonah Quill');
   await expect(page.getByTestId(`match-${match(1, 0, true)}`)).toContainText('Walkover (no-show)');
   await checkA11y(page, 'brackets with final places (phone)');
+  const download = page.waitForEvent('download');
+  await page.getByRole('button', { name: 'Print the brackets (PDF)' }).click();
+  expect((await download).suggestedFilename()).toBe(`eliminations-${eventId}.pdf`);
   await page.screenshot({ path: '.tmp/screens/brackets-places.png', fullPage: true });
 
   // Every match decided: the field screen shows the final places instead of a round.

@@ -1,7 +1,6 @@
 import type { Writable } from 'node:stream';
 import type { BracketDto, MatchDto } from '../../../src/contract/matches';
-import type { Side } from '../../../src/core';
-import { matchStatus, roundName } from '../../../src/ui/bracketLabels';
+import { matchLine, matchStatus, roundName } from '../../../src/ui/bracketLabels';
 import { PrintDocument } from '../printouts/pdfDocument';
 
 /** A4 landscape. */
@@ -18,15 +17,6 @@ const PLACES_WIDTH = 170;
 type Page =
   | { kind: 'list'; bracket: BracketDto; round: number; matches: MatchDto[] }
   | { kind: 'tree'; bracket: BracketDto; firstRound: number };
-
-const sideText = (m: MatchDto, side: Side) => {
-  const s = m.sides[side];
-  if (!s) return m.decidedBy === 'bye' ? 'bye' : '';
-  return `${s.seed}  ${s.archers.map((a) => a.name).join(', ')}`;
-};
-const scoreText = (m: MatchDto, side: Side) =>
-  m.ends.length > 0 && m.state ? String(m.state.score[side]) : '';
-const winnerOf = (m: MatchDto) => m.winner ?? m.state?.winner ?? null;
 
 function pagesOf(brackets: BracketDto[]): Page[] {
   return brackets.flatMap((bracket) => {
@@ -47,17 +37,23 @@ function pagesOf(brackets: BracketDto[]): Page[] {
 /** One match as a box of two lines, the winner in bold with a tick. */
 function matchBox(pdf: PrintDocument, m: MatchDto, x: number, y: number, width: number): void {
   pdf.doc.lineWidth(1).rect(x, y, width, BOX).stroke(INK);
-  const winner = winnerOf(m);
   (['a', 'b'] as const).forEach((side, i) => {
     const ty = y + 4 + i * 16;
-    const won = winner === side;
-    pdf.text(sideText(m, side), x + 4, ty, {
+    const { seed, name, score, won } = matchLine(m, side);
+    // An empty line until the earlier match is decided.
+    const text = seed !== null ? `${seed}  ${name}` : name === 'bye' ? name : '';
+    pdf.text(text, x + 4, ty, {
       size: 9,
       bold: won,
       width: width - 36,
       minSize: 6,
     });
-    pdf.text(scoreText(m, side), x + width - 30, ty, { size: 9, bold: true, width: 26, align: 'right' });
+    pdf.text(score === undefined ? '' : String(score), x + width - 30, ty, {
+      size: 9,
+      bold: true,
+      width: 26,
+      align: 'right',
+    });
   });
 }
 
