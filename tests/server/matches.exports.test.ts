@@ -3,6 +3,8 @@ import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { roundEndCount, getRound, type ArrowValue } from '../../src/core';
 import type { BracketDto, MatchDto } from '../../src/contract/matches';
+import { PassThrough } from 'node:stream';
+import { bracketPdf } from '../../server/services/matches/bracketPdf';
 import { binary, pdfPageCount } from './support/eventSetup';
 import { setUpField, writeAgreedEnds, type Field } from './support/fieldSetup';
 import { waitForMail } from './support/mail';
@@ -218,5 +220,58 @@ describe('the bracket PDF', () => {
     await request(server.app).patch(`${base()}/results-settings`).set(org()).send({ published: false });
     expect((await request(server.app).get(`${base()}/brackets/pdf`)).status).toBe(403);
     expect((await bracketPdf('', field.judge.auth)).status).toBe(200);
+  });
+});
+
+describe('the bracket PDF of a large bracket', () => {
+  /** An undecided bracket of `size` archers, as the API reads it. */
+  const openBracket = (size: number): BracketDto => {
+    const rounds = Math.log2(size);
+    const matches: MatchDto[] = [];
+    const side = (seed: number) => ({ seed, archers: [{ entryId: seed, name: `Archer ${seed}`, club: '' }] });
+    for (let round = 0; round < rounds; round += 1)
+      for (let slot = 0; slot < size / 2 ** (round + 1) + (round === rounds - 1 ? 1 : 0); slot += 1)
+        matches.push({
+          id: matches.length + 1,
+          round,
+          slot: round === rounds - 1 && slot === 1 ? 0 : slot,
+          bronze: round === rounds - 1 && slot === 1,
+          targetNumber: null,
+          sides: round === 0 ? { a: side(slot + 1), b: side(size - slot) } : {},
+          ends: [],
+          shootOff: [],
+          state: null,
+          winner: null,
+          decidedBy: null,
+          signedAt: null,
+        } as unknown as MatchDto);
+    return {
+      id: 1,
+      divisionId: 1,
+      divisionName: 'Recurve Women',
+      sessionId: 1,
+      format: 'sets',
+      entrants: size,
+      size,
+      rounds,
+      matches,
+      places: [],
+    };
+  };
+  const pages = async (size: number) => {
+    const out = new PassThrough();
+    const chunks: Buffer[] = [];
+    out.on('data', (c: Buffer) => chunks.push(c));
+    await bracketPdf([openBracket(size)], { name: 'Big Shoot', published: true }, out);
+    await new Promise((resolve) => setImmediate(resolve));
+    return pdfPageCount(Buffer.concat(chunks));
+  };
+
+  it('draws the last four rounds as a tree and lists the earlier ones, 16 matches a page, before it', async () => {
+    expect(await pages(16)).toBe(1);
+    // 1/16 round: 16 matches on one page, then the tree.
+    expect(await pages(32)).toBe(2);
+    // 1/32 round: 32 matches on two pages; 1/16 round: one; the tree.
+    expect(await pages(64)).toBe(4);
   });
 });

@@ -11,7 +11,10 @@ const BOTTOM = PAGE.height - PAGE.margin - 28;
 const BOX = 36;
 /** The tree shows the rounds from the one with at most this many matches; earlier rounds are listed first. */
 const TREE_MATCHES = 8;
-const LIST_ROWS = 22;
+/** A listed match: its box and a line for where it stands; two columns a page. */
+const LIST_ROW = BOX + 16;
+const LIST_PER_COLUMN = Math.floor((BOTTOM - TOP) / LIST_ROW);
+const LIST_ROWS = LIST_PER_COLUMN * 2;
 const PLACES_WIDTH = 170;
 
 type Page =
@@ -122,15 +125,17 @@ function treePage(pdf: PrintDocument, bracket: BracketDto, firstRound: number): 
 
 function listPage(pdf: PrintDocument, bracket: BracketDto, round: number, matches: MatchDto[]): void {
   const width = PAGE.width - PAGE.margin * 2;
+  const column = (width - 24) / 2;
   pdf.text(roundName(round, bracket.rounds), PAGE.margin, TOP - 16, { size: 10, bold: true, width });
-  const row = (BOTTOM - TOP) / LIST_ROWS;
   matches.forEach((m, i) => {
-    const y = TOP + i * row;
-    matchBox(pdf, { ...m }, PAGE.margin, y, width / 2);
-    pdf.text(matchStatus(m), PAGE.margin + width / 2 + 12, y + 4, {
-      size: 9,
-      width: width / 2 - 12,
+    const x = PAGE.margin + Math.floor(i / LIST_PER_COLUMN) * (column + 24);
+    const y = TOP + (i % LIST_PER_COLUMN) * LIST_ROW;
+    matchBox(pdf, m, x, y, column);
+    pdf.text(matchStatus(m), x + 4, y + BOX + 2, {
+      size: 8,
+      width: column - 8,
       minSize: 6,
+      color: '#444444',
     });
   });
 }
