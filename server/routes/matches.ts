@@ -1,4 +1,4 @@
-import { Router, type Request } from 'express';
+import { Router, type NextFunction, type Request, type Response } from 'express';
 import {
   MATCH_END_INDEX_MAX,
   createBracketSchema,
@@ -9,9 +9,10 @@ import {
 } from '../../src/contract/matches';
 import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
-import { badRequest } from '../http/httpError';
-import { idParam } from '../http/params';
+import { badRequest, notFound } from '../http/httpError';
+import { divisionQuery, idParam } from '../http/params';
 import { validateBody } from '../http/validate';
+import { bracketPdf } from '../services/matches/bracketPdf';
 import { eventBrackets } from '../services/matches/bracketView';
 import { createBracket } from '../services/matches/createBracket';
 import {
@@ -39,15 +40,30 @@ export function matchRoutes(ctx: AppContext): Router {
   });
   const answer = async (eventId: number) => ({ brackets: await eventBrackets(db, eventId) });
 
-  router.get(
-    '/events/:eventId/brackets',
-    (req, res, next) => (req.get('authorization') ? ctx.requireUser(req, res, next) : next()),
-    async (req, res) => {
-      const event = await findResultsEvent(db, idParam(req, 'eventId', 'event'));
-      await requireResultsViewer(db, event, req.user?.id);
-      res.json(await answer(event.id));
-    },
-  );
+  const maybeUser = (req: Request, res: Response, next: NextFunction) =>
+    req.get('authorization') ? ctx.requireUser(req, res, next) : next();
+  router.get('/events/:eventId/brackets', maybeUser, async (req, res) => {
+    const event = await findResultsEvent(db, idParam(req, 'eventId', 'event'));
+    await requireResultsViewer(db, event, req.user?.id);
+    res.json(await answer(event.id));
+  });
+
+  /** The brackets as a PDF, seen like the brackets themselves; `?division=ID` prints one. */
+  router.get('/events/:eventId/brackets/pdf', maybeUser, async (req, res) => {
+    const event = await findResultsEvent(db, idParam(req, 'eventId', 'event'));
+    await requireResultsViewer(db, event, req.user?.id);
+    let brackets = await eventBrackets(db, event.id);
+    const divisionId = divisionQuery(req);
+    if (divisionId !== undefined) {
+      brackets = brackets.filter((b) => b.divisionId === divisionId);
+      if (brackets.length === 0) throw notFound('That division has no bracket in this event.');
+    }
+    const name = `eliminations-${event.id}${divisionId !== undefined ? `-division-${divisionId}` : ''}`;
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', `attachment; filename="${name}.pdf"`);
+    res.setHeader('Cache-Control', 'no-store');
+    await bracketPdf(brackets, event, res);
+  });
 
   router.post(
     '/events/:eventId/brackets',

@@ -2,9 +2,11 @@ import { Router, type Request, type RequestHandler } from 'express';
 import { resultsSendSchema, resultsSettingsSchema } from '../../src/contract/results';
 import type { AppContext } from '../context';
 import { requireEventRole } from '../auth/eventRoles';
-import { badRequest, notFound } from '../http/httpError';
-import { idParam } from '../http/params';
+import { notFound } from '../http/httpError';
+import { divisionQuery, idParam } from '../http/params';
 import { validateBody } from '../http/validate';
+import { eventBrackets } from '../services/matches/bracketView';
+import { finalPlacesOf } from '../services/results/bracketPlaces';
 import { resultsCache } from '../services/results/resultsCache';
 import { resultsCsv } from '../services/results/resultsCsv';
 import {
@@ -53,36 +55,32 @@ export function resultsRoutes(ctx: AppContext): Router {
 
   /** The standings now, and the one division `?division=ID` names (none: the whole event). */
   const standingsOf = async (req: Request, event: ResultsEvent) => {
-    const raw = req.query.division;
-    let divisionId: number | undefined;
-    if (raw !== undefined) {
-      divisionId = typeof raw === 'string' && /^\d{1,9}$/.test(raw) ? Number(raw) : NaN;
-      if (!(divisionId > 0)) throw badRequest('division must be the number of one of the event’s divisions.');
-    }
+    const divisionId = divisionQuery(req);
     const results = await cache.results(event, await cache.version(event));
     const known = results.sessions.some((s) => s.divisions.some((d) => d.divisionId === divisionId));
     if (divisionId !== undefined && !known) throw notFound('That division has no standings in this event.');
     const name = `results-${event.id}${divisionId ? `-division-${divisionId}` : ''}`;
-    return { results, divisionId, name };
+    const finals = finalPlacesOf(await eventBrackets(db, event.id), divisionId);
+    return { results, divisionId, name, finals };
   };
 
   router.get('/results/:eventId/csv', maybeUser, async (req, res) => {
-    const { results, divisionId, name } = await standingsOf(req, await readable(req));
+    const { results, divisionId, name, finals } = await standingsOf(req, await readable(req));
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="${name}.csv"`);
     res.setHeader('Cache-Control', 'no-store');
-    res.send(resultsCsv(results, divisionId));
+    res.send(resultsCsv(results, divisionId, finals));
   });
 
   router.get('/results/:eventId/pdf', maybeUser, async (req, res) => {
     const event = await findResultsEvent(db, idParam(req, 'eventId', 'event'));
     await requireResultsPrinter(db, event, req.user?.id);
-    const { results, divisionId, name } = await standingsOf(req, event);
+    const { results, divisionId, name, finals } = await standingsOf(req, event);
     res.setHeader('Content-Type', 'application/pdf');
     res.setHeader('Content-Disposition', `attachment; filename="${name}.pdf"`);
     res.setHeader('Cache-Control', 'no-store');
     // Streamed page by page, as the other printouts: a long field never holds up other requests.
-    await resultsPdf(results, res, divisionId);
+    await resultsPdf(results, res, divisionId, finals);
   });
 
   router.patch(
@@ -106,7 +104,8 @@ export function resultsRoutes(ctx: AppContext): Router {
       const event = await findResultsEvent(db, idParam(req, 'eventId', 'event'));
       const results = await cache.results(event, await cache.version(event));
       const pageUrl = `${ctx.linkAddress.url}/results/${event.id}`;
-      res.json(await sendResults(db, ctx.mailer, results, { userId: req.user!.id, pageUrl }));
+      const finals = finalPlacesOf(await eventBrackets(db, event.id));
+      res.json(await sendResults(db, ctx.mailer, results, { userId: req.user!.id, pageUrl }, finals));
     },
   );
   return router;

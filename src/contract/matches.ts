@@ -106,7 +106,7 @@ export type BracketDto = {
   rounds: number;
   matches: MatchDto[];
   /** Final places as far as they are known, best first. */
-  places: { place: number; entryId: number; name: string; seed: number }[];
+  places: { place: number; entryId: number; name: string; club: string; seed: number }[];
 };
 
 /*

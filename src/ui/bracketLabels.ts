@@ -21,3 +21,19 @@ export function matchStatus(m: MatchDto): string {
   if (next === 'judge') return 'Shoot-off: the judge decides which arrow is closer';
   return m.ends.length === 0 ? 'Not started' : `End ${m.ends.length + 1} next`;
 }
+
+/** One line of a match as the screens show it: the side's seed and archers, its score once shot, whether it won. */
+export function matchLine(
+  m: MatchDto,
+  side: 'a' | 'b',
+): { seed: number | null; name: string; score?: number; won: boolean } {
+  const s = m.sides[side];
+  const winner = m.winner ?? m.state?.winner ?? null;
+  return {
+    seed: s ? s.seed : null,
+    name: s ? s.archers.map((a) => a.name).join(', ') : m.decidedBy === 'bye' ? 'bye' : 'to be decided',
+    // A walkover or bye has no score to show.
+    score: m.ends.length > 0 ? m.state?.score[side] : undefined,
+    won: winner === side,
+  };
+}

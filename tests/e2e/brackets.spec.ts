@@ -114,6 +114,27 @@ test('a spectator follows a four-archer bracket to its final places on a phone',
   await checkA11y(page, 'brackets (phone)');
   await page.screenshot({ path: '.tmp/screens/brackets-semis.png', fullPage: true });
 
+  // The field screen on a projector cycles from the standings to the bracket's current round.
+  const projector = await (await browser.newContext({ viewport: { width: 1920, height: 1080 } })).newPage();
+  await projector.goto(`/results/${eventId}/field?seconds=3`);
+  // The standings come first.
+  await expect(projector.getByTestId('field-division')).toBeVisible();
+  await expect(projector.getByTestId('field-division')).not.toContainText('eliminations');
+  await expect(projector.getByText('Ines Arbour')).toBeVisible();
+  await checkA11y(projector, 'field screen standings (1080p)');
+  await projector.screenshot({ path: '.tmp/screens/field-standings.png' });
+  await expect(projector.getByTestId('field-division')).toContainText('eliminations', { timeout: 10_000 });
+  const fieldSemi = projector.getByTestId(`field-match-${match(0, 0)}`);
+  await expect(fieldSemi.getByTestId('field-side-a')).toContainText('Ines Arbour');
+  await expect(fieldSemi.getByTestId('field-side-a')).toContainText('won');
+  await expect(fieldSemi.getByTestId('field-side-a')).toContainText('6');
+  await expect(projector.getByTestId(`field-match-${match(0, 1)}`)).toContainText(
+    'Shoot-off: the judge decides which arrow is closer',
+  );
+  await expect(projector.getByText('Semi-finals · set points')).toBeVisible();
+  await checkA11y(projector, 'field screen bracket (1080p)');
+  await projector.screenshot({ path: '.tmp/screens/field-bracket-semis.png' });
+
   // The judge marks Kit's arrow closer and signs; the final and bronze are shot; places follow.
   body = await apiCall(request, judge, 'put', `/api/events/${eventId}/matches/${match(0, 1)}/shoot-off`, {
     a: { value: '10' },
@@ -140,5 +161,21 @@ test('a spectator follows a four-archer bracket to its final places on a phone',
   await expect(places).toContainText('4. Jonah Quill');
   await expect(page.getByTestId(`match-${match(1, 0, true)}`)).toContainText('Walkover (no-show)');
   await checkA11y(page, 'brackets with final places (phone)');
+  const download = page.waitForEvent('download');
+  await page.getByRole('button', { name: 'Print the brackets (PDF)' }).click();
+  expect((await download).suggestedFilename()).toBe(`eliminations-${eventId}.pdf`);
   await page.screenshot({ path: '.tmp/screens/brackets-places.png', fullPage: true });
+
+  // Every match decided: the field screen shows the final places instead of a round.
+  await projector.reload();
+  await expect(projector.getByTestId('field-places')).toBeVisible({ timeout: 10_000 });
+  const fieldPlaces = projector.getByTestId('field-places');
+  await expect(fieldPlaces.getByRole('listitem')).toHaveText([
+    /^1\.\s*Ines Arbour/,
+    /^2\.\s*Kit Fairway/,
+    /^3\.\s*Lena Marsh/,
+    /^4\.\s*Jonah Quill/,
+  ]);
+  await checkA11y(projector, 'field screen final places (1080p)');
+  await projector.screenshot({ path: '.tmp/screens/field-bracket-places.png' });
 });

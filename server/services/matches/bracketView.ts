@@ -99,7 +99,7 @@ function places(matches: MatchDto[], rounds: number): BracketDto['places'] {
       const first = side.archers[0]!;
       return p.place === null
         ? []
-        : [{ place: p.place, entryId: first.entryId, name: first.name, seed: side.seed }];
+        : [{ place: p.place, entryId: first.entryId, name: first.name, club: first.club, seed: side.seed }];
     })
     .sort((x, y) => x.place - y.place);
 }

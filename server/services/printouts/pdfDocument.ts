@@ -58,9 +58,9 @@ export class PrintDocument {
     this.fonts = registerFonts(this.doc);
   }
 
-  addPage(): void {
+  addPage(layout: 'portrait' | 'landscape' = 'portrait'): void {
     this.noteMissing();
-    this.doc.addPage({ size: 'A4', margin: 36 });
+    this.doc.addPage({ size: 'A4', layout, margin: 36 });
   }
 
   /** The first font of the weight that has the letter, or null when none has it. */

@@ -1,6 +1,7 @@
 import type { Writable } from 'node:stream';
 import type { DivisionStandings, EventResults, StandingRow, TeamRow } from '../../../src/contract/results';
 import { PrintDocument } from '../printouts/pdfDocument';
+import type { DivisionFinalPlaces } from './bracketPlaces';
 
 const PAGE = { width: 595.28, height: 841.89, margin: 36 };
 const INK = '#123047';
@@ -43,6 +44,15 @@ function teamColumns(division: DivisionStandings): Column<TeamRow>[] {
   ];
 }
 
+type PlaceRow = DivisionFinalPlaces['places'][number];
+
+const placeColumns: Column<PlaceRow>[] = [
+  { label: 'Final place', width: 70, bold: true, cell: (p) => String(p.place) },
+  { label: 'Archer', width: 220, bold: true, cell: (p) => p.name },
+  { label: 'Club', width: 170, cell: (p) => p.club },
+  { label: 'Seed', width: 63, right: true, cell: (p) => String(p.seed) },
+];
+
 /** One page of the printout: a slice of a division's archers or of its teams. */
 type Page = {
   session: string;
@@ -50,10 +60,16 @@ type Page = {
   /** The class these rows rank, when the page is one class of the division. */
   className?: string;
   part:
-    { kind: 'archers'; rows: StandingRow[]; from: number } | { kind: 'teams'; rows: TeamRow[]; from: number };
+    | { kind: 'archers'; rows: StandingRow[]; from: number }
+    | { kind: 'teams'; rows: TeamRow[]; from: number }
+    | { kind: 'places'; rows: PlaceRow[]; from: number };
 };
 
-function pagesOf(results: EventResults, divisionId: number | undefined): Page[] {
+function pagesOf(
+  results: EventResults,
+  divisionId: number | undefined,
+  finals: DivisionFinalPlaces[],
+): Page[] {
   const pages: Page[] = [];
   for (const session of results.sessions)
     for (const division of session.divisions) {
@@ -78,6 +94,16 @@ function pagesOf(results: EventResults, divisionId: number | undefined): Page[] 
           session: session.name,
           division,
           part: { kind: 'teams', rows: division.teams.slice(from, from + ROWS_PER_PAGE), from },
+        });
+      // After the qualification: the final places of the bracket seeded from this session.
+      const final = finals.find(
+        (f) => f.divisionId === division.divisionId && f.sessionId === session.sessionId,
+      );
+      for (let from = 0; final && from < final.places.length; from += ROWS_PER_PAGE)
+        pages.push({
+          session: session.name,
+          division,
+          part: { kind: 'places', rows: final.places.slice(from, from + ROWS_PER_PAGE), from },
         });
     }
   return pages;
@@ -146,11 +172,13 @@ function resultsPage(
   doc.rect(0, 0, PAGE.width, 100).fill(INK);
   pdf.text(results.event.name, left, 16, { size: 22, bold: true, width, minSize: 12, color: '#ffffff' });
   const what =
-    part.kind === 'teams'
-      ? `${division.name} teams`
-      : page.className !== undefined
-        ? `${division.name}, ${page.className}`
-        : division.name;
+    part.kind === 'places'
+      ? `${division.name}: final places after the eliminations`
+      : part.kind === 'teams'
+        ? `${division.name} teams`
+        : page.className !== undefined
+          ? `${division.name}, ${page.className}`
+          : division.name;
   pdf.text(`${what} · ${page.session} · ${division.roundName}`, left, 46, {
     size: 13,
     bold: true,
@@ -184,24 +212,32 @@ function resultsPage(
       table(pdf, archerColumns(division), part.rows, (i) =>
         division.cut !== null && page.className === undefined ? part.from + i + 1 === division.cut : false,
       );
-  } else table(pdf, teamColumns(division), part.rows);
+  } else if (part.kind === 'teams') table(pdf, teamColumns(division), part.rows);
+  else table(pdf, placeColumns, part.rows);
 
   const foot = PAGE.height - PAGE.margin - 12;
   const key =
-    part.kind === 'archers'
-      ? `10s count X. provisional: some end not signed yet; signed: every end signed by a judge; final: card signed by archer and scorer.${division.cut !== null ? ` The line marks the cut (${division.cut}).` : ''}`
-      : `A team is the best ${results.event.teamSize} archers of a club in the division.`;
+    part.kind === 'places'
+      ? 'Places 1–2 from the final, 3–4 from the bronze match, then by the round lost (later first), within a round by seed.'
+      : part.kind === 'archers'
+        ? `10s count X. provisional: some end not signed yet; signed: every end signed by a judge; final: card signed by archer and scorer.${division.cut !== null ? ` The line marks the cut (${division.cut}).` : ''}`
+        : `A team is the best ${results.event.teamSize} archers of a club in the division.`;
   pdf.text(key, left, foot - 14, { size: 7, width, minSize: 5, color: '#444444' });
   pdf.text(`Page ${number} of ${of}`, left, foot, { size: 8, width, align: 'right', color: '#444444' });
 }
 
 /**
  * The standings as a printout: each division's archers, then each of its classes on its own,
- * then its teams, about 33 rows a page, for
+ * then its teams, then the final places of its bracket, about 33 rows a page, for
  * the whole event or one division. Streamed page by page like the other printouts.
  */
-export async function resultsPdf(results: EventResults, out: Writable, divisionId?: number): Promise<void> {
-  const pages = pagesOf(results, divisionId);
+export async function resultsPdf(
+  results: EventResults,
+  out: Writable,
+  divisionId?: number,
+  finals: DivisionFinalPlaces[] = [],
+): Promise<void> {
+  const pages = pagesOf(results, divisionId, finals);
   const title = `Results - ${results.event.name}${
     divisionId === undefined ? '' : ` - ${pages[0]?.division.name ?? ''}`
   }`;

@@ -3,6 +3,7 @@ import type { Db } from '../../db';
 import { conflict } from '../../http/httpError';
 import type { Mailer } from '../../mail/mailer';
 import { reserveMail } from '../limits/mailLimits';
+import type { DivisionFinalPlaces } from './bracketPlaces';
 
 type Entrant = { id: number; name: string; email: string | null; account_email: string | null };
 
@@ -12,8 +13,11 @@ const TRUST_WORDS = {
   final: 'final',
 } as const;
 
-/** Each line of an archer's own places: session, division, place of how many, total, trust. */
-function placesOf(results: EventResults, entryId: number): string[] {
+/**
+ * Each line of an archer's own places: session, division, place of how many, total, trust; then
+ * their final place in each bracket they shot in.
+ */
+function placesOf(results: EventResults, finals: DivisionFinalPlaces[], entryId: number): string[] {
   const lines: string[] = [];
   for (const session of results.sessions)
     for (const division of session.divisions) {
@@ -31,12 +35,17 @@ function placesOf(results: EventResults, entryId: number): string[] {
           `  in ${row.className}: ${classRow.tied ? 'shared ' : ''}place ${classRow.place} of ${inClass.length}`,
         );
     }
+  for (const final of finals) {
+    const mine = final.places.find((p) => p.entryId === entryId);
+    if (mine)
+      lines.push(`- ${final.divisionName}, eliminations: final place ${mine.place} of ${final.entrants}`);
+  }
   return lines;
 }
 
 /**
  * "Send results": one mail to every entrant of the event with an address (their entry's, else
- * their account's), with their own places and the link to the public results page. Only
+ * their account's), with their own places (and final places after the eliminations) and the link to the public results page. Only
  * published results are sent, since the link must open for everyone. Counted as one send
  * against the event's limit before any mail leaves; a mail the server refuses is counted, not
  * retried, so one bad address does not stop the others.
@@ -46,6 +55,7 @@ export async function sendResults(
   mailer: Mailer,
   results: EventResults,
   by: { userId: number; pageUrl: string },
+  finals: DivisionFinalPlaces[] = [],
 ): Promise<ResultsSendReport> {
   const event = results.event;
   if (!event.published)
@@ -71,7 +81,7 @@ export async function sendResults(
     failed: 0,
   };
   for (const entrant of addressed) {
-    const places = placesOf(results, entrant.id);
+    const places = placesOf(results, finals, entrant.id);
     const text = [
       `Hello ${entrant.name},`,
       '',

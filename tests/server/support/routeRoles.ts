@@ -646,6 +646,14 @@ export const ROUTES: RouteRule[] = [
     refused: 403,
   },
   {
+    method: 'get',
+    route: '/api/events/:eventId/brackets/pdf',
+    path: (f) => `${ev(f)}/brackets/pdf`,
+    allowed: EVENT_ROLES,
+    ok: 200,
+    refused: 403,
+  },
+  {
     method: 'post',
     route: '/api/events/:eventId/brackets',
     path: (f) => `${ev(f)}/brackets`,

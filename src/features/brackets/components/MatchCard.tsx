@@ -1,31 +1,18 @@
 import type { MatchDto } from '../../../contract/matches';
 import type { Side } from '../../../core';
-import { matchStatus } from '../../../ui/bracketLabels';
+import { matchLine, matchStatus } from '../../../ui/bracketLabels';
+import { WonMark } from '../../../ui/WonMark';
 
 /** One match: its two sides with seed, archer and score; the winner is marked by a word and a shape, never by colour alone. */
 export function MatchCard({ match }: { match: MatchDto }) {
-  const winner = match.winner ?? match.state?.winner ?? null;
   const line = (side: Side) => {
-    const s = match.sides[side];
-    const name = s
-      ? s.archers.map((a) => a.name).join(', ')
-      : match.decidedBy === 'bye'
-        ? 'bye'
-        : 'to be decided';
-    // A walkover or bye has no score to show.
-    const score = match.ends.length > 0 ? match.state?.score[side] : undefined;
-    const won = winner === side;
+    const { seed, name, score, won } = matchLine(match, side);
     return (
       <li className="flex items-baseline gap-2" data-testid={`side-${side}`}>
-        <span className="w-8 shrink-0 text-right text-ink-soft">{s ? s.seed : '–'}</span>
+        <span className="w-8 shrink-0 text-right text-ink-soft">{seed ?? '–'}</span>
         <span className={`flex-1 ${won ? 'font-bold' : ''}`}>
           {name}
-          {won && (
-            <span>
-              {' '}
-              · <span aria-hidden="true">✓ </span>won
-            </span>
-          )}
+          {won && <WonMark />}
         </span>
         {score !== undefined && <span className="text-xl font-bold">{score}</span>}
       </li>
