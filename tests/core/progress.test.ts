@@ -4,8 +4,9 @@
 // by week and the "best session" are common practice in training logs, no published source.
 // Every expected value below is worked by hand in the comment beside it.
 import { describe, expect, it } from 'vitest';
-import { practiceProgress, progressChoices, weekStartOf } from '../../src/core/practice';
-import type { PracticeArrow, ProgressSession } from '../../src/core/practice';
+import type { PracticeArrow } from '../../src/core/practice';
+import { practiceProgress, progressChoices, weekStartOf } from '../../src/core/practice/progress';
+import type { ProgressSession } from '../../src/core/practice/progress';
 import type { ArrowValue, BowStyle, FaceId } from '../../src/core';
 
 const typed = (...values: ArrowValue[]): PracticeArrow[] => values.map((value) => ({ value }));

@@ -4,5 +4,4 @@ export { practiceTally } from './tally';
 export type { PracticeTally } from './tally';
 export { clockOf, groupStats, offsetOnSpot } from './group';
 export type { GroupStats, OffsetMm } from './group';
-export { practiceProgress, progressChoices, weekStartOf } from './progress';
-export type { ProgressBest, ProgressFilter, ProgressSeries, ProgressSession, ProgressWeek } from './progress';
+// Progress (./progress) is imported from its own file: only the progress screen's chunk needs it.
