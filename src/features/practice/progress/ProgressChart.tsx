@@ -4,9 +4,8 @@ import 'uplot/dist/uPlot.min.css';
 import type { ProgressSeries } from '../../../core/practice/progress';
 import { perArrow } from './progressData';
 
-const DAY_S = 86_400;
 const shortDay = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
-const seconds = (weekStart: string) => Date.parse(`${weekStart}T00:00:00Z`) / 1000;
+const dayOf = (weekStart: string) => shortDay.format(new Date(`${weekStart}T00:00:00Z`));
 
 /**
  * The weekly average per arrow of one distance and face, drawn with uPlot (this file is the only
@@ -18,7 +17,9 @@ export function ProgressChart({ series }: { series: ProgressSeries }) {
   useEffect(() => {
     const el = box.current;
     if (!el) return;
-    const xs = series.weeks.map((w) => seconds(w.weekStart));
+    // One step a week with practice (the table gives every date): a year stays readable on a phone.
+    const xs = series.weeks.map((_w, i) => i);
+    const labelEvery = Math.max(1, Math.ceil(series.weeks.length / 4));
     const averages = series.weeks.map((w) => w.averagePerArrow);
     const best = series.weeks.map((w) =>
       w.weekStart === series.best.weekStart ? series.best.averagePerArrow : null,
@@ -34,14 +35,15 @@ export function ProgressChart({ series }: { series: ProgressSeries }) {
         legend: { show: false },
         cursor: { show: false },
         scales: {
-          x: { time: true, range: (_u, min, max) => [min - 4 * DAY_S, max + 4 * DAY_S] },
+          x: { time: false, range: (_u, min, max) => [min - 0.5, max + 0.5] },
           y: { range: [low, high] },
         },
         axes: [
           {
             stroke: ink,
             font: '14px "Atkinson Hyperlegible", sans-serif',
-            values: (_u, splits) => splits.map((s) => shortDay.format(new Date(s * 1000))),
+            splits: () => xs.filter((i) => i % labelEvery === 0),
+            values: (_u, splits) => splits.map((i) => dayOf(series.weeks[i]?.weekStart ?? '')),
           },
           {
             stroke: ink,

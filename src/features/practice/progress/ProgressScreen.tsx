@@ -6,7 +6,7 @@ import { usePhoneOwner } from '../../../local/phoneOwner';
 import { BOW_STYLE_LABELS } from '../plan';
 import { ownPractice } from '../practiceStore';
 import { useStored } from '../useStored';
-import { perArrow, progressSessions, weekLabel } from './progressData';
+import { dayLabel, perArrow, progressSessions, weekLabel } from './progressData';
 
 // The chart library comes with the chart, after the screen and its table are on show.
 const ProgressChart = lazy(async () => ({ default: (await import('./ProgressChart')).ProgressChart }));
@@ -117,6 +117,8 @@ function SeriesView({ series }: { series: ProgressSeries }) {
   const id = `progress-${series.distanceM}-${series.faceId}`;
   const latest = series.weeks[series.weeks.length - 1];
   const best = series.best;
+  // The table (the chart's figures in text) is drawn when opened: a year is 52 rows a series.
+  const [open, setOpen] = useState(false);
   return (
     <section aria-labelledby={id} className="surface space-y-3 rounded-xl border border-line bg-card p-4">
       <h2 id={id} className="text-2xl font-bold">
@@ -125,45 +127,47 @@ function SeriesView({ series }: { series: ProgressSeries }) {
       <p data-testid="progress-summary">
         {latest &&
           `Week of ${weekLabel(latest.weekStart)}: ${perArrow(latest.averagePerArrow)} an arrow over ${latest.arrows} arrows. `}
-        Best session: {perArrow(best.averagePerArrow)} an arrow on{' '}
-        {new Date(best.startedAt).toLocaleDateString('en-GB', {
-          day: 'numeric',
-          month: 'short',
-          year: 'numeric',
-        })}{' '}
-        ({best.arrows} arrows), ringed on the chart.
+        Best session: {perArrow(best.averagePerArrow)} an arrow on {dayLabel(best.startedAt)} ({best.arrows}{' '}
+        arrows), ringed on the chart.
       </p>
       <Suspense fallback={<div className="h-[220px]" />}>
         <ProgressChart series={series} />
       </Suspense>
-      <table className="w-full text-left">
-        <caption className="sr-only">{title}: average per arrow by week</caption>
-        <thead>
-          <tr className="border-b-2 border-ink">
-            <th scope="col" className="py-1">
-              Week of
-            </th>
-            <th scope="col" className="py-1 text-right">
-              Arrows
-            </th>
-            <th scope="col" className="py-1 text-right">
-              Average
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {[...series.weeks].reverse().map((w) => (
-            <tr key={w.weekStart} className="border-b border-line">
-              <th scope="row" className="py-1 font-normal">
-                {weekLabel(w.weekStart)}
-                {w.weekStart === best.weekStart && <span className="font-bold"> · best session</span>}
-              </th>
-              <td className="py-1 text-right">{w.arrows}</td>
-              <td className="py-1 text-right font-bold">{perArrow(w.averagePerArrow)}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <details onToggle={(e) => setOpen(e.currentTarget.open)}>
+        <summary className="flex min-h-11 cursor-pointer items-center font-bold underline">
+          Every week ({series.weeks.length})
+        </summary>
+        {open && (
+          <table className="w-full text-left">
+            <caption className="sr-only">{title}: average per arrow by week</caption>
+            <thead>
+              <tr className="border-b-2 border-ink">
+                <th scope="col" className="py-1">
+                  Week of
+                </th>
+                <th scope="col" className="py-1 pl-4 text-right">
+                  Arrows
+                </th>
+                <th scope="col" className="py-1 pl-4 text-right">
+                  Average
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {[...series.weeks].reverse().map((w) => (
+                <tr key={w.weekStart} className="border-b border-line">
+                  <th scope="row" className="py-1 font-normal">
+                    {weekLabel(w.weekStart)}
+                    {w.weekStart === best.weekStart && <span className="font-bold"> · best session</span>}
+                  </th>
+                  <td className="py-1 text-right">{w.arrows}</td>
+                  <td className="py-1 text-right font-bold">{perArrow(w.averagePerArrow)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+      </details>
     </section>
   );
 }
