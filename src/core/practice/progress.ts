@@ -99,7 +99,10 @@ export function practiceProgress(
         groups.set(key, group);
       }
       let total = 0;
-      for (const value of countedValues(end.arrows)) total += arrowPoints(value);
+      // Only arrows plotted on a spot (the triple face) need the one-arrow-a-spot rule.
+      if (end.arrows.some((a) => a.spot !== undefined))
+        for (const value of countedValues(end.arrows)) total += arrowPoints(value);
+      else for (const arrow of end.arrows) total += arrowPoints(arrow.value);
       const arrows = end.arrows.length;
       let running = group.weeks.get(week);
       if (!running) {

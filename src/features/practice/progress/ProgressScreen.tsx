@@ -1,4 +1,4 @@
-import { lazy, Suspense, useState } from 'react';
+import { lazy, Suspense, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { getFace, type BowStyle } from '../../../core';
 import { practiceProgress, progressChoices, type ProgressSeries } from '../../../core/practice/progress';
@@ -24,8 +24,12 @@ export function ProgressScreen() {
   const [bowStyle, setBowStyle] = useState<BowStyle>();
   const [distanceM, setDistanceM] = useState<number>();
 
-  const choices = sessions ? progressChoices(sessions) : undefined;
-  const series = sessions ? practiceProgress(sessions, { bowStyle, distanceM }) : undefined;
+  // Worked out again only when the log or a filter changes (a year is 20,000 arrows).
+  const choices = useMemo(() => (sessions ? progressChoices(sessions) : undefined), [sessions]);
+  const series = useMemo(
+    () => (sessions ? practiceProgress(sessions, { bowStyle, distanceM }) : undefined),
+    [sessions, bowStyle, distanceM],
+  );
 
   return (
     <div className="space-y-6">
@@ -130,7 +134,7 @@ function SeriesView({ series }: { series: ProgressSeries }) {
         Best session: {perArrow(best.averagePerArrow)} an arrow on {dayLabel(best.startedAt)} ({best.arrows}{' '}
         arrows), ringed on the chart.
       </p>
-      <Suspense fallback={<div className="h-[220px]" />}>
+      <Suspense fallback={<div style={{ height: 220 }} />}>
         <ProgressChart series={series} />
       </Suspense>
       <details onToggle={(e) => setOpen(e.currentTarget.open)}>
@@ -145,10 +149,10 @@ function SeriesView({ series }: { series: ProgressSeries }) {
                 <th scope="col" className="py-1">
                   Week of
                 </th>
-                <th scope="col" className="py-1 pl-4 text-right">
+                <th scope="col" className="py-1 pl-2 text-right">
                   Arrows
                 </th>
-                <th scope="col" className="py-1 pl-4 text-right">
+                <th scope="col" className="py-1 pl-2 text-right">
                   Average
                 </th>
               </tr>
