@@ -35,7 +35,8 @@ export function ProgressChart({ series }: { series: ProgressSeries }) {
         legend: { show: false },
         cursor: { show: false },
         scales: {
-          x: { time: false, range: (_u, min, max) => [min - 0.5, max + 0.5] },
+          // Half a step either side, so a lone week stands in the middle.
+          x: { time: false, auto: false, range: [-0.5, xs.length - 0.5] },
           y: { range: [low, high] },
         },
         axes: [
