@@ -41,24 +41,14 @@ describe('weekStartOf (ISO weeks, Monday first, UTC)', () => {
 // c  Tue 2026-12-01 recurve 18 m 40 cm: 10,10,9,9,8,8       total 54, 6 arrows → 9.0
 // d  Wed 2026-12-02 compound 18 m 40 cm: 10,10,10           total 30, 3 arrows → 10.0
 // e  Wed 2026-12-02 recurve, a round: 70 m 122 cm 9,7,5 (21 → 7.0); 60 m 122 cm 10,8,6 (24 → 8.0)
+// One session a line, as in the worked table above.
+// prettier-ignore
 const log: ProgressSession[] = [
-  session(
-    'a',
-    '2026-11-24T18:00:00.000Z',
-    'recurve',
-    [18, 'full-40', typed('10', '9', '8')],
-    [18, 'full-40', typed('9', '9', 'M')],
-  ),
+  session('a', '2026-11-24T18:00:00.000Z', 'recurve', [18, 'full-40', typed('10', '9', '8')], [18, 'full-40', typed('9', '9', 'M')]),
   session('b', '2026-11-26T18:00:00.000Z', 'recurve', [18, 'full-40', typed('X', '10', '9')]),
   session('c', '2026-12-01T18:00:00.000Z', 'recurve', [18, 'full-40', typed('10', '10', '9', '9', '8', '8')]),
   session('d', '2026-12-02T18:00:00.000Z', 'compound', [18, 'full-40', typed('10', '10', '10')]),
-  session(
-    'e',
-    '2026-12-02T09:00:00.000Z',
-    'recurve',
-    [70, 'full-122', typed('9', '7', '5')],
-    [60, 'full-122', typed('10', '8', '6')],
-  ),
+  session('e', '2026-12-02T09:00:00.000Z', 'recurve', [70, 'full-122', typed('9', '7', '5')], [60, 'full-122', typed('10', '8', '6')]),
 ];
 
 describe('practiceProgress', () => {

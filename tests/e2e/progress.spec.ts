@@ -1,14 +1,12 @@
 import { expect, test } from '@playwright/test';
 import { checkA11y } from './support/a11y';
+import { openThenGoOffline } from './support/offline';
 
 test('with no signal, practice just recorded shows on the progress screen: chart, summary and table', async ({
   page,
   context,
 }) => {
-  await page.goto('/');
-  // The service worker must control the page before the signal goes, so the app opens offline.
-  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
-  await context.setOffline(true);
+  await openThenGoOffline(page, context);
 
   await page.goto('/practice/progress');
   await expect(page.getByRole('heading', { level: 1, name: 'Progress' })).toBeVisible();
