@@ -9,6 +9,8 @@
 import { cpus, loadavg } from 'node:os';
 import { chromium, devices, type CDPSession } from '@playwright/test';
 import { chromiumArgs, chromiumPath } from '../tests/support/chromium';
+import { progressParts } from '../src/core/practice/progress';
+import type { PracticeArrow } from '../src/core/practice';
 import { startBenchServer } from './support/fieldPhone';
 import { percentile } from './support/stats';
 
@@ -30,7 +32,7 @@ function yearOfPractice() {
     { distanceM: 70, faceId: 'full-122', venue: 'outdoor' },
     { distanceM: 30, faceId: 'full-80', venue: 'outdoor' },
   ] as const;
-  const values = ['X', '10', '9', '8', '7', '6', '5', 'M'];
+  const values = ['X', '10', '9', '8', '7', '6', '5', 'M'] as const;
   let seed = 17;
   const random = () => {
     seed = (seed * 1_103_515_245 + 12_345) % 2 ** 31;
@@ -44,6 +46,18 @@ function yearOfPractice() {
     const setup = setups[s % 3]!;
     const id = `bench-${String(s).padStart(3, '0')}`;
     const startedAt = new Date(start + Math.floor((s * 365 * 86_400_000) / SESSIONS)).toISOString();
+    // Skill grows over the year: the values lean higher as s grows.
+    const own: { distanceM: number; faceId: (typeof setup)['faceId']; arrows: PracticeArrow[] }[] = [];
+    for (let index = 0; index * 6 < arrows; index += 1) {
+      const n = Math.min(6, arrows - index * 6);
+      const shot = Array.from({ length: n }, (_, k): PracticeArrow => {
+        const value = values[Math.min(7, Math.floor(random() * (5 - (3 * s) / SESSIONS)))]!;
+        // Every other end plotted: a point kept with the value.
+        return index % 2 === 0 ? { value, xMm: 3 * k - 7, yMm: 5 - 2 * k } : { value };
+      });
+      own.push({ distanceM: setup.distanceM, faceId: setup.faceId, arrows: shot });
+      ends.push({ key: `${id}:${index}`, sessionId: id, index, ...setup, arrows: shot, at: startedAt });
+    }
     sessions.push({
       id,
       ownerId: 0,
@@ -56,17 +70,9 @@ function yearOfPractice() {
       plannedEnds: null,
       shaftDiameterMm: 5.5,
       finishedAt: startedAt,
+      // Kept with each arrow stored, as src/features/practice/practiceStore.ts does.
+      progress: progressParts(own),
     });
-    // Skill grows over the year: the values lean higher as s grows.
-    for (let index = 0; index * 6 < arrows; index += 1) {
-      const n = Math.min(6, arrows - index * 6);
-      const shot = Array.from({ length: n }, (_, k) => {
-        const value = values[Math.min(7, Math.floor(random() * (5 - (3 * s) / SESSIONS)))]!;
-        // Every other end plotted: a point kept with the value.
-        return index % 2 === 0 ? { value, xMm: 3 * k - 7, yMm: 5 - 2 * k } : { value };
-      });
-      ends.push({ key: `${id}:${index}`, sessionId: id, index, ...setup, arrows: shot, at: startedAt });
-    }
   }
   return { sessions, ends };
 }

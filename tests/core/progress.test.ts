@@ -5,7 +5,12 @@
 // Every expected value below is worked by hand in the comment beside it.
 import { describe, expect, it } from 'vitest';
 import type { PracticeArrow } from '../../src/core/practice';
-import { practiceProgress, progressChoices, weekStartOf } from '../../src/core/practice/progress';
+import {
+  practiceProgress,
+  progressChoices,
+  progressParts,
+  weekStartOf,
+} from '../../src/core/practice/progress';
 import type { ProgressSession } from '../../src/core/practice/progress';
 import type { ArrowValue, BowStyle, FaceId } from '../../src/core';
 
@@ -19,7 +24,7 @@ const session = (
   id,
   startedAt,
   bowStyle,
-  ends: ends.map(([distanceM, faceId, arrows]) => ({ distanceM, faceId, arrows })),
+  parts: progressParts(ends.map(([distanceM, faceId, arrows]) => ({ distanceM, faceId, arrows }))),
 });
 
 describe('weekStartOf (ISO weeks, Monday first, UTC)', () => {

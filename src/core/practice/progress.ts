@@ -1,14 +1,16 @@
-import { arrowPoints } from '../arrowValue';
 import type { BowStyle, FaceId } from '../faces';
-import { countedValues, type PracticeArrow } from './arrows';
+import type { ProgressPart } from './progressParts';
 
-/** What progress needs of a practice session: when, which bow, and its ends as shot. */
+export { progressParts } from './progressParts';
+export type { ProgressPart } from './progressParts';
+
+/** What progress needs of a practice session: when, which bow, and its parts as shot. */
 export interface ProgressSession {
   id: string;
   /** ISO 8601 UTC. */
   startedAt: string;
   bowStyle: BowStyle;
-  ends: readonly { distanceM: number; faceId: FaceId; arrows: readonly PracticeArrow[] }[];
+  parts: readonly ProgressPart[];
 }
 
 /** Absent: every bow style / every distance. */
@@ -63,7 +65,7 @@ export function progressChoices(sessions: readonly ProgressSession[]): {
   const distances = new Set<number>();
   for (const s of sessions) {
     bowStyles.add(s.bowStyle);
-    for (const e of s.ends) if (e.arrows.length > 0) distances.add(e.distanceM);
+    for (const p of s.parts) if (p.arrows > 0) distances.add(p.distanceM);
   }
   return { bowStyles: [...bowStyles], distances: [...distances].sort((a, b) => a - b) };
 }
@@ -73,8 +75,7 @@ type SessionPart = { session: ProgressSession; arrows: number; total: number };
 
 /**
  * Average per arrow per week, one series per distance and face (shortest distance first), after
- * the filters. Each end counts at its own distance and face (a round may have several); on the
- * triple face only the arrows that count are scored (countedValues). The best session is the one
+ * the filters (parts from progressParts). The best session is the one
  * with the highest average per arrow in the series; a tie goes to the one with more arrows, then
  * to the earlier one.
  */
@@ -89,21 +90,17 @@ export function practiceProgress(
   for (const session of sessions) {
     if (filter.bowStyle !== undefined && session.bowStyle !== filter.bowStyle) continue;
     const week = weekStartOf(session.startedAt);
-    for (const end of session.ends) {
-      if (end.arrows.length === 0) continue;
-      if (filter.distanceM !== undefined && end.distanceM !== filter.distanceM) continue;
-      const key = `${end.distanceM}|${end.faceId}`;
+    for (const shot of session.parts) {
+      if (shot.arrows === 0) continue;
+      if (filter.distanceM !== undefined && shot.distanceM !== filter.distanceM) continue;
+      const key = `${shot.distanceM}|${shot.faceId}`;
       let group = groups.get(key);
       if (!group) {
-        group = { distanceM: end.distanceM, faceId: end.faceId, weeks: new Map(), parts: new Map() };
+        group = { distanceM: shot.distanceM, faceId: shot.faceId, weeks: new Map(), parts: new Map() };
         groups.set(key, group);
       }
-      let total = 0;
-      // Only arrows plotted on a spot (the triple face) need the one-arrow-a-spot rule.
-      if (end.arrows.some((a) => a.spot !== undefined))
-        for (const value of countedValues(end.arrows)) total += arrowPoints(value);
-      else for (const arrow of end.arrows) total += arrowPoints(arrow.value);
-      const arrows = end.arrows.length;
+      const total = shot.points;
+      const arrows = shot.arrows;
       let running = group.weeks.get(week);
       if (!running) {
         running = { sessions: new Set(), arrows: 0, total: 0 };

@@ -4,9 +4,9 @@ import { getFace, type BowStyle } from '../../../core';
 import { practiceProgress, progressChoices, type ProgressSeries } from '../../../core/practice/progress';
 import { usePhoneOwner } from '../../../local/phoneOwner';
 import { BOW_STYLE_LABELS } from '../plan';
-import { ownPractice } from '../practiceStore';
+import { ownProgress } from '../practiceStore';
 import { useStored } from '../useStored';
-import { dayLabel, perArrow, progressSessions, weekLabel } from './progressData';
+import { dayLabel, perArrow, weekLabel } from './progressData';
 
 // The chart library comes with the chart, after the screen and its table are on show.
 const ProgressChart = lazy(async () => ({ default: (await import('./ProgressChart')).ProgressChart }));
@@ -14,13 +14,7 @@ const ProgressChart = lazy(async () => ({ default: (await import('./ProgressChar
 /** Progress over weeks: the average per arrow by week, per distance and face, from this phone's log. */
 export function ProgressScreen() {
   const owner = usePhoneOwner();
-  const sessions = useStored(
-    async () => {
-      const own = await ownPractice(owner);
-      return progressSessions(own.sessions, own.ends);
-    },
-    `owner:${owner ?? 'none'}`,
-  );
+  const sessions = useStored(() => ownProgress(owner), `owner:${owner ?? 'none'}`);
   const [bowStyle, setBowStyle] = useState<BowStyle>();
   const [distanceM, setDistanceM] = useState<number>();
 

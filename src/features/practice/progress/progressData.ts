@@ -1,25 +1,3 @@
-import type { ProgressSession } from '../../../core/practice/progress';
-import type { PracticeEndRow, PracticeSessionRow } from '../../../local/db';
-
-/** The phone's rows as the core's progress wants them: each session with its ends. */
-export function progressSessions(
-  sessions: readonly PracticeSessionRow[],
-  ends: readonly PracticeEndRow[],
-): ProgressSession[] {
-  const bySession = new Map<string, PracticeEndRow[]>();
-  for (const end of ends) {
-    const list = bySession.get(end.sessionId);
-    if (list) list.push(end);
-    else bySession.set(end.sessionId, [end]);
-  }
-  return sessions.map((s) => ({
-    id: s.id,
-    startedAt: s.startedAt,
-    bowStyle: s.bowStyle,
-    ends: bySession.get(s.id) ?? [],
-  }));
-}
-
 // One formatter for every label: toLocaleDateString builds a new one each call, which showed
 // in the progress benchmark (52 weeks × 3 tables).
 const dayMonthYear = new Intl.DateTimeFormat('en-GB', {
