@@ -2,6 +2,7 @@ import type { MatchEndArgs, MatchShootOffArgs, MatchSignArgs } from '../contract
 import { Dexie, type EntityTable } from 'dexie';
 import type { BowStyle, FaceId, Venue } from '../core';
 import type { PracticeArrow } from '../core/practice';
+import type { ProgressPart } from '../core/practice/progressParts';
 import type {
   CardSignatureDto,
   EndRuleArgs,
@@ -91,6 +92,11 @@ export type PracticeSessionRow = {
   shaftDiameterMm: number;
   note?: string;
   finishedAt?: string;
+  /**
+   * Arrows and points per distance and face, kept with each arrow stored, so progress reads
+   * these rather than every arrow. Absent on sessions stored before it was kept.
+   */
+  progress?: ProgressPart[];
 };
 
 /** One end of a practice session, arrows in the order they were entered or plotted. */

@@ -7,6 +7,7 @@ import {
   addPracticeArrow,
   deletePracticeSession,
   ownPractice,
+  ownProgress,
   practiceEnds,
   restorePracticeSession,
   startPracticeSession,
@@ -43,9 +44,21 @@ describe('practice on the phone', () => {
     // X,10,9,9,8,M = 46 (see tests/core/practice.test.ts).
     expect(summarize(ends).tally.total).toBe(46);
 
+    // Progress parts kept with the session: 6 arrows, 46 points at 18 m on the 40 cm face.
+    expect((await db.practiceSessions.get(id))?.progress).toEqual([
+      { distanceM: 18, faceId: 'full-40', arrows: 6, points: 46 },
+    ]);
+
     await undoPracticeArrow(id, db);
     const session = await db.practiceSessions.get(id);
     expect(session?.finishedAt).toBeUndefined();
+    // The M taken back: 5 arrows, still 46 points.
+    expect(session?.progress).toEqual([{ distanceM: 18, faceId: 'full-40', arrows: 5, points: 46 }]);
+    // A session stored before the parts were kept is worked out from its ends.
+    await db.practiceSessions.update(id, { progress: undefined });
+    expect((await ownProgress(undefined, db))[0]?.parts).toEqual([
+      { distanceM: 18, faceId: 'full-40', arrows: 5, points: 46 },
+    ]);
     expect(nextEndIndex(session!, await practiceEnds(id, db))).toBe(1);
     db.close();
   });

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { expect, test, type Page } from '@playwright/test';
 import { checkA11y } from './support/a11y';
+import { openThenGoOffline } from './support/offline';
 
 /** Page pixels of a point given in mm on the plotting face (the SVG's own units). */
 async function pixelsOf(page: Page, xMm: number, yMm: number): Promise<{ x: number; y: number }> {
@@ -25,10 +26,7 @@ test('with no account and no signal, a practice session plotted arrow by arrow i
   page,
   context,
 }) => {
-  await page.goto('/');
-  // The service worker must control the page before the signal goes, so the app opens offline.
-  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
-  await context.setOffline(true);
+  await openThenGoOffline(page, context);
   await page.reload();
 
   await page.getByTestId('practice-link').click();

@@ -266,6 +266,14 @@ function PastSessions() {
         ))}
       </ul>
       {sessions && sessions.length > 0 && (
+        <Link
+          to="/practice/progress"
+          className="flex min-h-14 w-full items-center justify-center rounded-lg border-2 border-ink bg-card px-5 text-lg font-bold text-ink"
+        >
+          Progress over weeks
+        </Link>
+      )}
+      {sessions && sessions.length > 0 && (
         <Button variant="secondary" className="w-full" onClick={() => void exportCsv()}>
           Export the log as CSV
         </Button>

@@ -1,6 +1,8 @@
 import { NO_ACCOUNT, localDb, type PracticeEndRow, type PracticeSessionRow } from '../../local/db';
 import { phoneOwner } from '../../local/phoneOwner';
 import type { PracticeArrow } from '../../core/practice';
+import type { ProgressSession } from '../../core/practice/progress';
+import { progressParts } from '../../core/practice/progressParts';
 import { endSetup, nextEndIndex } from './plan';
 
 export type NewPracticeSession = Omit<PracticeSessionRow, 'id' | 'ownerId' | 'startedAt' | 'finishedAt'>;
@@ -28,11 +30,30 @@ export async function ownPractice(
       .equals(owner ?? NO_ACCOUNT)
       .toArray()
   ).sort((a, b) => b.startedAt.localeCompare(a.startedAt));
-  const ends = await db.practiceEnds
-    .where('sessionId')
-    .anyOf(sessions.map((x) => x.id))
-    .toArray();
+  // The whole table in one read, kept to these sessions here: `anyOf` over hundreds of session
+  // ids walks a cursor key by key, several times slower (bench/progress.bench.ts).
+  const own = new Set(sessions.map((x) => x.id));
+  const ends = (await db.practiceEnds.toArray()).filter((e) => own.has(e.sessionId));
   return { sessions, ends };
+}
+
+/**
+ * What the progress screen needs of whoever uses the phone now: their sessions with progress
+ * parts. Ends are read only for sessions stored before the parts were kept.
+ */
+export async function ownProgress(owner: number | undefined, db = localDb()): Promise<ProgressSession[]> {
+  const sessions = await db.practiceSessions
+    .where('ownerId')
+    .equals(owner ?? NO_ACCOUNT)
+    .toArray();
+  const older = sessions.filter((s) => !s.progress).map((s) => s.id);
+  const ends = older.length === 0 ? [] : await db.practiceEnds.where('sessionId').anyOf(older).toArray();
+  return sessions.map((s) => ({
+    id: s.id,
+    startedAt: s.startedAt,
+    bowStyle: s.bowStyle,
+    parts: s.progress ?? progressParts(ends.filter((e) => e.sessionId === s.id)),
+  }));
 }
 
 export async function practiceEnds(sessionId: string, db = localDb()): Promise<PracticeEndRow[]> {
@@ -69,14 +90,12 @@ export function addPracticeArrow(sessionId: string, arrow: PracticeArrow, db = l
           at,
         };
     await db.practiceEnds.put(end);
-    const others = ends.filter((e) => e.index !== index);
-    if (
-      nextEndIndex(
-        session,
-        [...others, end].sort((a, b) => a.index - b.index),
-      ) === undefined
-    )
-      await db.practiceSessions.update(sessionId, { finishedAt: at });
+    const now = [...ends.filter((e) => e.index !== index), end].sort((a, b) => a.index - b.index);
+    // The session's progress parts change with every arrow; finished when its last end fills.
+    await db.practiceSessions.update(sessionId, {
+      progress: progressParts(now),
+      ...(nextEndIndex(session, now) === undefined ? { finishedAt: at } : {}),
+    });
     return true;
   });
 }
@@ -87,9 +106,13 @@ export function undoPracticeArrow(sessionId: string, db = localDb()): Promise<vo
     const ends = await practiceEnds(sessionId, db);
     const last = ends[ends.length - 1];
     if (!last) return;
-    if (last.arrows.length <= 1) await db.practiceEnds.delete(last.key);
-    else await db.practiceEnds.put({ ...last, arrows: last.arrows.slice(0, -1) });
-    await db.practiceSessions.update(sessionId, { finishedAt: undefined });
+    const shorter = { ...last, arrows: last.arrows.slice(0, -1) };
+    if (shorter.arrows.length === 0) await db.practiceEnds.delete(last.key);
+    else await db.practiceEnds.put(shorter);
+    await db.practiceSessions.update(sessionId, {
+      finishedAt: undefined,
+      progress: progressParts([...ends.slice(0, -1), shorter]),
+    });
   });
 }
 

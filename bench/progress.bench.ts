@@ -1,0 +1,163 @@
+/**
+ * The progress screen over a year of practice: 300 sessions, 20,000 arrows written into the
+ * page's IndexedDB, then the screen drawn (tap on "Progress over weeks" → every chart drawn) in
+ * Chromium at 4× CPU throttling (`Emulation.setCPUThrottlingRate`), Pixel 7 viewport. Prints the
+ * script time Chromium counts while drawing (`Performance.getMetrics` ScriptDuration; goal
+ * ≤ 100 ms), the first time (the screen's and the chart library's chunks fetched and run) and
+ * again with them loaded. Needs a built client (`npm run build`) and Debian's Chromium.
+ */
+import { cpus, loadavg } from 'node:os';
+import { chromium, devices, type CDPSession } from '@playwright/test';
+import { chromiumArgs, chromiumPath } from '../tests/support/chromium';
+import { progressParts } from '../src/core/practice/progress';
+import type { PracticeArrow } from '../src/core/practice';
+import { startBenchServer } from './support/fieldPhone';
+import { percentile } from './support/stats';
+
+const SESSIONS = 300;
+const ARROWS = 20_000;
+const THROTTLE = 4;
+const RUNS = 6;
+
+const server = await startBenchServer(4475, '.tmp/bench-progress');
+// The server child would keep this process, and `npm run bench`, waiting for ever.
+process.on('exit', () => server.child.kill('SIGTERM'));
+
+/** A year of practice as the phone stores it (src/local/db.ts): rows for the two practice tables. */
+function yearOfPractice() {
+  const sessions: object[] = [];
+  const ends: object[] = [];
+  const setups = [
+    { distanceM: 18, faceId: 'full-40', venue: 'indoor' },
+    { distanceM: 70, faceId: 'full-122', venue: 'outdoor' },
+    { distanceM: 30, faceId: 'full-80', venue: 'outdoor' },
+  ] as const;
+  const values = ['X', '10', '9', '8', '7', '6', '5', 'M'] as const;
+  let seed = 17;
+  const random = () => {
+    seed = (seed * 1_103_515_245 + 12_345) % 2 ** 31;
+    return seed / 2 ** 31;
+  };
+  const start = Date.parse('2025-12-01T17:00:00.000Z');
+  let left = ARROWS;
+  for (let s = 0; s < SESSIONS; s += 1) {
+    const arrows = Math.round(left / (SESSIONS - s));
+    left -= arrows;
+    const setup = setups[s % 3]!;
+    const id = `bench-${String(s).padStart(3, '0')}`;
+    const startedAt = new Date(start + Math.floor((s * 365 * 86_400_000) / SESSIONS)).toISOString();
+    // Skill grows over the year: the values lean higher as s grows.
+    const own: { distanceM: number; faceId: (typeof setup)['faceId']; arrows: PracticeArrow[] }[] = [];
+    for (let index = 0; index * 6 < arrows; index += 1) {
+      const n = Math.min(6, arrows - index * 6);
+      const shot = Array.from({ length: n }, (_, k): PracticeArrow => {
+        const value = values[Math.min(7, Math.floor(random() * (5 - (3 * s) / SESSIONS)))]!;
+        // Every other end plotted: a point kept with the value.
+        return index % 2 === 0 ? { value, xMm: 3 * k - 7, yMm: 5 - 2 * k } : { value };
+      });
+      own.push({ distanceM: setup.distanceM, faceId: setup.faceId, arrows: shot });
+      ends.push({ key: `${id}:${index}`, sessionId: id, index, ...setup, arrows: shot, at: startedAt });
+    }
+    sessions.push({
+      id,
+      ownerId: 0,
+      startedAt,
+      bowStyle: s % 5 === 0 ? 'barebow' : 'recurve',
+      venue: setup.venue,
+      distanceM: setup.distanceM,
+      faceId: setup.faceId,
+      arrowsPerEnd: 6,
+      plannedEnds: null,
+      shaftDiameterMm: 5.5,
+      finishedAt: startedAt,
+      // Kept with each arrow stored, as src/features/practice/practiceStore.ts does.
+      progress: progressParts(own),
+    });
+  }
+  return { sessions, ends };
+}
+
+async function scriptSeconds(cdp: CDPSession): Promise<number> {
+  const { metrics } = await cdp.send('Performance.getMetrics');
+  return metrics.find((m) => m.name === 'ScriptDuration')?.value ?? 0;
+}
+
+const browser = await chromium.launch({ executablePath: chromiumPath(), args: chromiumArgs });
+try {
+  const context = await browser.newContext({ ...devices['Pixel 7'], baseURL: server.base });
+  const page = await context.newPage();
+  // The practice log opens the phone's database (Dexie creates its tables).
+  await page.goto('/practice');
+  await page.getByRole('heading', { name: 'Practice log' }).waitFor();
+  const year = yearOfPractice();
+  // Written as the page would (raw IndexedDB into Dexie's tables); a string, as this file has no DOM types.
+  await page.evaluate(`new Promise((resolve, reject) => {
+    const { sessions, ends } = ${JSON.stringify(year)};
+    const open = indexedDB.open('ringcall');
+    open.onerror = () => reject(open.error);
+    open.onsuccess = () => {
+      const db = open.result;
+      const tx = db.transaction(['practiceSessions', 'practiceEnds'], 'readwrite');
+      for (const s of sessions) tx.objectStore('practiceSessions').put(s);
+      for (const e of ends) tx.objectStore('practiceEnds').put(e);
+      tx.oncomplete = () => { db.close(); resolve(); };
+      tx.onerror = () => reject(tx.error);
+    };
+  })`);
+  const stored = (year.ends as { arrows: unknown[] }[]).reduce((n, e) => n + e.arrows.length, 0);
+  await page.reload();
+  const link = page.getByRole('link', { name: 'Progress over weeks' });
+  await link.waitFor();
+
+  const cdp = await context.newCDPSession(page);
+  await cdp.send('Performance.enable');
+  await cdp.send('Emulation.setCPUThrottlingRate', { rate: THROTTLE });
+  const scriptMs: number[] = [];
+  const wallMs: number[] = [];
+  let charts = 0;
+  for (let run = 0; run < RUNS; run += 1) {
+    const before = await scriptSeconds(cdp);
+    const started = Date.now();
+    // Clicked from inside the page: a Playwright locator's own search of the page (roles, names)
+    // would count as the page's script time.
+    await page.evaluate(`document.querySelector('a[href="/practice/progress"]').click()`);
+    charts = await page
+      .waitForFunction(
+        () => {
+          // No DOM types in this file (and the page's CSP forbids a string to evaluate here).
+          const doc = (
+            globalThis as unknown as { document: { querySelectorAll(s: string): { length: number } } }
+          ).document;
+          const all = doc.querySelectorAll('[data-testid="progress-chart"]').length;
+          const drawn = doc.querySelectorAll('[data-testid="progress-chart"][data-drawn]').length;
+          return all > 0 && drawn === all ? all : false;
+        },
+        undefined,
+        { polling: 50, timeout: 120_000 },
+      )
+      .then((h) => h.jsonValue() as Promise<number>);
+    wallMs.push(Date.now() - started);
+    scriptMs.push(((await scriptSeconds(cdp)) - before) * 1000);
+    if (run === 0) {
+      await cdp.send('Emulation.setCPUThrottlingRate', { rate: 1 });
+      await page.screenshot({ path: '.tmp/screens/progress-year.png' });
+      await cdp.send('Emulation.setCPUThrottlingRate', { rate: THROTTLE });
+    }
+    await page.getByRole('link', { name: 'Back to the practice log' }).click();
+    await link.waitFor();
+  }
+  const warm = scriptMs.slice(1);
+  const warmWall = wallMs.slice(1);
+  console.log(
+    `progress screen, ${SESSIONS} sessions, ${stored} arrows in IndexedDB, ${charts} charts, CPU ${THROTTLE}× slower, Pixel 7 viewport:`,
+  );
+  console.log(
+    `  script time drawing it (tap → every chart drawn): first ${scriptMs[0]!.toFixed(0)} ms (chunks fetched and run), then p50 ${percentile(warm, 50).toFixed(0)} ms, max ${Math.max(...warm).toFixed(0)} ms over ${warm.length} (goal ≤ 100 ms)`,
+  );
+  console.log(
+    `  wall time: first ${wallMs[0]} ms, then p50 ${percentile(warmWall, 50).toFixed(0)} ms; machine load (1-minute average, ${cpus().length} cores): ${loadavg()[0]!.toFixed(1)}`,
+  );
+} finally {
+  await browser.close();
+  server.child.kill('SIGTERM');
+}

@@ -1,0 +1,171 @@
+import { lazy, Suspense, useMemo, useState } from 'react';
+import { Link } from 'react-router-dom';
+import { getFace, type BowStyle } from '../../../core';
+import { practiceProgress, progressChoices, type ProgressSeries } from '../../../core/practice/progress';
+import { usePhoneOwner } from '../../../local/phoneOwner';
+import { BOW_STYLE_LABELS } from '../plan';
+import { ownProgress } from '../practiceStore';
+import { useStored } from '../useStored';
+import { dayLabel, perArrow, weekLabel } from './progressData';
+
+// The chart library comes with the chart, after the screen and its table are on show.
+const ProgressChart = lazy(async () => ({ default: (await import('./ProgressChart')).ProgressChart }));
+
+/** Progress over weeks: the average per arrow by week, per distance and face, from this phone's log. */
+export function ProgressScreen() {
+  const owner = usePhoneOwner();
+  const sessions = useStored(() => ownProgress(owner), `owner:${owner ?? 'none'}`);
+  const [bowStyle, setBowStyle] = useState<BowStyle>();
+  const [distanceM, setDistanceM] = useState<number>();
+
+  // Worked out again only when the log or a filter changes (a year is 20,000 arrows).
+  const choices = useMemo(() => (sessions ? progressChoices(sessions) : undefined), [sessions]);
+  const series = useMemo(
+    () => (sessions ? practiceProgress(sessions, { bowStyle, distanceM }) : undefined),
+    [sessions, bowStyle, distanceM],
+  );
+
+  return (
+    <div className="space-y-6">
+      <header className="space-y-2">
+        <h1 className="text-3xl font-bold leading-tight">Progress</h1>
+        <p>
+          Your average per arrow, week by week, at each distance and face. From this phone’s practice log.
+        </p>
+        <Link to="/practice" className="inline-flex min-h-11 items-center font-bold underline">
+          Back to the practice log
+        </Link>
+      </header>
+      {choices && choices.distances.length > 0 && (
+        <section aria-label="Filters" className="space-y-3">
+          <FilterRow
+            label="Bow style"
+            options={choices.bowStyles.map((b) => ({ value: b, text: BOW_STYLE_LABELS[b] }))}
+            chosen={bowStyle}
+            onChoose={setBowStyle}
+          />
+          <FilterRow
+            label="Distance"
+            options={choices.distances.map((d) => ({ value: d, text: `${d} m` }))}
+            chosen={distanceM}
+            onChoose={setDistanceM}
+          />
+        </section>
+      )}
+      {sessions && sessions.length === 0 && (
+        <div className="surface space-y-3 rounded-xl border border-line bg-card p-4">
+          <p className="text-lg">
+            No practice yet. Record a session in the practice log: its average per arrow will be drawn here,
+            week by week.
+          </p>
+          <Link
+            to="/practice"
+            className="inline-flex min-h-14 items-center rounded-lg bg-moss px-5 text-lg font-bold text-white"
+          >
+            Start practice
+          </Link>
+        </div>
+      )}
+      {sessions && sessions.length > 0 && series?.length === 0 && (
+        <p className="text-lg">No practice with these filters. Choose “All” to see every session.</p>
+      )}
+      {series?.map((s) => (
+        <SeriesView key={`${s.distanceM}|${s.faceId}`} series={s} />
+      ))}
+    </div>
+  );
+}
+
+function FilterRow<T extends string | number>({
+  label,
+  options,
+  chosen,
+  onChoose,
+}: {
+  label: string;
+  options: { value: T; text: string }[];
+  chosen: T | undefined;
+  onChoose: (value: T | undefined) => void;
+}) {
+  const all = [{ value: undefined, text: 'All' }, ...options];
+  return (
+    <div role="group" aria-label={label} className="space-y-1">
+      <p className="font-bold">{label}</p>
+      <div className="flex flex-wrap gap-2">
+        {all.map((o) => (
+          <button
+            key={o.text}
+            type="button"
+            aria-pressed={o.value === chosen}
+            onClick={() => onChoose(o.value)}
+            className={`min-h-14 min-w-14 rounded-lg border-2 px-4 text-base font-bold transition-transform active:scale-[0.97] ${
+              o.value === chosen ? 'border-moss bg-moss text-white' : 'border-ink bg-card text-ink'
+            }`}
+          >
+            {o.text}
+          </button>
+        ))}
+      </div>
+    </div>
+  );
+}
+
+function SeriesView({ series }: { series: ProgressSeries }) {
+  const title = `${series.distanceM} m · ${getFace(series.faceId).label}`;
+  const id = `progress-${series.distanceM}-${series.faceId}`;
+  const latest = series.weeks[series.weeks.length - 1];
+  const best = series.best;
+  // The table (the chart's figures in text) is drawn when opened: a year is 52 rows a series.
+  const [open, setOpen] = useState(false);
+  return (
+    <section aria-labelledby={id} className="surface space-y-3 rounded-xl border border-line bg-card p-4">
+      <h2 id={id} className="text-2xl font-bold">
+        {title}
+      </h2>
+      <p data-testid="progress-summary">
+        {latest &&
+          `Week of ${weekLabel(latest.weekStart)}: ${perArrow(latest.averagePerArrow)} an arrow over ${latest.arrows} arrows. `}
+        Best session: {perArrow(best.averagePerArrow)} an arrow on {dayLabel(best.startedAt)} ({best.arrows}{' '}
+        arrows), ringed on the chart.
+      </p>
+      <Suspense fallback={<div style={{ height: 220 }} />}>
+        <ProgressChart series={series} />
+      </Suspense>
+      <details onToggle={(e) => setOpen(e.currentTarget.open)}>
+        <summary className="flex min-h-11 cursor-pointer items-center font-bold underline">
+          Every week ({series.weeks.length})
+        </summary>
+        {open && (
+          <table className="w-full text-left">
+            <caption className="sr-only">{title}: average per arrow by week</caption>
+            <thead>
+              <tr className="border-b-2 border-ink">
+                <th scope="col" className="py-1">
+                  Week of
+                </th>
+                <th scope="col" className="py-1 pl-2 text-right">
+                  Arrows
+                </th>
+                <th scope="col" className="py-1 pl-2 text-right">
+                  Average
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {[...series.weeks].reverse().map((w) => (
+                <tr key={w.weekStart} className="border-b border-line">
+                  <th scope="row" className="py-1 font-normal">
+                    {weekLabel(w.weekStart)}
+                    {w.weekStart === best.weekStart && <span className="font-bold"> · best session</span>}
+                  </th>
+                  <td className="py-1 text-right">{w.arrows}</td>
+                  <td className="py-1 text-right font-bold">{perArrow(w.averagePerArrow)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+      </details>
+    </section>
+  );
+}

@@ -1,0 +1,51 @@
+import { expect, test } from '@playwright/test';
+import { checkA11y } from './support/a11y';
+import { openThenGoOffline } from './support/offline';
+
+test('with no signal, practice just recorded shows on the progress screen: chart, summary and table', async ({
+  page,
+  context,
+}) => {
+  await openThenGoOffline(page, context);
+
+  await page.goto('/practice/progress');
+  await expect(page.getByRole('heading', { level: 1, name: 'Progress' })).toBeVisible();
+  await expect(page.getByText('No practice yet')).toBeVisible();
+  await checkA11y(page, 'progress, empty');
+  await page.screenshot({ path: '.tmp/screens/progress-empty.png', fullPage: true });
+
+  // One end of three at 18 m on the 40 cm face: X, 10, 9 = 29 points, 9.67 an arrow.
+  await page.getByRole('link', { name: 'Start practice' }).click();
+  await page.getByLabel('Ends', { exact: true }).fill('1');
+  await page.getByRole('button', { name: 'Start free practice' }).click();
+  await page.getByRole('button', { name: 'Type values' }).click();
+  await page.getByRole('button', { name: 'Arrow X', exact: true }).click();
+  await page.keyboard.press('1');
+  await page.keyboard.press('0');
+  await page.keyboard.press('9');
+  await expect(page.getByTestId('session-finished')).toContainText('3 arrows');
+
+  await page.getByRole('link', { name: '← Practice log' }).click();
+  await page.getByRole('link', { name: 'Progress over weeks' }).click();
+  await expect(page.getByRole('heading', { level: 2, name: /18 m/ })).toBeVisible();
+  // The chart library arrives after the screen; the chart says when it is drawn.
+  await expect(page.getByTestId('progress-chart')).toHaveAttribute('data-drawn', '1');
+  await expect(page.locator('[data-testid="progress-chart"] canvas')).toHaveCount(1);
+  const summary = page.getByTestId('progress-summary');
+  await expect(summary).toContainText('9.67 an arrow over 3 arrows');
+  await expect(summary).toContainText('Best session: 9.67 an arrow');
+  // The same figures as a table, drawn when opened.
+  await page.getByText('Every week (1)').click();
+  await expect(page.getByRole('table')).toContainText('9.67');
+  await expect(page.getByRole('table')).toContainText('best session');
+  await checkA11y(page, 'progress with one session');
+  await page.screenshot({ path: '.tmp/screens/progress-one-week.png', fullPage: true });
+
+  // Filters: the session's bow and distance keep it; both pressed, still drawn.
+  await page.getByRole('group', { name: 'Bow style' }).getByRole('button', { name: 'Recurve' }).click();
+  await page.getByRole('group', { name: 'Distance' }).getByRole('button', { name: '18 m' }).click();
+  await expect(page.getByRole('button', { name: '18 m' })).toHaveAttribute('aria-pressed', 'true');
+  await expect(summary).toContainText('9.67 an arrow over 3 arrows');
+  await checkA11y(page, 'progress, filtered');
+  await page.screenshot({ path: '.tmp/screens/progress-filtered.png', fullPage: true });
+});
