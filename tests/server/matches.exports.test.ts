@@ -212,8 +212,13 @@ describe('the bracket PDF', () => {
     );
     expect(none.status).toBe(404);
     expect(none.body.error.message).toMatch(/no bracket/);
-    const bad = await request(server.app).get(`${base()}/brackets/pdf?division=abc`);
-    expect(bad.status).toBe(400);
+    // Hostile forms of the same parameter: words, a number past any id, bytes that are not
+    // UTF-8, and the parameter twice. Each is a 400 with the same sentence, never a 500.
+    for (const query of ['abc', '99999999999999999999', '%FF%FE', '1&division=2', '-1', '1.5']) {
+      const bad = await request(server.app).get(`${base()}/brackets/pdf?division=${query}`);
+      expect(bad.status, query).toBe(400);
+      expect(bad.body.error.message).toBe('division must be the number of one of the event’s divisions.');
+    }
   });
 
   it('is for the event’s people only until the results are published', async () => {
