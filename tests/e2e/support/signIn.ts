@@ -8,7 +8,8 @@ export async function signedInPhone(browser: Browser, email: string): Promise<Pa
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(DEMO_PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByTestId('signed-in-name')).toBeVisible();
+  // Checking the password is a bcrypt hash at cost 12: seconds on a busy 2-core machine.
+  await expect(page.getByTestId('signed-in-name')).toBeVisible({ timeout: 15_000 });
   await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
   return page;
 }
