@@ -2,6 +2,7 @@ import {
   isMatchMutation,
   isUnreadable,
   type MutationResult,
+  type PullQuery,
   type PushResponse,
   type ReceivedPush,
 } from '../../../src/contract/sync';
@@ -12,6 +13,7 @@ import type { SigningKeys } from '../signing/serverKeys';
 import { nowIso } from '../../time';
 import { applyMatchChange } from '../matches/applyMatchChange';
 import { applyMutation } from './applyMutation';
+import { pullMany } from './pullChanges';
 import type { Author } from './effects';
 import { FieldBatch } from './fieldBatch';
 import { LateArrival } from './lateArrival';
@@ -25,6 +27,8 @@ export type Push = {
   signingKeys?: SigningKeys;
   /** The judge whose transcription of a file this push is (see PushOptions). */
   transcribedBy?: { userId: number; name: string };
+  /** The phone's pull, answered with the push (read in its commit, after its writes). */
+  pull?: PullQuery;
 };
 
 export type CardRef = { sessionId: number; entryId: number };
@@ -137,6 +141,14 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
   for (let i = 0; i < logRows.length; i += 200) await trx('mutations').insert(logRows.slice(i, i + 200));
   await storeHeld(trx, held);
   await writeClients(trx, clients, receivedAt);
+  // Read after every write of the commit and answered only once it is committed, so each pull
+  // holds its own push's effects (and those of the pushes before it in the commit).
+  const pulling = plans.filter((p) => p.push.pull !== undefined);
+  const pulls = await pullMany(
+    trx,
+    pulling.map(({ push }) => ({ userId: push.userId, ...push.pull! })),
+  );
+  pulling.forEach((p, i) => (p.done.response.pull = pulls[i]));
   return outcomes;
 }
 
