@@ -26,7 +26,12 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { createBenchField, startBareServerChild, startServerChild, type BenchField } from './support/syncField';
+import {
+  createBenchField,
+  startBareServerChild,
+  startServerChild,
+  type BenchField,
+} from './support/syncField';
 import { jsonClient } from './support/jsonClient';
 import { padPhones, syncRound, type RoundTrips } from './support/padPhone';
 import { rawDay, type RawPush } from './support/rawInserts';
