@@ -7,6 +7,7 @@ import {
   type ReceivedPush,
 } from '../../../src/contract/sync';
 import type { Db } from '../../db';
+import { insertRows } from '../../rowInserts';
 import type { Outcome } from '../../groupCommit';
 import { forbidden } from '../../http/httpError';
 import type { SigningKeys } from '../signing/serverKeys';
@@ -138,7 +139,7 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
   }
 
   await batch.flush(trx);
-  for (let i = 0; i < logRows.length; i += 200) await trx('mutations').insert(logRows.slice(i, i + 200));
+  await insertRows(trx, 'mutations', logRows);
   await storeHeld(trx, held);
   await writeClients(trx, clients, receivedAt);
   // Read after every write of the commit and answered only once it is committed, so each pull
@@ -176,9 +177,5 @@ async function writeClients(trx: Db, clients: Map<string, ClientState>, at: stri
       last_seq: c.lastSeq,
       updated_at: at,
     }));
-  for (let i = 0; i < rows.length; i += 200)
-    await trx('sync_clients')
-      .insert(rows.slice(i, i + 200))
-      .onConflict('client_id')
-      .merge(['last_seq', 'updated_at']);
+  await insertRows(trx, 'sync_clients', rows, { conflict: ['client_id'], merge: ['last_seq', 'updated_at'] });
 }
