@@ -1,5 +1,6 @@
 import type { ChangeDto, PullQuery, PullResponse } from '../../../src/contract/sync';
 import type { Db } from '../../db';
+import { compiledQuery } from '../../compiledQuery';
 
 type ChangeRow = { version: number; type: ChangeDto['type']; record_json: string };
 
@@ -39,13 +40,10 @@ export async function pullMany(db: Db, asks: readonly PullAsk[]): Promise<PullRe
     const key = `${part.key}|${cursor}|${limit}`;
     let rows = pages.get(key);
     if (!rows) {
-      rows = db('changes')
-        .where(part.narrow)
-        .where('version', '>', cursor)
-        .where('version', '<=', top)
-        .orderBy('version')
-        .limit(limit + 1)
-        .select('version', 'type', 'record_json') as Promise<ChangeRow[]>;
+      rows =
+        'eventId' in part
+          ? eventPage(db, [part.eventId, cursor, top, limit + 1])
+          : targetPage(db, [part.sessionId, part.targetNumber, cursor, top, limit + 1]);
       pages.set(key, rows);
     }
     return rows;
@@ -71,7 +69,23 @@ export async function pullMany(db: Db, asks: readonly PullAsk[]): Promise<PullRe
 }
 
 /** A part of the log one index reads: an event's changes, or a target group's. */
-type Part = { key: string; narrow: Record<string, number> };
+type Part = { key: string } & ({ eventId: number } | { sessionId: number; targetNumber: number });
+
+/** One page of a part after a cursor, up to `top`, at most `limit` rows, by the part's index. */
+const pageOf = (db: Db, narrow: Record<string, number>, [cursor, top, limit]: number[]) =>
+  db('changes')
+    .where(narrow)
+    .where('version', '>', cursor!)
+    .where('version', '<=', top!)
+    .orderBy('version')
+    .limit(limit!)
+    .select('version', 'type', 'record_json');
+const eventPage = compiledQuery<ChangeRow>(4, (db, [eventId, ...rest]) =>
+  pageOf(db, { event_id: eventId! }, rest),
+);
+const targetPage = compiledQuery<ChangeRow>(5, (db, [sessionId, targetNumber, ...rest]) =>
+  pageOf(db, { session_id: sessionId!, target_number: targetNumber! }, rest),
+);
 
 /** What each person may see: the events they judge or organize, and the target groups they are in. */
 async function visibleParts(db: Db, userIds: number[]): Promise<Map<number, Part[]>> {
@@ -92,11 +106,12 @@ async function visibleParts(db: Db, userIds: number[]): Promise<Map<number, Part
     if (list) list.push(part);
     else parts.set(userId, [part]);
   };
-  for (const e of events) add(e.user_id, { key: `e${e.event_id}`, narrow: { event_id: e.event_id } });
+  for (const e of events) add(e.user_id, { key: `e${e.event_id}`, eventId: e.event_id });
   for (const t of targets)
     add(t.user_id, {
       key: `t${t.session_id}:${t.target_number}`,
-      narrow: { session_id: t.session_id, target_number: t.target_number },
+      sessionId: t.session_id,
+      targetNumber: t.target_number,
     });
   return parts;
 }
