@@ -15,7 +15,9 @@
  *     12 ends × 2 writers × 6 taps = 28,800 changes in 4,800 pushes, all 100 phones at once with
  *     no pause (the whole day as fast as the server takes it). Wall time, the server's own CPU,
  *     and the rate against raw better-sqlite3 writing what the server must keep of the same day
- *     (support/rawInserts.ts) with the same number of commits, in the same run.
+ *     (support/rawInserts.ts) with the same number of commits, in the same run; and the floor of
+ *     any server on this machine: a bare node:http server answering the same pushes with JSON of
+ *     the same size and nothing else (support/bareServerChild.ts), in the same run.
  * (b) 100 phones syncing once a second: each phone, once at a random moment in every second,
  *     sends an archer's end (six taps) and pulls. Latency p50/p99 of each sync.
  * (c) What a pull costs: a phone that has just joined one target pulls it from the start, after
@@ -24,7 +26,12 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { createBenchField, startServerChild, type BenchField } from './support/syncField';
+import {
+  createBenchField,
+  startBareServerChild,
+  startServerChild,
+  type BenchField,
+} from './support/syncField';
 import { jsonClient } from './support/jsonClient';
 import { padPhones, syncRound, type RoundTrips } from './support/padPhone';
 import { rawDay, type RawPush } from './support/rawInserts';
@@ -42,11 +49,11 @@ const freshFile = () => join(dir, `sync-${(dbCounter += 1)}.sqlite`);
  * on the first few hundred requests) by the two writers of one extra target that the measured
  * phones never see.
  */
-async function warmServer(prepare?: (file: string, field: BenchField) => void) {
+async function warmServer(prepare?: (file: string, field: BenchField) => void, bare = false) {
   const file = freshFile();
   const field = await createBenchField(file, TARGETS + 1);
   prepare?.(file, field);
-  const server = await startServerChild(file);
+  const server = bare ? await startBareServerChild() : await startServerChild(file);
   const http = jsonClient(server.port);
   const warm = padPhones(field, ENDS, (w) => w.target > TARGETS, 'warm');
   await Promise.all(
@@ -63,9 +70,12 @@ async function warmServer(prepare?: (file: string, field: BenchField) => void) {
   return { field, file, http, phones, cpuMs: server.cpuMs, stop };
 }
 
-/** (a) Every phone sends its day, one archer's end per push, each push followed by a pull. */
-async function enterTheDay(trips: RoundTrips) {
-  const { http, phones, cpuMs, stop } = await warmServer();
+/**
+ * (a) Every phone sends its day, one archer's end per push, each push followed by a pull. With
+ * `bare`, to the floor (support/bareServerChild.ts) instead of the app.
+ */
+async function enterTheDay(trips: RoundTrips, bare = false) {
+  const { http, phones, cpuMs, stop } = await warmServer(undefined, bare);
   try {
     // Phones that have talked to the server before: their connections are open (kept alive).
     await Promise.all(phones.map((phone) => http.get('/api/sync/pull?cursor=0&limit=1', phone.writer.token)));
@@ -183,6 +193,14 @@ try {
         `in ${day} pushes (one archer's end each), every push followed by a pull, 100 phones at once`,
     );
   const raw = parts.includes('a') ? await rawRate() : 0;
+  if (parts.includes('a')) {
+    const bare = await enterTheDay('one', true);
+    console.log(
+      `    floor, a bare node:http server answering the same pushes (JSON of the same size, nothing else): ` +
+        `${bare.requests} requests in ${(bare.seconds * 1000).toFixed(0)} ms wall; ` +
+        `its CPU ${(bare.serverCpuMs / 1000).toFixed(2)} s (${((bare.serverCpuMs * 1000) / bare.pushes).toFixed(0)} µs per push)`,
+    );
+  }
   for (const trips of parts.includes('a') ? (['one', 'two'] as const) : []) {
     const run = await enterTheDay(trips);
     const rate = run.taps / run.seconds;

@@ -111,17 +111,25 @@ export async function createBenchField(file: string, targets: number): Promise<B
  * `BENCH_SERVER_PROFILE=<folder>` the child writes a V8 CPU profile there when it stops (Node
  * refuses `--cpu-prof` in NODE_OPTIONS, so it has to be passed here).
  */
-export async function startServerChild(file: string): Promise<{
+export const startServerChild = (file: string) => startChild('./syncServerChild.ts', [file]);
+
+/** Starts bench/support/bareServerChild.ts, the floor: a bare node:http server answering pushes. */
+export const startBareServerChild = () => startChild('./bareServerChild.ts', []);
+
+async function startChild(
+  name: string,
+  args: string[],
+): Promise<{
   port: number;
   child: ChildProcess;
   /** CPU time (user + system) the server has used so far, in ms. */
   cpuMs: () => Promise<number>;
   stop: () => Promise<void>;
 }> {
-  const script = fileURLToPath(new URL('./syncServerChild.ts', import.meta.url));
+  const script = fileURLToPath(new URL(name, import.meta.url));
   const profile = process.env.BENCH_SERVER_PROFILE;
   const profiling = profile ? ['--cpu-prof', '--cpu-prof-dir', profile] : [];
-  const child = spawn(process.execPath, [...profiling, '--import', 'tsx', script, file], {
+  const child = spawn(process.execPath, [...profiling, '--import', 'tsx', script, ...args], {
     stdio: ['ignore', 'pipe', 'inherit', 'ipc'],
   });
   const firstLine = await new Promise<string>((resolve, reject) => {

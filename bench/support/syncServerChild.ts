@@ -24,7 +24,8 @@ const app = createApp({
   linkAddress: { url: 'http://127.0.0.1', from: 'HOST', phonesCanOpen: false },
   dataDir: dirname(file),
   signingKeys: await loadSigningKeys(dirname(file)),
-  logRequests: false,
+  // As deployed (LOG_REQUESTS defaults to on; the push and the pull are not in the request log).
+  logRequests: true,
 });
 const server = app.listen(0, '127.0.0.1', () => {
   process.stdout.write(`${JSON.stringify({ port: (server.address() as AddressInfo).port })}\n`);

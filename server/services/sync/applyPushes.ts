@@ -2,16 +2,19 @@ import {
   isMatchMutation,
   isUnreadable,
   type MutationResult,
+  type PullQuery,
   type PushResponse,
   type ReceivedPush,
 } from '../../../src/contract/sync';
 import type { Db } from '../../db';
+import { insertRows } from '../../rowInserts';
 import type { Outcome } from '../../groupCommit';
 import { forbidden } from '../../http/httpError';
 import type { SigningKeys } from '../signing/serverKeys';
 import { nowIso } from '../../time';
 import { applyMatchChange } from '../matches/applyMatchChange';
 import { applyMutation } from './applyMutation';
+import { pullMany } from './pullChanges';
 import type { Author } from './effects';
 import { FieldBatch } from './fieldBatch';
 import { LateArrival } from './lateArrival';
@@ -25,6 +28,8 @@ export type Push = {
   signingKeys?: SigningKeys;
   /** The judge whose transcription of a file this push is (see PushOptions). */
   transcribedBy?: { userId: number; name: string };
+  /** The phone's pull, answered with the push (read in its commit, after its writes). */
+  pull?: PullQuery;
 };
 
 export type CardRef = { sessionId: number; entryId: number };
@@ -134,9 +139,17 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
   }
 
   await batch.flush(trx);
-  for (let i = 0; i < logRows.length; i += 200) await trx('mutations').insert(logRows.slice(i, i + 200));
+  await insertRows(trx, 'mutations', logRows);
   await storeHeld(trx, held);
   await writeClients(trx, clients, receivedAt);
+  // Read after every write of the commit and answered only once it is committed, so each pull
+  // holds its own push's effects (and those of the pushes before it in the commit).
+  const pulling = plans.filter((p) => p.push.pull !== undefined);
+  const pulls = await pullMany(
+    trx,
+    pulling.map(({ push }) => ({ userId: push.userId, ...push.pull! })),
+  );
+  pulling.forEach((p, i) => (p.done.response.pull = pulls[i]));
   return outcomes;
 }
 
@@ -164,9 +177,5 @@ async function writeClients(trx: Db, clients: Map<string, ClientState>, at: stri
       last_seq: c.lastSeq,
       updated_at: at,
     }));
-  for (let i = 0; i < rows.length; i += 200)
-    await trx('sync_clients')
-      .insert(rows.slice(i, i + 200))
-      .onConflict('client_id')
-      .merge(['last_seq', 'updated_at']);
+  await insertRows(trx, 'sync_clients', rows, { conflict: ['client_id'], merge: ['last_seq', 'updated_at'] });
 }

@@ -1,6 +1,7 @@
 import type { CardSignatureDto, EndSignatureDto, RulingDto } from '../../../src/contract/judging';
 import type { EndRecordDto, SettlementDto } from '../../../src/contract/sync';
 import type { Db } from '../../db';
+import { insertRows } from '../../rowInserts';
 import type { CardSignatureRow, EndEntryRow, EndSignatureRow, RulingRow, SettlementRow } from './fieldRows';
 import type { Placement } from './fieldPlacements';
 
@@ -50,9 +51,6 @@ export type FieldWrites = {
   changes: { placement: Placement; change: () => ChangeRecord }[];
 };
 
-const chunks = <T>(rows: T[], size: number) =>
-  Array.from({ length: Math.ceil(rows.length / size) }, (_, i) => rows.slice(i * size, (i + 1) * size));
-
 /**
  * Writes a batch's effects with multi-row statements: the final state of each end record and
  * settlement it touched, the judging rows in the order applied (a ruling's id is what a
@@ -61,12 +59,12 @@ const chunks = <T>(rows: T[], size: number) =>
  * (or hand out versions at commit) to keep that true.
  */
 export async function writeFieldBatch(trx: Db, writes: FieldWrites): Promise<void> {
-  for (const part of chunks(writes.records, 200)) {
-    await trx('end_entries').insert(part).onConflict(['session_id', 'entry_id', 'end_index', 'slot']).merge();
-  }
-  for (const part of chunks(writes.settlements, 200)) {
-    await trx('end_settlements').insert(part).onConflict(['session_id', 'entry_id', 'end_index']).merge();
-  }
+  await insertRows(trx, 'end_entries', writes.records, {
+    conflict: ['session_id', 'entry_id', 'end_index', 'slot'],
+  });
+  await insertRows(trx, 'end_settlements', writes.settlements, {
+    conflict: ['session_id', 'entry_id', 'end_index'],
+  });
   for (const op of writes.ops) {
     if (op.op === 'insert') {
       const [inserted] = (await trx(op.table).insert(op.held.row).returning('id')) as { id: number }[];
@@ -91,5 +89,5 @@ export async function writeFieldBatch(trx: Db, writes: FieldWrites): Promise<voi
       record_json: JSON.stringify(record),
     };
   });
-  for (const part of chunks(changeRows, 200)) await trx('changes').insert(part);
+  await insertRows(trx, 'changes', changeRows);
 }

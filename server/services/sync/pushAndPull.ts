@@ -1,11 +1,12 @@
 import { PULL_LIMIT_DEFAULT, type PushResponse, type ReceivedPush } from '../../../src/contract/sync';
 import type { Db } from '../../db';
-import { pullChanges } from './pullChanges';
 import { pushBatch, type PushOptions } from './pushBatch';
 
 /**
  * A phone's push, and when it sent its pull cursor, the pull in the same answer (one round trip
- * per sync). The pull is read after the push is committed, so it holds the push's own effects.
+ * per sync). The pull is read in the push's commit after all its writes, and answered only once
+ * that commit is done, so it holds the push's own effects; the pulls of a commit's pushes are
+ * read together (pullMany).
  */
 export async function pushAndPull(
   db: Db,
@@ -14,7 +15,6 @@ export async function pushAndPull(
   options: PushOptions = {},
   pullLimit = PULL_LIMIT_DEFAULT,
 ): Promise<PushResponse> {
-  const response = await pushBatch(db, userId, request, options);
-  if (request.cursor === undefined) return response;
-  return { ...response, pull: await pullChanges(db, userId, { cursor: request.cursor, limit: pullLimit }) };
+  if (request.cursor === undefined) return pushBatch(db, userId, request, options);
+  return pushBatch(db, userId, request, { ...options, pull: { cursor: request.cursor, limit: pullLimit } });
 }

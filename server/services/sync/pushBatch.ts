@@ -1,4 +1,4 @@
-import type { PushResponse, ReceivedPush } from '../../../src/contract/sync';
+import type { PullQuery, PushResponse, ReceivedPush } from '../../../src/contract/sync';
 import type { Db } from '../../db';
 import { GroupCommit } from '../../groupCommit';
 import type { SigningKeys } from '../signing/serverKeys';
@@ -17,6 +17,8 @@ export type PushOptions = {
    * transcription (labelled so), and may not carry anyone's signature or ruling.
    */
   transcribedBy?: { userId: number; name: string };
+  /** Answer the push with this pull too (pushAndPull.ts). */
+  pull?: PullQuery;
 };
 
 /** Keeps one commit to a few thousand mutations, so a pull never waits long behind it. */
@@ -61,6 +63,7 @@ export async function pushBatch(
     request,
     signingKeys: options.signingKeys,
     ...(options.transcribedBy !== undefined ? { transcribedBy: options.transcribedBy } : {}),
+    ...(options.pull !== undefined ? { pull: options.pull } : {}),
   });
   if (done.finalCards.length > 0) options.onFinalCards?.(done.finalCards);
   return done.response;
