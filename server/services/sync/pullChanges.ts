@@ -5,7 +5,7 @@ type ChangeRow = { version: number; type: ChangeDto['type']; record_json: string
 
 /**
  * The changes after `cursor` this person may see, oldest first: those of the target groups they
- * are in, and every change of the events they judge or organize.
+ * are in, every change of the events they judge or organize, and their own practice.
  *
  * Each of these is read on its own by its index (`session_id, target_number, version` and
  * `event_id, version`), at most one page each, and the pages merged: a pull reads only what the
@@ -42,6 +42,8 @@ export async function pullChanges(db: Db, userId: number, query: PullQuery): Pro
   const pages = await Promise.all([
     ...events.map((e) => page({ event_id: e.event_id })),
     ...targets.map((t) => page({ session_id: t.session_id, target_number: t.target_number })),
+    // The person's own practice (migration 0014): only ever in their own pull.
+    page({ user_id: userId }),
   ]);
   // A target of an event the person also judges is in two pages: each change once.
   const merged = new Map<number, ChangeRow>();

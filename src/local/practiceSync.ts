@@ -1,0 +1,133 @@
+import type { PracticeEndDto, PracticeSessionDto } from '../contract/practice';
+import { isPracticeChange, type ChangeDto } from '../contract/sync';
+import { progressParts } from '../core/practice/progressParts';
+import { NO_ACCOUNT, type LocalDb, type PracticeEndRow, type PracticeSessionRow } from './db';
+import { clientIdFor, recordChangesInTransaction, type NewChange } from './outbox';
+
+/*
+ * The practice log synced to the person's account (docs/practice.md): each write on the phone
+ * records its outbox rows in the same transaction, the setup and each end replacing the one
+ * before, so sending one again changes nothing; pulled practice lands in the same tables.
+ */
+
+/** The session as the server keeps it: everything but the phone's owner and progress parts. */
+export function practiceSessionDto(session: PracticeSessionRow): PracticeSessionDto {
+  const { ownerId: _owner, progress: _progress, ...dto } = session;
+  return dto;
+}
+
+export const practiceEndDto = ({
+  sessionId,
+  index,
+  distanceM,
+  faceId,
+  arrows,
+  at,
+}: PracticeEndRow): PracticeEndDto => ({
+  sessionId,
+  index,
+  distanceM,
+  faceId,
+  arrows,
+  at,
+});
+
+/** Everything of a session, to send it whole (adopted on sign-in, or put back on Undo). */
+export const wholeSession = (session: PracticeSessionRow, ends: readonly PracticeEndRow[]): NewChange[] => [
+  { kind: 'practice.session', args: practiceSessionDto(session) },
+  ...ends.map((e): NewChange => ({ kind: 'practice.end', args: practiceEndDto(e) })),
+];
+
+/**
+ * Who a practice write on this phone is sent for, found before its transaction opens (finding a
+ * client id may write): the person using the phone, or no one (practice with no account waits
+ * on the phone until someone signs in and adopts it).
+ */
+export async function practiceSender(
+  db: LocalDb,
+  owner: number | undefined,
+): Promise<{ userId: number; clientId: string } | undefined> {
+  if (owner === undefined || owner === NO_ACCOUNT) return undefined;
+  return { userId: owner, clientId: await clientIdFor(db, owner) };
+}
+
+/** Records the outbox rows of a practice write in its transaction, when the session is the sender's. */
+export async function sendPractice(
+  db: LocalDb,
+  sender: { userId: number; clientId: string } | undefined,
+  ownerId: number,
+  changes: readonly NewChange[],
+): Promise<void> {
+  if (sender && sender.userId === ownerId)
+    await recordChangesInTransaction(db, sender.clientId, ownerId, changes);
+}
+
+const sessionOfKey = (endKey: string) => endKey.split(':')[1] ?? '';
+
+/**
+ * Stores the practice of a pull (inside the sync's transaction, over practiceSessions,
+ * practiceEnds and outbox): setups and ends replace the phone's copies, an end with no arrows and
+ * a deleted session go, and each touched session's progress parts are worked out again. A
+ * session with changes of this phone still waiting keeps the phone's own state: the next round
+ * sends them, and its pull brings the server's state back after them.
+ */
+export async function applyPulledPractice(
+  db: LocalDb,
+  userId: number,
+  changes: readonly ChangeDto[],
+): Promise<void> {
+  const practice = changes.filter(isPracticeChange);
+  if (practice.length === 0) return;
+  const waiting = new Set(
+    (
+      await db.outbox
+        .where('endKey')
+        .startsWith('practice:')
+        .filter((r) => r.status === 'pending' && r.userId === userId)
+        .toArray()
+    ).map((r) => sessionOfKey(r.endKey)),
+  );
+  const sessions = new Map<string, PracticeSessionDto>();
+  const ends = new Map<string, PracticeEndDto>();
+  /** Sessions deleted on the server: whatever this phone holds of them goes first. */
+  const wiped = new Set<string>();
+  for (const change of practice) {
+    const id = change.type === 'practice' ? change.record.id : change.record.sessionId;
+    if (waiting.has(id)) continue;
+    if (change.type === 'practice') sessions.set(id, change.record);
+    else if (change.type === 'practice-end') ends.set(`${id}:${change.record.index}`, change.record);
+    else {
+      wiped.add(id);
+      sessions.delete(id);
+      for (const [key, end] of ends) if (end.sessionId === id) ends.delete(key);
+    }
+  }
+  if (wiped.size > 0) {
+    await db.practiceEnds
+      .where('sessionId')
+      .anyOf([...wiped])
+      .delete();
+    await db.practiceSessions.bulkDelete([...wiped]);
+  }
+  const [kept, taken] = [
+    [...ends].filter(([, e]) => e.arrows.length > 0),
+    [...ends].filter(([, e]) => e.arrows.length === 0),
+  ];
+  await db.practiceEnds.bulkDelete(taken.map(([key]) => key));
+  await db.practiceEnds.bulkPut(kept.map(([key, e]): PracticeEndRow => ({ key, ...e })));
+
+  const touched = [...new Set([...sessions.keys(), ...[...ends.values()].map((e) => e.sessionId)])];
+  const [stored, allEnds] = await Promise.all([
+    db.practiceSessions.bulkGet(touched),
+    db.practiceEnds.where('sessionId').anyOf(touched).toArray(),
+  ]);
+  const rows = touched.flatMap((id, i): PracticeSessionRow[] => {
+    const setup = sessions.get(id) ?? stored[i];
+    if (!setup) return []; // an end whose setup comes in a later pull
+    const own = allEnds.filter((e) => e.sessionId === id).sort((a, b) => a.index - b.index);
+    return [
+      { ...practiceSessionDto({ ownerId: userId, ...setup }), ownerId: userId, progress: progressParts(own) },
+    ];
+  });
+  await db.practiceSessions.bulkPut(rows);
+}
