@@ -59,6 +59,8 @@ export async function forgetOthers(db: LocalDb, keep: number | undefined): Promi
         db.endSignatures.clear(),
         db.cardSignatures.clear(),
         db.meta.where('key').startsWith('pullCursor:').delete(),
+        // The kept copy of tournament cards (features/practice/tournamentCards.ts) is one person's too.
+        db.meta.where('key').startsWith('tournamentCards:').delete(),
       ]);
     },
   );

@@ -1,3 +1,4 @@
+import { Dexie } from 'dexie';
 import type { PracticeEndDto, PracticeSessionDto } from '../contract/practice';
 import { isPracticeChange, type ChangeDto } from '../contract/sync';
 import { progressParts } from '../core/practice/progressParts';
@@ -51,15 +52,23 @@ export async function practiceSender(
   return { userId: owner, clientId: await clientIdFor(db, owner) };
 }
 
-/** Records the outbox rows of a practice write in its transaction, when the session is the sender's. */
+/**
+ * Records the outbox rows of a practice write in its transaction, when the session is the
+ * sender's; once that transaction commits, the sync loop sends them after a pause (as after a
+ * tap on the pad).
+ */
 export async function sendPractice(
   db: LocalDb,
   sender: { userId: number; clientId: string } | undefined,
   ownerId: number,
   changes: readonly NewChange[],
 ): Promise<void> {
-  if (sender && sender.userId === ownerId)
-    await recordChangesInTransaction(db, sender.clientId, ownerId, changes);
+  if (!sender || sender.userId !== ownerId) return;
+  await recordChangesInTransaction(db, sender.clientId, ownerId, changes);
+  // Imported when needed: the sync loop imports this module through the sync engine.
+  Dexie.currentTransaction?.on('complete', () => {
+    import('./syncLoop').then((m) => m.syncLoop().afterChange()).catch(() => undefined);
+  });
 }
 
 const sessionOfKey = (endKey: string) => endKey.split(':')[1] ?? '';
