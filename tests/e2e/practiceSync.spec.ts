@@ -73,6 +73,8 @@ test('practice plotted with no account reaches the archer’s second phone once 
   await second.getByRole('link', { name: 'Progress over weeks' }).click();
   const series = second.getByRole('region', { name: /18 m/ });
   await expect(series.getByTestId('progress-summary')).toContainText('over 12 arrows');
+  // Its chart is drawn (one week, one point: the session).
+  await expect(series.getByTestId('progress-chart')).toHaveAttribute('data-drawn', '1');
   await expect(
     second.getByTestId('progress-summary').filter({ hasText: 'tournament' }).first(),
   ).toBeVisible();
