@@ -90,7 +90,10 @@ describe('practice in the outbox', () => {
     const id = await startPracticeSession(free, db);
     await addPracticeArrow(id, { value: 'X' }, db);
     expect(await db.outbox.count()).toBe(0);
+    // The kept copy of someone's tournament cards is theirs alone: it goes when the phone changes hands.
+    await db.meta.put({ key: 'tournamentCards:99', value: [] });
     await forgetOthers(db, archer.id);
+    expect(await db.meta.get('tournamentCards:99')).toBeUndefined();
     const rows = await db.outbox.toArray();
     expect(rows.map((r) => [r.kind, r.userId])).toEqual([
       ['practice.session', archer.id],
