@@ -71,7 +71,44 @@ export async function sendPractice(
   });
 }
 
+/** The session a practice outbox row is about (its key is practice:<session>[:<end>]). */
 const sessionOfKey = (endKey: string) => endKey.split(':')[1] ?? '';
+
+/** People whose older practice this page has seen to (see sendOlderPractice). */
+const olderPracticeSent = new Set<string>();
+
+/**
+ * Practice a person kept on this phone before practice synced (an older version of the app
+ * recorded no outbox rows for it) is sent whole, once per phone and person (`meta` remembers it):
+ * every session of theirs that no outbox row is about.
+ */
+export async function sendOlderPractice(db: LocalDb, userId: number, clientId: string): Promise<void> {
+  const key = `practiceSent:${userId}`;
+  if (olderPracticeSent.has(`${db.name}:${key}`)) return;
+  await db.transaction('rw', [db.meta, db.practiceSessions, db.practiceEnds, db.outbox], async () => {
+    if (await db.meta.get(key)) return;
+    const [sessions, rows] = await Promise.all([
+      db.practiceSessions.where('ownerId').equals(userId).toArray(),
+      db.outbox.where('endKey').startsWith('practice:').toArray(),
+    ]);
+    const sent = new Set(rows.map((r) => sessionOfKey(r.endKey)));
+    const older = sessions.filter((s) => !sent.has(s.id));
+    const ends = await db.practiceEnds
+      .where('sessionId')
+      .anyOf(older.map((s) => s.id))
+      .toArray();
+    ends.sort((a, b) => a.index - b.index);
+    const changes = older.flatMap((s) =>
+      wholeSession(
+        s,
+        ends.filter((e) => e.sessionId === s.id),
+      ),
+    );
+    await recordChangesInTransaction(db, clientId, userId, changes);
+    await db.meta.put({ key, value: new Date().toISOString() });
+  });
+  olderPracticeSent.add(`${db.name}:${key}`);
+}
 
 /**
  * Stores the practice of a pull (inside the sync's transaction, over practiceSessions,

@@ -19,7 +19,7 @@ import {
   type SettlementRow,
 } from './db';
 import { clientIdFor, toMutation } from './outbox';
-import { applyPulledPractice } from './practiceSync';
+import { applyPulledPractice, sendOlderPractice } from './practiceSync';
 import type { DeviceKeyRequest } from '../contract/deviceKeys';
 import { ensureDeviceKeyRegistered, type KeyRegistration } from './deviceKey';
 
@@ -52,6 +52,7 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
   // phone hears of it from the push just after).
   if (transport.registerKey)
     await ensureDeviceKeyRegistered(db, clientId, transport.registerKey).catch(() => undefined);
+  await sendOlderPractice(db, userId, clientId);
   const outcomes = new Map<number, MutationResult>();
   let pushed = 0;
   const changes: ChangeDto[] = [];

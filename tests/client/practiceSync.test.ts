@@ -102,6 +102,40 @@ describe('practice in the outbox', () => {
   });
 });
 
+describe('practice kept before practice synced', () => {
+  it('is sent whole on the person’s first sync on this phone, once', async () => {
+    // A person of their own: what the other tests' phones pull is not mixed in.
+    const person = await makePerson(server.db, 'Older Archer');
+    const db = freshDb();
+    // As an older version stored it: the person's session, with no outbox rows.
+    const id = crypto.randomUUID();
+    await db.practiceSessions.add({
+      ...FREE_PRACTICE,
+      id,
+      ownerId: person.id,
+      startedAt: '2026-11-02T10:00:00.000Z',
+    });
+    await db.practiceEnds.add({
+      key: `${id}:0`,
+      sessionId: id,
+      index: 0,
+      distanceM: 18,
+      faceId: 'full-40',
+      arrows: [{ value: '10' }, { value: '9' }, { value: '9' }],
+      at: '2026-11-02T10:05:00.000Z',
+    });
+    await syncOnce(db, person.id, transportFor(person));
+    expect((await db.outbox.toArray()).map((r) => [r.kind, r.status])).toEqual([
+      ['practice.session', 'applied'],
+      ['practice.end', 'applied'],
+    ]);
+    const stored = await server.db('practice_ends').where({ session_id: id });
+    expect(stored).toHaveLength(1);
+    await syncOnce(db, person.id, transportFor(person));
+    expect(await db.outbox.count()).toBe(2);
+  });
+});
+
 describe('practice between a person’s phones', () => {
   it('shows a session recorded on one phone on the other after its pull, with its progress, and takes it away when deleted', async () => {
     await signIn(archer);
