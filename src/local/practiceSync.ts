@@ -177,3 +177,14 @@ export async function applyPulledPractice(
   });
   await db.practiceSessions.bulkPut(rows);
 }
+
+/** Why the account refused practice changes of this person (each reason once), for the practice log. */
+export async function refusedPractice(db: LocalDb, owner: number | undefined): Promise<string[]> {
+  if (owner === undefined || owner === NO_ACCOUNT) return [];
+  const rows = await db.outbox
+    .where('endKey')
+    .startsWith('practice:')
+    .filter((r) => r.userId === owner && r.status === 'rejected')
+    .toArray();
+  return [...new Set(rows.map((r) => r.reason ?? 'Your account did not take this change.'))];
+}

@@ -3,6 +3,8 @@ import request from 'supertest';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { LocalDb } from '../../src/local/db';
 import { forgetOthers } from '../../src/local/forgetOthers';
+import { recordChange } from '../../src/local/outbox';
+import { refusedPractice } from '../../src/local/practiceSync';
 import { claimPhone, ownerSettled, releasePhone } from '../../src/local/phoneOwner';
 import { syncOnce, type SyncTransport } from '../../src/local/syncEngine';
 import { waitingInWords } from '../../src/local/waitingInWords';
@@ -207,5 +209,28 @@ describe('practice between a person’s phones', () => {
     await syncOnce(db, archer.id, transport);
     expect((await practiceEnds(id, db))[0]!.arrows.map((a) => a.value)).toEqual(['10', '9']);
     expect(await db.outbox.where('status').equals('pending').count()).toBe(0);
+  });
+
+  it('tells the person which practice their account refused, with its reason', async () => {
+    const db = freshDb();
+    // An end of a session the server does not hold (deleted on another phone, say).
+    await recordChange(db, archer.id, {
+      kind: 'practice.end',
+      args: {
+        sessionId: crypto.randomUUID(),
+        index: 0,
+        distanceM: 18,
+        faceId: 'full-40',
+        arrows: [{ value: '9' }],
+        at: '2026-11-30T09:00:00.000Z',
+      },
+    });
+    expect(await refusedPractice(db, archer.id)).toEqual([]);
+    await syncOnce(db, archer.id, transportFor(archer));
+    const reasons = await refusedPractice(db, archer.id);
+    expect(reasons).toHaveLength(1);
+    expect(reasons[0]).toMatch(/not on your account/);
+    // No one else on the phone is told.
+    expect(await refusedPractice(db, undefined)).toEqual([]);
   });
 });

@@ -4,6 +4,8 @@ import { BOW_STYLES, ROUND_CATALOG, roundArrowCount } from '../../core';
 import { countedValues, practiceTally } from '../../core/practice';
 import type { BowStyle, FaceId, Venue } from '../../core';
 import { usePhoneOwner } from '../../local/phoneOwner';
+import { localDb } from '../../local/db';
+import { refusedPractice } from '../../local/practiceSync';
 import { saveFile } from '../../api/downloadFile';
 import { Button } from '../../ui/Button';
 import { Field } from '../../ui/Field';
@@ -217,6 +219,7 @@ function PastSessions() {
     `owner:${owner ?? 'none'}`,
   );
   useFreshTournamentCards(owner);
+  const refused = useStored(() => refusedPractice(localDb(), owner), `owner:${owner ?? 'none'}`);
   const history = [
     ...(sessions ?? []).map((s) => ({ ...s, at: s.session.startedAt, kind: 'practice' as const })),
     ...(cards ?? []).map((c) => ({ ...c, at: c.card.startedAt, kind: 'tournament' as const })),
@@ -250,6 +253,11 @@ function PastSessions() {
             Undo
           </Button>
         </div>
+      )}
+      {refused && refused.length > 0 && (
+        <Notice tone="error">
+          Some practice did not reach your account: {refused.join(' ')} It stays on this phone.
+        </Notice>
       )}
       {sessions && cards && history.length === 0 && (
         <p>No practice yet. Pick a round or free practice above: your first session will be listed here.</p>
