@@ -1,13 +1,14 @@
 import { Router } from 'express';
 import type { AppContext } from '../context';
-import type { MyCard, MyCards } from '../../src/contract/myCards';
+import type { MyCard, MyCards, TournamentCards } from '../../src/contract/myCards';
 import { loadMe, sendVerificationMail } from '../services/accounts';
 import { cardsToSign } from '../services/judging/cardsToSign';
+import { tournamentCards } from '../services/practice/tournamentCards';
 
 /**
  * The signed-in person: who they are and their roles, a new confirmation mail, their own
- * scorecards (one per session they are assigned to), and the cards they kept as a writer and
- * must sign as scorer.
+ * scorecards (one per session they are assigned to), the cards they kept as a writer and
+ * must sign as scorer, and their signed tournament ends for the practice log.
  */
 export function meRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -42,6 +43,11 @@ export function meRoutes(ctx: AppContext): Router {
     const cards: MyCard[] = rows;
     res.setHeader('Cache-Control', 'no-store');
     res.json({ cards, toSign: await cardsToSign(ctx.db, req.user!.id) } satisfies MyCards);
+  });
+
+  // Only ever the person's own cards: the practice log's history and progress (docs/practice.md).
+  router.get('/me/practice-cards', ctx.requireUser, async (req, res) => {
+    res.json({ cards: await tournamentCards(ctx.db, req.user!.id) } satisfies TournamentCards);
   });
   return router;
 }

@@ -13,6 +13,14 @@ import {
 } from './judging';
 import { shootOffRecordArgsSchema } from './results';
 import { matchEndArgsSchema, matchShootOffArgsSchema, matchSignArgsSchema } from './matches';
+import {
+  practiceDeleteSchema,
+  practiceEndSchema,
+  practiceSessionSchema,
+  type PracticeDeleteArgs,
+  type PracticeEndDto,
+  type PracticeSessionDto,
+} from './practice';
 
 /**
  * The field path between phone and server. Every change a phone makes is a mutation with a
@@ -73,6 +81,10 @@ export const mutationSchema = z.discriminatedUnion(
     z.object({ ...base, kind: z.literal('match.end'), args: matchEndArgsSchema }),
     z.object({ ...base, kind: z.literal('match.shootoff'), args: matchShootOffArgsSchema }),
     z.object({ ...base, kind: z.literal('match.sign'), args: matchSignArgsSchema }),
+    // The person's own practice log (docs/practice.md): a session's setup, one end, a deletion.
+    z.object({ ...base, kind: z.literal('practice.session'), args: practiceSessionSchema }),
+    z.object({ ...base, kind: z.literal('practice.end'), args: practiceEndSchema }),
+    z.object({ ...base, kind: z.literal('practice.delete'), args: practiceDeleteSchema }),
   ],
   { error: 'Unknown kind of change. This phone may need the newest version of Ringcall.' },
 );
@@ -80,9 +92,15 @@ export type Mutation = z.infer<typeof mutationSchema>;
 export type MutationKind = Mutation['kind'];
 /** A judge's change to an elimination match: applied through the match services, not the field batch. */
 export type MatchMutation = Extract<Mutation, { kind: 'match.end' | 'match.shootoff' | 'match.sign' }>;
+/** A change to the person's own practice log: applied by the practice services, for that person only. */
+export type PracticeMutation = Extract<
+  Mutation,
+  { kind: 'practice.session' | 'practice.end' | 'practice.delete' }
+>;
 /** A change about a qualification end, card or shoot-off: what the field batch applies. */
-export type FieldMutation = Exclude<Mutation, MatchMutation>;
+export type FieldMutation = Exclude<Mutation, MatchMutation | PracticeMutation>;
 export const isMatchMutation = (m: Mutation): m is MatchMutation => m.kind.startsWith('match.');
+export const isPracticeMutation = (m: Mutation): m is PracticeMutation => m.kind.startsWith('practice.');
 
 /** A change's JSON longer than this is refused on its own (the largest real change is ~1,500). */
 export const MUTATION_MAX_CHARS = 8_000;
@@ -221,7 +239,16 @@ export type ChangeDto =
   | { version: number; type: 'ruling'; record: RulingDto }
   | { version: number; type: 'signature'; record: EndSignatureDto }
   | { version: number; type: 'card-signature'; record: CardSignatureDto }
-  | { version: number; type: 'late-value'; record: LateDecisionDto };
+  | { version: number; type: 'late-value'; record: LateDecisionDto }
+  // The person's own practice (only ever pulled by that person): a session's setup, one end
+  // (no arrows: taken back), a deleted session.
+  | { version: number; type: 'practice'; record: PracticeSessionDto }
+  | { version: number; type: 'practice-end'; record: PracticeEndDto }
+  | { version: number; type: 'practice-del'; record: PracticeDeleteArgs };
+
+/** A change of the person's own practice log (see docs/practice.md). */
+export type PracticeChangeDto = Extract<ChangeDto, { type: 'practice' | 'practice-end' | 'practice-del' }>;
+export const isPracticeChange = (c: ChangeDto): c is PracticeChangeDto => c.type.startsWith('practice');
 
 export type PullResponse = { changes: ChangeDto[]; cursor: number; hasMore: boolean };
 

@@ -1,4 +1,5 @@
 import type { MatchEndArgs, MatchShootOffArgs, MatchSignArgs } from '../contract/matches';
+import type { PracticeDeleteArgs, PracticeEndDto, PracticeSessionDto } from '../contract/practice';
 import { Dexie, type EntityTable } from 'dexie';
 import type { BowStyle, FaceId, Venue } from '../core';
 import type { PracticeArrow } from '../core/practice';
@@ -54,7 +55,10 @@ export type OutboxRow = {
     | ShootOffRecordArgs
     | MatchEndArgs
     | MatchShootOffArgs
-    | MatchSignArgs;
+    | MatchSignArgs
+    | PracticeSessionDto
+    | PracticeEndDto
+    | PracticeDeleteArgs;
   at: string;
   /** The end this change is about (session:entry:end), for the pad's overlay; a card, a shoot-off arrow or a match has its own key. */
   endKey: string;

@@ -1,4 +1,6 @@
 import { NO_ACCOUNT, type LocalDb, type OutboxRow } from './db';
+import { clientIdFor } from './outbox';
+import { sendPractice, wholeSession } from './practiceSync';
 
 /** A change the server has not accepted yet: it belongs to its person until it reaches the server. */
 const isWaiting = (row: OutboxRow) => row.status !== 'applied';
@@ -10,10 +12,13 @@ const isWaiting = (row: OutboxRow) => row.status !== 'applied';
  *
  * Another person's changes that have not reached the server stay, and so does each target they
  * are about: they go to the server when that person signs in again. Every screen reads them
- * by person, so no one else sees them. Practice stays the same way (it lives only on the phone);
- * practice recorded with no one signed in becomes the practice of the person signing in.
+ * by person, so no one else sees them. Practice stays the same way (hidden, and sent to its
+ * person's account when they sign in); practice recorded with no one signed in becomes the
+ * practice of the person signing in, and is sent to their account.
  */
 export async function forgetOthers(db: LocalDb, keep: number | undefined): Promise<void> {
+  // Found before the transaction: finding a client id may write one.
+  const clientId = keep === undefined ? undefined : await clientIdFor(db, keep);
   await db.transaction(
     'rw',
     [
@@ -26,10 +31,10 @@ export async function forgetOthers(db: LocalDb, keep: number | undefined): Promi
       db.endSignatures,
       db.cardSignatures,
       db.practiceSessions,
+      db.practiceEnds,
     ],
     async () => {
-      if (keep !== undefined)
-        await db.practiceSessions.where('ownerId').equals(NO_ACCOUNT).modify({ ownerId: keep });
+      if (keep !== undefined && clientId) await adoptPractice(db, keep, clientId);
       const others = (await db.outbox.toArray()).filter((r) => r.userId !== keep);
       const waiting = others.filter(isWaiting);
       const targets = (await db.targets.toArray()).filter((t) => t.userId !== keep);
@@ -54,7 +59,33 @@ export async function forgetOthers(db: LocalDb, keep: number | undefined): Promi
         db.endSignatures.clear(),
         db.cardSignatures.clear(),
         db.meta.where('key').startsWith('pullCursor:').delete(),
+        // The kept copy of tournament cards (features/practice/tournamentCards.ts) is one person's too.
+        db.meta.where('key').startsWith('tournamentCards:').delete(),
       ]);
     },
+  );
+}
+
+/** Practice recorded with no one signed in becomes `userId`'s, and goes to their account whole. */
+async function adoptPractice(db: LocalDb, userId: number, clientId: string): Promise<void> {
+  const sessions = await db.practiceSessions.where('ownerId').equals(NO_ACCOUNT).toArray();
+  if (sessions.length === 0) return;
+  const ends = await db.practiceEnds
+    .where('sessionId')
+    .anyOf(sessions.map((s) => s.id))
+    .toArray();
+  const adopted = sessions.map((s) => ({ ...s, ownerId: userId }));
+  await db.practiceSessions.bulkPut(adopted);
+  const sorted = ends.sort((a, b) => a.index - b.index);
+  await sendPractice(
+    db,
+    { userId, clientId },
+    userId,
+    adopted.flatMap((s) =>
+      wholeSession(
+        s,
+        sorted.filter((e) => e.sessionId === s.id),
+      ),
+    ),
   );
 }

@@ -2,6 +2,7 @@ import type { EndSettleArgs, EndWriteArgs, Mutation } from '../contract/sync';
 import type { CardSignArgs, EndRuleArgs, EndSignArgs } from '../contract/judging';
 import type { ShootOffRecordArgs } from '../contract/results';
 import type { MatchEndArgs, MatchShootOffArgs, MatchSignArgs } from '../contract/matches';
+import type { PracticeDeleteArgs, PracticeEndDto, PracticeSessionDto } from '../contract/practice';
 import { Dexie } from 'dexie';
 import { cardKeyOf, endKeyOf, shootOffKeyOf, type LocalDb, type OutboxRow } from './db';
 import { writeAtOnce } from './writeAtOnce';
@@ -34,7 +35,7 @@ export function clientIdFor(db: LocalDb, userId: number): Promise<string> {
   return known;
 }
 
-type NewChange =
+export type NewChange =
   | { kind: 'end.write'; args: EndWriteArgs }
   | { kind: 'end.settle'; args: EndSettleArgs }
   | { kind: 'end.rule'; args: EndRuleArgs }
@@ -43,24 +44,37 @@ type NewChange =
   | { kind: 'shootoff.record'; args: ShootOffRecordArgs }
   | { kind: 'match.end'; args: MatchEndArgs }
   | { kind: 'match.shootoff'; args: MatchShootOffArgs }
-  | { kind: 'match.sign'; args: MatchSignArgs };
+  | { kind: 'match.sign'; args: MatchSignArgs }
+  | { kind: 'practice.session'; args: PracticeSessionDto }
+  | { kind: 'practice.end'; args: PracticeEndDto }
+  | { kind: 'practice.delete'; args: PracticeDeleteArgs };
 
 /** A match change's key: the match, then the end, the shoot-off or the signature. */
 export const matchKeyOf = (matchId: number, what: string) => `match:${matchId}:${what}`;
 
+/** A practice change's key: the session, then the end (so a session's changes share a prefix). */
+export const practiceKeyOf = (sessionId: string, index?: number) =>
+  index === undefined ? `practice:${sessionId}` : `practice:${sessionId}:${index}`;
+
 /** The end a change is about, the card for a card signature, the arrow for a shoot-off. */
 const subjectKey = (change: NewChange) =>
-  change.kind === 'match.end'
-    ? matchKeyOf(change.args.matchId, `end:${change.args.endIndex}`)
-    : change.kind === 'match.shootoff'
-      ? matchKeyOf(change.args.matchId, 'shoot-off')
-      : change.kind === 'match.sign'
-        ? matchKeyOf(change.args.matchId, 'sign')
-        : change.kind === 'card.sign'
-          ? `${cardKeyOf(change.args.sessionId, change.args.entryId)}:card`
-          : change.kind === 'shootoff.record'
-            ? shootOffKeyOf(change.args.sessionId, change.args.entryId, change.args.arrowIndex)
-            : endKeyOf(change.args.sessionId, change.args.entryId, change.args.endIndex);
+  change.kind === 'practice.session'
+    ? practiceKeyOf(change.args.id)
+    : change.kind === 'practice.end'
+      ? practiceKeyOf(change.args.sessionId, change.args.index)
+      : change.kind === 'practice.delete'
+        ? practiceKeyOf(change.args.sessionId)
+        : change.kind === 'match.end'
+          ? matchKeyOf(change.args.matchId, `end:${change.args.endIndex}`)
+          : change.kind === 'match.shootoff'
+            ? matchKeyOf(change.args.matchId, 'shoot-off')
+            : change.kind === 'match.sign'
+              ? matchKeyOf(change.args.matchId, 'sign')
+              : change.kind === 'card.sign'
+                ? `${cardKeyOf(change.args.sessionId, change.args.entryId)}:card`
+                : change.kind === 'shootoff.record'
+                  ? shootOffKeyOf(change.args.sessionId, change.args.entryId, change.args.arrowIndex)
+                  : endKeyOf(change.args.sessionId, change.args.entryId, change.args.endIndex);
 
 /** The next sequence number per client, as last committed from this page (see recordChange). */
 const knownNextSeq = new Map<string, number>();
@@ -103,6 +117,39 @@ export function recordChange(db: LocalDb, userId: number, change: NewChange): Pr
     if (inFlight.get(queueKey) === settled) inFlight.delete(queueKey);
   });
   return stored;
+}
+
+/**
+ * Records changes inside a Dexie transaction the caller opened over `outbox` and `meta` (with
+ * whatever else it writes), so the phone's own change and its outbox rows are one commit: the
+ * practice log's writes. Numbers come from what is stored; a tap's cached number that this took
+ * is refused by the row's key and read again (see storeChange).
+ */
+export async function recordChangesInTransaction(
+  db: LocalDb,
+  clientId: string,
+  userId: number,
+  changes: readonly NewChange[],
+): Promise<void> {
+  if (changes.length === 0) return;
+  const seqKey = `nextSeq:${clientId}`;
+  knownNextSeq.delete(`${db.name}:${seqKey}`);
+  const first = await storedNextSeq(db, clientId);
+  const at = new Date().toISOString();
+  await db.outbox.bulkAdd(
+    changes.map((change, i): OutboxRow => ({
+      clientId,
+      seq: first + i,
+      id: crypto.randomUUID(),
+      userId,
+      kind: change.kind,
+      args: change.args,
+      at,
+      endKey: subjectKey(change),
+      status: 'pending',
+    })),
+  );
+  await db.meta.put({ key: seqKey, value: first + changes.length });
 }
 
 async function storeChange(db: LocalDb, userId: number, change: NewChange): Promise<OutboxRow> {

@@ -1,4 +1,11 @@
-import type { ChangeDto, MutationResult, PullResponse, PushRequest, PushResponse } from '../contract/sync';
+import {
+  isPracticeChange,
+  type ChangeDto,
+  type MutationResult,
+  type PullResponse,
+  type PushRequest,
+  type PushResponse,
+} from '../contract/sync';
 import {
   cardKeyOf,
   endKeyOf,
@@ -12,6 +19,7 @@ import {
   type SettlementRow,
 } from './db';
 import { clientIdFor, toMutation } from './outbox';
+import { applyPulledPractice, sendOlderPractice } from './practiceSync';
 import type { DeviceKeyRequest } from '../contract/deviceKeys';
 import { ensureDeviceKeyRegistered, type KeyRegistration } from './deviceKey';
 
@@ -44,6 +52,7 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
   // phone hears of it from the push just after).
   if (transport.registerKey)
     await ensureDeviceKeyRegistered(db, clientId, transport.registerKey).catch(() => undefined);
+  await sendOlderPractice(db, userId, clientId);
   const outcomes = new Map<number, MutationResult>();
   let pushed = 0;
   const changes: ChangeDto[] = [];
@@ -84,7 +93,17 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
   // Bulk reads and writes: the pad's next tap waits for this transaction, so it must be short.
   await db.transaction(
     'rw',
-    [db.outbox, db.endRecords, db.settlements, db.rulings, db.endSignatures, db.cardSignatures, db.meta],
+    [
+      db.outbox,
+      db.endRecords,
+      db.settlements,
+      db.rulings,
+      db.endSignatures,
+      db.cardSignatures,
+      db.meta,
+      db.practiceSessions,
+      db.practiceEnds,
+    ],
     async () => {
       const seqs = [...outcomes.keys()];
       const rows = await db.outbox.bulkGet(seqs.map((seq): [string, number] => [clientId, seq]));
@@ -102,6 +121,7 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
       await db.outbox.bulkPut(answered);
       await applyLateDecisions(db, changes);
       await applyChanges(db, changes);
+      await applyPulledPractice(db, userId, changes);
       await db.meta.put({ key: cursorKey(userId), value: cursor });
     },
   );
@@ -191,7 +211,7 @@ async function applyChanges(db: LocalDb, changes: ChangeDto[]): Promise<void> {
   const settlements = new Map<string, SettlementRow>();
   const records = new Map<string, EndRecordRow>();
   for (const change of changes) {
-    if (change.type === 'late-value') continue; // see applyLateDecisions
+    if (change.type === 'late-value' || isPracticeChange(change)) continue; // see applyLateDecisions, applyPulledPractice
     if (change.type === 'card-signature') {
       const r = change.record;
       cards.set(r.id, { ...r, cardKey: cardKeyOf(r.sessionId, r.entryId) });

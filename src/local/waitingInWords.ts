@@ -2,11 +2,13 @@ import type { LocalDb, OutboxRow } from './db';
 
 /** What one waiting change is, in the words of the person who made it. */
 function describe(row: OutboxRow, nameOf: (sessionId: number, entryId: number) => string): string {
-  if (!('sessionId' in row.args)) {
+  if ('matchId' in row.args) {
     const match = `match ${row.args.matchId}`;
     if ('endIndex' in row.args) return `End ${row.args.endIndex + 1} of ${match}`;
     return row.kind === 'match.sign' ? `Your signature on ${match}` : `The shoot-off arrows of ${match}`;
   }
+  // Practice changes are about no archer of an event: one line for the whole log.
+  if (!('entryId' in row.args)) return 'Your practice log';
   const name = nameOf(row.args.sessionId, row.args.entryId);
   if (row.kind === 'card.sign') return `Your signature on ${name}'s card`;
   if ('arrowIndex' in row.args) return `Your shoot-off arrow ${row.args.arrowIndex + 1} of ${name}`;

@@ -15,6 +15,8 @@ export function summarizeWaiting(rows: readonly Pick<OutboxRow, 'kind' | 'endKey
   for (const row of rows) {
     if (row.kind === 'end.sign' || row.kind === 'card.sign' || row.kind === 'match.sign') signatures += 1;
     else if (row.kind === 'shootoff.record' || row.kind === 'match.shootoff') shootOffArrows.add(row.endKey);
+    // A practice session's setup or deletion is no end of its own (its ends count).
+    else if (row.kind === 'practice.session' || row.kind === 'practice.delete') continue;
     else ends.add(row.endKey);
   }
   return { changes: rows.length, ends: ends.size, signatures, shootOffArrows: shootOffArrows.size };

@@ -12,20 +12,12 @@ import {
   restorePracticeSession,
   startPracticeSession,
   undoPracticeArrow,
-  type NewPracticeSession,
 } from '../../src/features/practice/practiceStore';
 import { nextEndIndex } from '../../src/features/practice/plan';
 import { summarize } from '../../src/features/practice/summary';
+import { FREE_PRACTICE } from './support/practiceSetup';
 
-const free: NewPracticeSession = {
-  bowStyle: 'recurve',
-  venue: 'indoor',
-  distanceM: 18,
-  faceId: 'full-40',
-  arrowsPerEnd: 3,
-  plannedEnds: 2,
-  shaftDiameterMm: 5.5,
-};
+const free = FREE_PRACTICE;
 
 describe('practice on the phone', () => {
   it('fills planned ends in order, closes the session on the last arrow, and undo reopens it', async () => {

@@ -157,3 +157,28 @@ describe('progressChoices', () => {
     expect(progressChoices(log)).toEqual({ bowStyles: ['recurve', 'compound'], distances: [18, 60, 70] });
   });
 });
+
+describe('tournament cards in progress', () => {
+  it('counts a tournament card as a session of its week, marks the week, and names it when it is the best', () => {
+    const practice = session('p', '2026-11-30T10:00:00.000Z', 'recurve', [
+      70,
+      'full-122',
+      typed('9', '8', '7'),
+    ]);
+    const tournament = {
+      ...session('t', '2026-12-02T10:00:00.000Z', 'recurve', [70, 'full-122', typed('10', '9', '9')]),
+      tournament: 'Club Shoot, Saturday',
+    };
+    const [series] = practiceProgress([practice, tournament]);
+    // One week (Monday 30 Nov): 24 + 28 = 52 points over 6 arrows.
+    expect(series!.weeks).toEqual([
+      { weekStart: '2026-11-30', sessions: 2, arrows: 6, total: 52, averagePerArrow: 52 / 6, tournaments: 1 },
+    ]);
+    // The tournament's 28 / 3 ≈ 9.33 beats practice's 24 / 3 = 8.
+    expect(series!.best).toMatchObject({ sessionId: 't', tournament: 'Club Shoot, Saturday' });
+    // Practice alone: no mark on the week or the best session.
+    const [alone] = practiceProgress([practice]);
+    expect(alone!.weeks[0]).not.toHaveProperty('tournaments');
+    expect(alone!.best).not.toHaveProperty('tournament');
+  });
+});

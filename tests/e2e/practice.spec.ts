@@ -1,20 +1,8 @@
-import { readFileSync } from 'node:fs';
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
 import { checkA11y } from './support/a11y';
+import { exportedCsvLines } from './support/practiceCsv';
+import { pixelsOf } from './support/plotFace';
 import { openThenGoOffline } from './support/offline';
-
-/** Page pixels of a point given in mm on the plotting face (the SVG's own units). */
-async function pixelsOf(page: Page, xMm: number, yMm: number): Promise<{ x: number; y: number }> {
-  const face = page.getByTestId('plot-face');
-  await face.scrollIntoViewIfNeeded();
-  return face.evaluate(
-    (svg, [x, y]) => {
-      const p = new DOMPoint(x, y).matrixTransform((svg as SVGSVGElement).getScreenCTM()!);
-      return { x: p.x, y: p.y };
-    },
-    [xMm, yMm] as const,
-  );
-}
 
 /** Twelve points 15 mm around (30, -10) mm: their mean is (30, -10), 32 mm out at 2 o'clock. */
 const PLOTS = Array.from({ length: 12 }, (_, i) => {
@@ -100,11 +88,7 @@ test('with no account and no signal, a practice session plotted arrow by arrow i
   await page.screenshot({ path: '.tmp/screens/practice-log.png', fullPage: true });
 
   // The log leaves the phone as CSV, one row an arrow, with no signal.
-  const download = page.waitForEvent('download');
-  await page.getByRole('button', { name: 'Export the log as CSV' }).click();
-  const csv = readFileSync((await (await download).path())!, 'utf8')
-    .trimEnd()
-    .split('\r\n');
+  const csv = await exportedCsvLines(page);
   expect(csv).toHaveLength(1 + 12);
   expect(csv[1]).toContain('Club hall');
 

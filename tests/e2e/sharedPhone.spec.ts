@@ -1,9 +1,10 @@
 import { expect, test, type Browser, type Page } from '@playwright/test';
 import { devices } from '@playwright/test';
-import { DEMO_ORGANIZER, DEMO_PASSWORD, demoArchers } from '../../server/demo/demoPeople';
+import { DEMO_ORGANIZER, demoArchers } from '../../server/demo/demoPeople';
 import { checkA11y } from './support/a11y';
 import { readDemoDb } from './support/demoDb';
 import { phoneStorage } from './support/phoneStorage';
+import { signInHere } from './support/signIn';
 
 /*
  * One phone, handed from person to person on the field: nobody ever sees what the person before
@@ -12,14 +13,6 @@ import { phoneStorage } from './support/phoneStorage';
 
 const shot = (page: Page, name: string) =>
   page.screenshot({ path: `.tmp/screens/shared-phone-${name}.png`, fullPage: true });
-
-async function signIn(page: Page, email: string) {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByTestId('signed-in-name')).toBeVisible();
-}
 
 /** The banner archer's card (targets 1–3 are partway scored in the demo), and an archer far from it. */
 function demoFacts() {
@@ -46,7 +39,7 @@ function demoFacts() {
 async function organizerLooksAround(browser: Browser) {
   const { banner, card, code } = demoFacts();
   const page = await (await browser.newContext({ ...devices['Pixel 7'] })).newPage();
-  await signIn(page, DEMO_ORGANIZER.email);
+  await signInHere(page, DEMO_ORGANIZER.email);
   await checkA11y(page, 'organizer home');
   await shot(page, '1-organizer-home');
   await page.getByRole('link', { name: /Larchmere.*Set up/ }).click();
@@ -116,7 +109,7 @@ test('after the organizer signs out, the next person offline finds none of their
   await checkA11y(page, 'signed out');
   await shot(page, '2-signed-out');
 
-  await signIn(page, demoFacts().other.email);
+  await signInHere(page, demoFacts().other.email);
   await page.context().setOffline(true);
   await expectNothingOfTheOrganizer(page);
 });
@@ -131,7 +124,7 @@ test("when another person signs in after the organizer's sign-in ran out, the or
   await page.goto('/');
   await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible({ timeout: 15_000 });
 
-  await signIn(page, demoFacts().other.email);
+  await signInHere(page, demoFacts().other.email);
   await page.context().setOffline(true);
   await expectNothingOfTheOrganizer(page);
 });

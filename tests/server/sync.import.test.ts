@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ArrowValue } from '../../src/core';
@@ -182,6 +183,36 @@ describe('importing a phone’s waiting changes', () => {
     expect(await server.db('card_signatures')).toHaveLength(0);
     expect(await server.db('end_signatures')).toHaveLength(0);
     expect(await server.db('end_rulings')).toHaveLength(0);
+  });
+
+  it('a file with its person’s practice in it: signed, the practice is theirs; transcribed, it is refused with words', async () => {
+    const phone = j.phones.caller;
+    const key = await keyOf(phone);
+    const session = {
+      id: randomUUID(),
+      startedAt: '2026-11-30T09:00:00.000Z',
+      bowStyle: 'recurve' as const,
+      venue: 'indoor' as const,
+      distanceM: 18,
+      faceId: 'full-40' as const,
+      arrowsPerEnd: 3,
+      plannedEnds: null,
+      shaftDiameterMm: 5.5,
+    };
+    const signed = await importFile(
+      await key.sign(blockOf(phone, [phone.practice({ kind: 'practice.session', args: session })])),
+    );
+    expect(signed.clients[0]).toMatchObject({ fromThePhone: true, applied: 1 });
+    expect(await server.db('practice_sessions').where({ id: session.id }).first()).toMatchObject({
+      user_id: j.people.caller.id,
+    });
+
+    const other = { ...session, id: randomUUID() };
+    const transcribed = await importFile(
+      blockOf(phone, [phone.practice({ kind: 'practice.session', args: other })]),
+    );
+    expectRejected(transcribed.clients[0]!.results[0]!, /Practice counts only from its archer’s own phone/);
+    expect(await server.db('practice_sessions').where({ id: other.id })).toHaveLength(0);
   });
 
   it('a signed file changed after signing, or signed by another phone’s key, is not the phone’s', async () => {

@@ -1,5 +1,6 @@
 import {
   isMatchMutation,
+  isPracticeMutation,
   isUnreadable,
   type MutationResult,
   type PullQuery,
@@ -13,6 +14,7 @@ import { forbidden } from '../../http/httpError';
 import type { SigningKeys } from '../signing/serverKeys';
 import { nowIso } from '../../time';
 import { applyMatchChange } from '../matches/applyMatchChange';
+import { applyPracticeChange } from '../practice/applyPracticeChange';
 import { applyMutation } from './applyMutation';
 import { pullMany } from './pullChanges';
 import type { Author } from './effects';
@@ -75,7 +77,9 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
   const batch = await FieldBatch.load(
     trx,
     plans.flatMap((p) =>
-      p.steps.flatMap((s) => ('apply' in s && !isUnreadable(s.m) && !isMatchMutation(s.m) ? [s.m] : [])),
+      p.steps.flatMap((s) =>
+        'apply' in s && !isUnreadable(s.m) && !isMatchMutation(s.m) && !isPracticeMutation(s.m) ? [s.m] : [],
+      ),
     ),
     [...new Set(plans.map((p) => p.push.userId))],
   );
@@ -112,7 +116,9 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
         };
         reason = isMatchMutation(m)
           ? await applyMatchChange(trx, m, by)
-          : await applyMutation(batch, m, by, push.signingKeys);
+          : isPracticeMutation(m)
+            ? await applyPracticeChange(trx, m, by)
+            : await applyMutation(batch, m, by, push.signingKeys);
         status = reason === null ? 'applied' : 'rejected';
       } catch (error) {
         if (!(error instanceof LateArrival)) throw error;

@@ -1,5 +1,5 @@
 import type { WaitingChangesFile, WaitingChangesImport } from '../../../src/contract/waitingChanges';
-import { isMatchMutation, understood } from '../../../src/contract/sync';
+import { isMatchMutation, isPracticeMutation, understood } from '../../../src/contract/sync';
 import type { Db } from '../../db';
 import { badRequest } from '../../http/httpError';
 import { audit } from '../audit';
@@ -28,6 +28,8 @@ export async function importWaitingChanges(
   );
   const foreign = file.clients
     .flatMap((c) => understood(c.mutations))
+    // Practice belongs to no event: its person's own signed file may carry it (a transcription refuses it).
+    .filter((m) => !isPracticeMutation(m))
     .find((m) => (isMatchMutation(m) ? m.args.eventId !== eventId : !sessionIds.has(m.args.sessionId)));
   if (foreign)
     throw badRequest('This file holds changes of another event. Import it at that event’s judge desk.');

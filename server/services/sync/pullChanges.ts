@@ -9,7 +9,7 @@ export type PullAsk = PullQuery & { userId: number };
 
 /**
  * The changes after `cursor` this person may see, oldest first: those of the target groups they
- * are in, and every change of the events they judge or organize (see `pullMany`).
+ * are in, every change of the events they judge or organize, and their own practice (see `pullMany`).
  */
 export async function pullChanges(db: Db, userId: number, query: PullQuery): Promise<PullResponse> {
   return (await pullMany(db, [{ userId, ...query }]))[0]!;
@@ -43,7 +43,9 @@ export async function pullMany(db: Db, asks: readonly PullAsk[]): Promise<PullRe
       rows =
         'eventId' in part
           ? eventPage(db, [part.eventId, cursor, top, limit + 1])
-          : targetPage(db, [part.sessionId, part.targetNumber, cursor, top, limit + 1]);
+          : 'userId' in part
+            ? userPage(db, [part.userId, cursor, top, limit + 1])
+            : targetPage(db, [part.sessionId, part.targetNumber, cursor, top, limit + 1]);
       pages.set(key, rows);
     }
     return rows;
@@ -69,7 +71,11 @@ export async function pullMany(db: Db, asks: readonly PullAsk[]): Promise<PullRe
 }
 
 /** A part of the log one index reads: an event's changes, or a target group's. */
-type Part = { key: string } & ({ eventId: number } | { sessionId: number; targetNumber: number });
+type Part = { key: string } & (
+  | { eventId: number }
+  | { userId: number }
+  | { sessionId: number; targetNumber: number }
+);
 
 /** One page of a part after a cursor, up to `top`, at most `limit` rows, by the part's index. */
 const pageOf = (db: Db, narrow: Record<string, number>, [cursor, top, limit]: number[]) =>
@@ -82,6 +88,9 @@ const pageOf = (db: Db, narrow: Record<string, number>, [cursor, top, limit]: nu
     .select('version', 'type', 'record_json');
 const eventPage = compiledQuery<ChangeRow>(4, (db, [eventId, ...rest]) =>
   pageOf(db, { event_id: eventId! }, rest),
+);
+const userPage = compiledQuery<ChangeRow>(4, (db, [userId, ...rest]) =>
+  pageOf(db, { user_id: userId! }, rest),
 );
 const targetPage = compiledQuery<ChangeRow>(5, (db, [sessionId, targetNumber, ...rest]) =>
   pageOf(db, { session_id: sessionId!, target_number: targetNumber! }, rest),
@@ -113,5 +122,7 @@ async function visibleParts(db: Db, userIds: number[]): Promise<Map<number, Part
       sessionId: t.session_id,
       targetNumber: t.target_number,
     });
+  // The person's own practice (migration 0014): only ever in their own pull.
+  for (const userId of userIds) add(userId, { key: `u${userId}`, userId });
   return parts;
 }

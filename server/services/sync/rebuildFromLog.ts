@@ -66,10 +66,11 @@ export async function replayLog(db: Db): Promise<FieldState> {
     } else if (m.kind === 'end.rule') {
       rulings.push(rulingRow(JSON.parse(m.args_json) as EndRuleArgs, by));
     } else if (
-      // Signatures, shoot-off arrows and match cards are records of their own, not replayed.
+      // Signatures, shoot-off arrows, match cards and practice are records of their own, not replayed.
       !['end.sign', 'card.sign', 'shootoff.record', 'match.end', 'match.shootoff', 'match.sign'].includes(
         m.kind,
-      )
+      ) &&
+      !m.kind.startsWith('practice.')
     ) {
       throw new Error(`The mutation log holds an applied change of unknown kind "${m.kind}".`);
     }

@@ -11,6 +11,8 @@ export interface ProgressSession {
   startedAt: string;
   bowStyle: BowStyle;
   parts: readonly ProgressPart[];
+  /** A tournament card rather than practice: its event and session, in words. */
+  tournament?: string;
 }
 
 /** Absent: every bow style / every distance. */
@@ -27,6 +29,8 @@ export interface ProgressWeek {
   arrows: number;
   total: number;
   averagePerArrow: number;
+  /** Tournament cards among the week's sessions (absent when none). */
+  tournaments?: number;
 }
 
 /** The session with the highest average per arrow at this distance and face. */
@@ -36,6 +40,8 @@ export interface ProgressBest {
   weekStart: string;
   arrows: number;
   averagePerArrow: number;
+  /** When the best session is a tournament card: its event and session. */
+  tournament?: string;
 }
 
 /** Progress at one distance and face, weeks oldest first (weeks with no practice left out). */
@@ -70,7 +76,7 @@ export function progressChoices(sessions: readonly ProgressSession[]): {
   return { bowStyles: [...bowStyles], distances: [...distances].sort((a, b) => a - b) };
 }
 
-type Running = { sessions: Set<string>; arrows: number; total: number };
+type Running = { sessions: Set<string>; tournaments: Set<string>; arrows: number; total: number };
 type SessionPart = { session: ProgressSession; arrows: number; total: number };
 
 /**
@@ -103,10 +109,11 @@ export function practiceProgress(
       const arrows = shot.arrows;
       let running = group.weeks.get(week);
       if (!running) {
-        running = { sessions: new Set(), arrows: 0, total: 0 };
+        running = { sessions: new Set(), tournaments: new Set(), arrows: 0, total: 0 };
         group.weeks.set(week, running);
       }
       running.sessions.add(session.id);
+      if (session.tournament !== undefined) running.tournaments.add(session.id);
       running.arrows += arrows;
       running.total += total;
       let part = group.parts.get(session.id);
@@ -128,6 +135,7 @@ export function practiceProgress(
         arrows: r.arrows,
         total: r.total,
         averagePerArrow: r.total / r.arrows,
+        ...(r.tournaments.size > 0 ? { tournaments: r.tournaments.size } : {}),
       }));
     let best: SessionPart | undefined;
     for (const part of group.parts.values()) {
@@ -144,6 +152,7 @@ export function practiceProgress(
         weekStart: weekStartOf(best.session.startedAt),
         arrows: best.arrows,
         averagePerArrow: best.total / best.arrows,
+        ...(best.session.tournament !== undefined ? { tournament: best.session.tournament } : {}),
       },
     });
   }

@@ -68,7 +68,7 @@ export function shootOffGroups(results: EventResults, changes: OutboxRow[]): Sho
               r,
               changes.filter(
                 (c) =>
-                  'sessionId' in c.args &&
+                  'entryId' in c.args &&
                   c.args.sessionId === session.sessionId &&
                   c.args.entryId === r.entryId,
               ),

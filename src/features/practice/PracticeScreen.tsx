@@ -4,6 +4,8 @@ import { BOW_STYLES, ROUND_CATALOG, roundArrowCount } from '../../core';
 import { countedValues, practiceTally } from '../../core/practice';
 import type { BowStyle, FaceId, Venue } from '../../core';
 import { usePhoneOwner } from '../../local/phoneOwner';
+import { localDb } from '../../local/db';
+import { refusedPractice } from '../../local/practiceSync';
 import { saveFile } from '../../api/downloadFile';
 import { Button } from '../../ui/Button';
 import { Field } from '../../ui/Field';
@@ -22,6 +24,7 @@ import {
   type DeletedPractice,
   type NewPracticeSession,
 } from './practiceStore';
+import { storedTournamentCards, tournamentTitle, useFreshTournamentCards } from './tournamentCards';
 
 const BOW_KEY = 'ringcall.practiceBowStyle';
 /** A typical target shaft (mm); the plotting rule judges a line touch at the shaft's edge. */
@@ -43,7 +46,10 @@ export function PracticeScreen() {
     <div className="space-y-6">
       <header className="space-y-2">
         <h1 className="text-3xl font-bold leading-tight">Practice log</h1>
-        <p>Score alone at the club or at home. Kept on this phone; no account or signal needed.</p>
+        <p>
+          Score alone at the club or at home. No account or signal needed; signed in, your log also goes to
+          your account, with your tournament cards beside it.
+        </p>
       </header>
       <StartPractice />
       <PastSessions />
@@ -203,6 +209,21 @@ function PastSessions() {
     },
     `owner:${owner ?? 'none'}`,
   );
+  // The person's own tournament cards, in the same history: read-only, kept for offline.
+  const cards = useStored(
+    async () =>
+      (await storedTournamentCards(owner)).map((card) => ({
+        card,
+        tally: practiceTally(card.ends.flatMap((e) => e.values)),
+      })),
+    `owner:${owner ?? 'none'}`,
+  );
+  useFreshTournamentCards(owner);
+  const refused = useStored(() => refusedPractice(localDb(), owner), `owner:${owner ?? 'none'}`);
+  const history = [
+    ...(sessions ?? []).map((s) => ({ ...s, at: s.session.startedAt, kind: 'practice' as const })),
+    ...(cards ?? []).map((c) => ({ ...c, at: c.card.startedAt, kind: 'tournament' as const })),
+  ].sort((a, b) => b.at.localeCompare(a.at));
   const remove = (id: string) => void deletePracticeSession(id).then((gone) => setDeleted(gone));
   const exportCsv = async () => {
     const own = await ownPractice(owner);
@@ -220,7 +241,7 @@ function PastSessions() {
   return (
     <section aria-labelledby="past-practice" className="space-y-3">
       <h2 id="past-practice" className="text-2xl font-bold">
-        On this phone
+        Your log
       </h2>
       {deleted && (
         <div
@@ -233,39 +254,60 @@ function PastSessions() {
           </Button>
         </div>
       )}
-      {sessions && sessions.length === 0 && (
+      {refused && refused.length > 0 && (
+        <Notice tone="error">
+          Some practice did not reach your account: {refused.join(' ')} It stays on this phone.
+        </Notice>
+      )}
+      {sessions && cards && history.length === 0 && (
         <p>No practice yet. Pick a round or free practice above: your first session will be listed here.</p>
       )}
       <ul className="space-y-2" data-testid="practice-sessions">
-        {sessions?.map(({ session, tally }) => (
-          <li
-            key={session.id}
-            className="surface flex items-center gap-3 rounded-xl border border-line bg-card p-3"
-          >
-            <Link
-              to={`/practice/${session.id}`}
-              className="flex min-h-11 min-w-0 flex-1 flex-col justify-center"
+        {history.map((item) =>
+          item.kind === 'tournament' ? (
+            <li
+              key={`${item.card.sessionId}:${item.card.entryId}`}
+              className="surface flex min-h-11 flex-col justify-center rounded-xl border border-line bg-card p-3"
             >
-              <span className="font-bold underline">{sessionTitle(session)}</span>
+              <span className="font-bold">{tournamentTitle(item.card)}</span>
               <span>
-                {new Date(session.startedAt).toLocaleDateString()} · {BOW_STYLE_LABELS[session.bowStyle]} ·{' '}
-                {tally.total} from {tally.arrows} arrows
-                {tally.arrows > 0 && ` · ${tally.averagePerArrow.toFixed(2)} an arrow`}
-                {!session.finishedAt && ' · not finished'}
+                {new Date(item.card.startedAt).toLocaleDateString()} · Tournament ·{' '}
+                {BOW_STYLE_LABELS[item.card.bowStyle]} · {item.tally.total} from {item.tally.arrows} arrows
+                {item.tally.arrows > 0 && ` · ${item.tally.averagePerArrow.toFixed(2)} an arrow`}
+                {!item.card.final && ' · card not signed yet'}
               </span>
-            </Link>
-            <Button
-              variant="danger"
-              className="px-3"
-              onClick={() => remove(session.id)}
-              aria-label={`Delete ${sessionTitle(session)}`}
+            </li>
+          ) : (
+            <li
+              key={item.session.id}
+              className="surface flex items-center gap-3 rounded-xl border border-line bg-card p-3"
             >
-              Delete
-            </Button>
-          </li>
-        ))}
+              <Link
+                to={`/practice/${item.session.id}`}
+                className="flex min-h-11 min-w-0 flex-1 flex-col justify-center"
+              >
+                <span className="font-bold underline">{sessionTitle(item.session)}</span>
+                <span>
+                  {new Date(item.session.startedAt).toLocaleDateString()} ·{' '}
+                  {BOW_STYLE_LABELS[item.session.bowStyle]} · {item.tally.total} from {item.tally.arrows}{' '}
+                  arrows
+                  {item.tally.arrows > 0 && ` · ${item.tally.averagePerArrow.toFixed(2)} an arrow`}
+                  {!item.session.finishedAt && ' · not finished'}
+                </span>
+              </Link>
+              <Button
+                variant="danger"
+                className="px-3"
+                onClick={() => remove(item.session.id)}
+                aria-label={`Delete ${sessionTitle(item.session)}`}
+              >
+                Delete
+              </Button>
+            </li>
+          ),
+        )}
       </ul>
-      {sessions && sessions.length > 0 && (
+      {history.length > 0 && (
         <Link
           to="/practice/progress"
           className="flex min-h-14 w-full items-center justify-center rounded-lg border-2 border-ink bg-card px-5 text-lg font-bold text-ink"

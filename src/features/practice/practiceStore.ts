@@ -1,18 +1,43 @@
-import { NO_ACCOUNT, localDb, type PracticeEndRow, type PracticeSessionRow } from '../../local/db';
+import {
+  NO_ACCOUNT,
+  localDb,
+  type LocalDb,
+  type PracticeEndRow,
+  type PracticeSessionRow,
+} from '../../local/db';
 import { phoneOwner } from '../../local/phoneOwner';
 import type { PracticeArrow } from '../../core/practice';
 import type { ProgressSession } from '../../core/practice/progress';
 import { progressParts } from '../../core/practice/progressParts';
 import { endSetup, nextEndIndex } from './plan';
+import {
+  practiceEndDto,
+  practiceSender,
+  practiceSessionDto,
+  sendPractice,
+  wholeSession,
+} from '../../local/practiceSync';
 
 export type NewPracticeSession = Omit<PracticeSessionRow, 'id' | 'ownerId' | 'startedAt' | 'finishedAt'>;
 
 const endKey = (sessionId: string, index: number) => `${sessionId}:${index}`;
 
+/*
+ * Each write below also records, in its own transaction, the outbox rows that send it to the
+ * account of the person using the phone (src/local/practiceSync.ts); with no one signed in it
+ * stays on the phone until someone signs in and adopts it (forgetOthers).
+ */
+const practiceTables = (db: LocalDb) => [db.practiceSessions, db.practiceEnds, db.outbox, db.meta];
+
 export async function startPracticeSession(session: NewPracticeSession, db = localDb()): Promise<string> {
   const id = crypto.randomUUID();
   const ownerId = phoneOwner() ?? NO_ACCOUNT;
-  await db.practiceSessions.add({ ...session, id, ownerId, startedAt: new Date().toISOString() });
+  const sender = await practiceSender(db, ownerId);
+  const row: PracticeSessionRow = { ...session, id, ownerId, startedAt: new Date().toISOString() };
+  await db.transaction('rw', practiceTables(db), async () => {
+    await db.practiceSessions.add(row);
+    await sendPractice(db, sender, ownerId, [{ kind: 'practice.session', args: practiceSessionDto(row) }]);
+  });
   return id;
 }
 
@@ -65,8 +90,13 @@ export async function practiceEnds(sessionId: string, db = localDb()): Promise<P
  * Stores one arrow in the session's current end (a new end when the last is full) and closes the
  * session when its last planned end fills. Refused (false) when the session is already full.
  */
-export function addPracticeArrow(sessionId: string, arrow: PracticeArrow, db = localDb()): Promise<boolean> {
-  return db.transaction('rw', db.practiceSessions, db.practiceEnds, async () => {
+export async function addPracticeArrow(
+  sessionId: string,
+  arrow: PracticeArrow,
+  db = localDb(),
+): Promise<boolean> {
+  const sender = await practiceSender(db, phoneOwner());
+  return db.transaction('rw', practiceTables(db), async () => {
     // Both reads at once: each round trip inside the transaction delays its commit.
     const [session, ends] = await Promise.all([
       db.practiceSessions.get(sessionId),
@@ -92,20 +122,31 @@ export function addPracticeArrow(sessionId: string, arrow: PracticeArrow, db = l
     await db.practiceEnds.put(end);
     const now = [...ends.filter((e) => e.index !== index), end].sort((a, b) => a.index - b.index);
     // The session's progress parts change with every arrow; finished when its last end fills.
+    const finished = nextEndIndex(session, now) === undefined;
     await db.practiceSessions.update(sessionId, {
       progress: progressParts(now),
-      ...(nextEndIndex(session, now) === undefined ? { finishedAt: at } : {}),
+      ...(finished ? { finishedAt: at } : {}),
     });
+    await sendPractice(db, sender, session.ownerId, [
+      { kind: 'practice.end', args: practiceEndDto(end) },
+      ...(finished
+        ? [{ kind: 'practice.session' as const, args: practiceSessionDto({ ...session, finishedAt: at }) }]
+        : []),
+    ]);
     return true;
   });
 }
 
 /** Takes back the last arrow of the session (and reopens it if it was finished). */
-export function undoPracticeArrow(sessionId: string, db = localDb()): Promise<void> {
-  return db.transaction('rw', db.practiceSessions, db.practiceEnds, async () => {
-    const ends = await practiceEnds(sessionId, db);
+export async function undoPracticeArrow(sessionId: string, db = localDb()): Promise<void> {
+  const sender = await practiceSender(db, phoneOwner());
+  return db.transaction('rw', practiceTables(db), async () => {
+    const [session, ends] = await Promise.all([
+      db.practiceSessions.get(sessionId),
+      practiceEnds(sessionId, db),
+    ]);
     const last = ends[ends.length - 1];
-    if (!last) return;
+    if (!session || !last) return;
     const shorter = { ...last, arrows: last.arrows.slice(0, -1) };
     if (shorter.arrows.length === 0) await db.practiceEnds.delete(last.key);
     else await db.practiceEnds.put(shorter);
@@ -113,33 +154,62 @@ export function undoPracticeArrow(sessionId: string, db = localDb()): Promise<vo
       finishedAt: undefined,
       progress: progressParts([...ends.slice(0, -1), shorter]),
     });
+    // An end with no arrows left tells the server to drop it.
+    await sendPractice(db, sender, session.ownerId, [
+      { kind: 'practice.end', args: practiceEndDto(shorter) },
+      ...(session.finishedAt
+        ? [
+            {
+              kind: 'practice.session' as const,
+              args: practiceSessionDto({ ...session, finishedAt: undefined }),
+            },
+          ]
+        : []),
+    ]);
   });
 }
 
 export async function finishPracticeSession(sessionId: string, db = localDb()): Promise<void> {
-  await db.practiceSessions.update(sessionId, { finishedAt: new Date().toISOString() });
+  const sender = await practiceSender(db, phoneOwner());
+  await db.transaction('rw', practiceTables(db), async () => {
+    const session = await db.practiceSessions.get(sessionId);
+    if (!session) return;
+    const finished = { ...session, finishedAt: new Date().toISOString() };
+    await db.practiceSessions.put(finished);
+    await sendPractice(db, sender, session.ownerId, [
+      { kind: 'practice.session', args: practiceSessionDto(finished) },
+    ]);
+  });
 }
 
 /** What a deletion removed, to put back on Undo. */
 export type DeletedPractice = { session: PracticeSessionRow; ends: PracticeEndRow[] };
 
-export function deletePracticeSession(
+export async function deletePracticeSession(
   sessionId: string,
   db = localDb(),
 ): Promise<DeletedPractice | undefined> {
-  return db.transaction('rw', db.practiceSessions, db.practiceEnds, async () => {
+  const sender = await practiceSender(db, phoneOwner());
+  return db.transaction('rw', practiceTables(db), async () => {
     const session = await db.practiceSessions.get(sessionId);
     if (!session) return undefined;
     const ends = await practiceEnds(sessionId, db);
     await db.practiceEnds.bulkDelete(ends.map((e) => e.key));
     await db.practiceSessions.delete(sessionId);
+    await sendPractice(db, sender, session.ownerId, [{ kind: 'practice.delete', args: { sessionId } }]);
     return { session, ends };
   });
 }
 
-export function restorePracticeSession({ session, ends }: DeletedPractice, db = localDb()): Promise<void> {
-  return db.transaction('rw', db.practiceSessions, db.practiceEnds, async () => {
+/** Undo of a deletion: the same rows back, and sent whole again (the server has let them go). */
+export async function restorePracticeSession(
+  { session, ends }: DeletedPractice,
+  db = localDb(),
+): Promise<void> {
+  const sender = await practiceSender(db, phoneOwner());
+  return db.transaction('rw', practiceTables(db), async () => {
     await db.practiceSessions.put(session);
     await db.practiceEnds.bulkPut(ends);
+    await sendPractice(db, sender, session.ownerId, wholeSession(session, ends));
   });
 }

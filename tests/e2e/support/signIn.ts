@@ -13,3 +13,12 @@ export async function signedInPhone(browser: Browser, email: string): Promise<Pa
   await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
   return page;
 }
+
+/** Signs a demo person in on this page (another person may have been signed in before). */
+export async function signInHere(page: Page, email: string): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByTestId('signed-in-name')).toBeVisible();
+}

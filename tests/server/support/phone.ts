@@ -91,6 +91,11 @@ export class Phone {
     return this.next({ kind: 'match.sign', args });
   }
 
+  /** A change to this person's own practice log (`practice.session`, `practice.end`, `practice.delete`). */
+  practice(change: Pick<Extract<Mutation, { kind: `practice.${string}` }>, 'kind' | 'args'>): Mutation {
+    return this.next(change);
+  }
+
   private next(change: Pick<Mutation, 'kind' | 'args'>): Mutation {
     this.seq += 1;
     return { id: randomUUID(), seq: this.seq, at: new Date().toISOString(), ...change } as Mutation;

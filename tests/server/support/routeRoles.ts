@@ -568,6 +568,14 @@ export const ROUTES: RouteRule[] = [
   },
   { method: 'get', route: '/api/me', path: () => '/api/me', allowed: SIGNED_IN, ok: 200 },
   { method: 'get', route: '/api/me/cards', path: () => '/api/me/cards', allowed: SIGNED_IN, ok: 200 },
+  // Each person's own cards only (tests/server/practice.cards.test.ts shows no one gets another's).
+  {
+    method: 'get',
+    route: '/api/me/practice-cards',
+    path: () => '/api/me/practice-cards',
+    allowed: SIGNED_IN,
+    ok: 200,
+  },
   {
     method: 'post',
     route: '/api/me/send-verification',

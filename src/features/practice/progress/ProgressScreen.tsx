@@ -5,6 +5,7 @@ import { practiceProgress, progressChoices, type ProgressSeries } from '../../..
 import { usePhoneOwner } from '../../../local/phoneOwner';
 import { BOW_STYLE_LABELS } from '../plan';
 import { ownProgress } from '../practiceStore';
+import { storedTournamentCards, tournamentProgress, useFreshTournamentCards } from '../tournamentCards';
 import { useStored } from '../useStored';
 import { dayLabel, perArrow, weekLabel } from './progressData';
 
@@ -14,7 +15,12 @@ const ProgressChart = lazy(async () => ({ default: (await import('./ProgressChar
 /** Progress over weeks: the average per arrow by week, per distance and face, from this phone's log. */
 export function ProgressScreen() {
   const owner = usePhoneOwner();
-  const sessions = useStored(() => ownProgress(owner), `owner:${owner ?? 'none'}`);
+  // Practice and the person's own tournament cards (marked as such), all read from the phone.
+  const sessions = useStored(
+    async () => [...(await ownProgress(owner)), ...tournamentProgress(await storedTournamentCards(owner))],
+    `owner:${owner ?? 'none'}`,
+  );
+  useFreshTournamentCards(owner);
   const [bowStyle, setBowStyle] = useState<BowStyle>();
   const [distanceM, setDistanceM] = useState<number>();
 
@@ -30,7 +36,8 @@ export function ProgressScreen() {
       <header className="space-y-2">
         <h1 className="text-3xl font-bold leading-tight">Progress</h1>
         <p>
-          Your average per arrow, week by week, at each distance and face. From this phone’s practice log.
+          Your average per arrow, week by week, at each distance and face: your practice log and your
+          tournament cards.
         </p>
         <Link to="/practice" className="inline-flex min-h-11 items-center font-bold underline">
           Back to the practice log
@@ -126,7 +133,7 @@ function SeriesView({ series }: { series: ProgressSeries }) {
         {latest &&
           `Week of ${weekLabel(latest.weekStart)}: ${perArrow(latest.averagePerArrow)} an arrow over ${latest.arrows} arrows. `}
         Best session: {perArrow(best.averagePerArrow)} an arrow on {dayLabel(best.startedAt)} ({best.arrows}{' '}
-        arrows), ringed on the chart.
+        arrows{best.tournament && `, tournament: ${best.tournament}`}), ringed on the chart.
       </p>
       <Suspense fallback={<div style={{ height: 220 }} />}>
         <ProgressChart series={series} />
@@ -157,6 +164,7 @@ function SeriesView({ series }: { series: ProgressSeries }) {
                   <th scope="row" className="py-1 font-normal">
                     {weekLabel(w.weekStart)}
                     {w.weekStart === best.weekStart && <span className="font-bold"> · best session</span>}
+                    {w.tournaments && ' · tournament'}
                   </th>
                   <td className="py-1 text-right">{w.arrows}</td>
                   <td className="py-1 text-right font-bold">{perArrow(w.averagePerArrow)}</td>

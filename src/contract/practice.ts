@@ -1,0 +1,80 @@
+import { z } from 'zod';
+import { BOW_STYLES, FACE_IDS, VENUES, type BowStyle, type FaceId, type Venue } from '../core/faces';
+import { ROUND_CATALOG } from '../core/rounds';
+import { arrowValueSchema } from './arrowValueSchema';
+
+/**
+ * The practice log synced to the person's account (docs/practice.md): a session's setup and each
+ * end are changes of their own, each replacing the one before, so sending one again (a retry, a
+ * reload) changes nothing and an arrow is in effect once. Sizes are bounded here, on both sides.
+ */
+
+/** An end holds at most this many arrows (the catalog's largest end has 6). */
+export const PRACTICE_MAX_ARROWS_PER_END = 12;
+/** A session holds at most this many ends (the catalog's longest round has 36; open-ended sessions stop here). */
+export const PRACTICE_MAX_ENDS = 200;
+export const PRACTICE_NOTE_MAX = 200;
+
+const sessionId = z.uuid('A practice session is named by its id (a UUID).');
+const isoTime = z.iso.datetime({ error: 'Times are ISO 8601 in UTC, like 2026-05-01T09:30:00.000Z.' });
+const faceId = z.enum(FACE_IDS as [FaceId, ...FaceId[]], { error: 'Choose a face this app knows.' });
+const roundIds = new Set(ROUND_CATALOG.map((r) => r.id));
+
+/** A session's setup: what the phone's practiceSessions row holds, without owner and progress. */
+export const practiceSessionSchema = z.object({
+  id: sessionId,
+  startedAt: isoTime,
+  roundId: z
+    .string()
+    .max(60)
+    .refine(
+      (id) => roundIds.has(id),
+      'This round is not in the catalog. This phone may need the newest version.',
+    )
+    .optional(),
+  bowStyle: z.enum(BOW_STYLES as [BowStyle, ...BowStyle[]], {
+    error: 'Bow style must be recurve, compound or barebow.',
+  }),
+  venue: z.enum(VENUES as [Venue, ...Venue[]], { error: 'Venue must be outdoor or indoor.' }),
+  distanceM: z.number().min(1, 'A distance is 1 to 150 m.').max(150, 'A distance is 1 to 150 m.'),
+  faceId,
+  arrowsPerEnd: z.number().int().min(1).max(PRACTICE_MAX_ARROWS_PER_END),
+  plannedEnds: z.number().int().min(1).max(PRACTICE_MAX_ENDS).nullable(),
+  shaftDiameterMm: z
+    .number()
+    .min(1, 'A shaft is 1 to 15 mm across.')
+    .max(15, 'A shaft is 1 to 15 mm across.'),
+  note: z.string().max(PRACTICE_NOTE_MAX, `A note has at most ${PRACTICE_NOTE_MAX} characters.`).optional(),
+  finishedAt: isoTime.optional(),
+});
+export type PracticeSessionDto = z.infer<typeof practiceSessionSchema>;
+
+/** Where a plotted arrow hit, in mm from the centre of the sheet: well within any sheet. */
+const mm = z.number().min(-1000).max(1000);
+
+export const practiceArrowSchema = z.object({
+  value: arrowValueSchema,
+  xMm: mm.optional(),
+  yMm: mm.optional(),
+  spot: z.number().int().min(0).max(2).optional(),
+});
+
+/** One end as the phone holds it now; no arrows means the end was taken back. */
+export const practiceEndSchema = z.object({
+  sessionId,
+  index: z
+    .number()
+    .int()
+    .min(0)
+    .max(PRACTICE_MAX_ENDS - 1, `A practice session holds at most ${PRACTICE_MAX_ENDS} ends.`),
+  distanceM: z.number().min(1).max(150),
+  faceId,
+  arrows: z
+    .array(practiceArrowSchema)
+    .max(PRACTICE_MAX_ARROWS_PER_END, `An end holds at most ${PRACTICE_MAX_ARROWS_PER_END} arrows.`),
+  at: isoTime,
+});
+export type PracticeEndDto = z.infer<typeof practiceEndSchema>;
+
+export const practiceDeleteSchema = z.object({ sessionId });
+export type PracticeDeleteArgs = z.infer<typeof practiceDeleteSchema>;
