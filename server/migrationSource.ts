@@ -10,6 +10,7 @@ import * as m0009 from '../migrations/0009_signing_trust';
 import * as m0010 from '../migrations/0010_results';
 import * as m0011 from '../migrations/0011_entry_classes';
 import * as m0013 from '../migrations/0013_matches';
+import * as m0015 from '../migrations/0015_match_writers';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
 
@@ -29,6 +30,7 @@ const migrations: [string, Migration][] = [
   ['0010_results', m0010],
   ['0011_entry_classes', m0011],
   ['0013_matches', m0013],
+  ['0015_match_writers', m0015],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {

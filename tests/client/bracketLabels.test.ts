@@ -22,6 +22,8 @@ function match(id: number, round: number, ends: MatchDto['ends'], extra: Partial
     winner: null,
     decidedBy: null,
     signedAt: null,
+    writes: [],
+    countersignedBy: [],
     ...extra,
   };
   const s = matchState('sets', { ends: m.ends, shootOff: m.shootOff });

@@ -33,6 +33,8 @@ const match = (extra: Partial<MatchDto> = {}): MatchDto => ({
   winner: null,
   decidedBy: null,
   signedAt: null,
+  writes: [],
+  countersignedBy: [],
   ...extra,
 });
 const row = (
