@@ -50,3 +50,12 @@ export function matchEndsLine(m: MatchDto): string {
   if (a && b) ends.push(`shoot-off ${a.value}-${b.value}`);
   return `${m.state.score.a}–${m.state.score.b} (${ends.join(', ')})`;
 }
+
+/** "Countersigned by A and B": the archers who countersigned the card after the judge, or ''. */
+export function countersignedLine(m: MatchDto): string {
+  const names = (['a', 'b'] as const)
+    .flatMap((s) => m.sides[s]?.archers ?? [])
+    .filter((a) => m.countersignedBy.includes(a.entryId))
+    .map((a) => a.name);
+  return names.length === 0 ? '' : `Countersigned by ${names.join(' and ')}.`;
+}

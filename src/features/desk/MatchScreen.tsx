@@ -8,7 +8,7 @@ import { localDb, type OutboxRow } from '../../local/db';
 import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
 import { useLocalSave } from '../../local/useLocalSave';
-import { roundName } from '../../ui/bracketLabels';
+import { countersignedLine, roundName } from '../../ui/bracketLabels';
 import { Button } from '../../ui/Button';
 import { Field } from '../../ui/Field';
 import { Notice } from '../../ui/Notice';
@@ -16,6 +16,7 @@ import { ArrowKeypad } from '../../ui/scorecard/ArrowKeypad';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
 import { RefusedNotice } from '../../ui/scorecard/RefusedNotice';
 import { JudgeOnly } from './JudgeOnly';
+import { WritersDiffer } from './WritersDiffer';
 import { ArrowCountdown } from '../../ui/match/ArrowCountdown';
 import { matchCard, matchRowsOf, type MatchCardView } from '../../local/matchCard';
 import {
@@ -205,6 +206,7 @@ function MatchOver({
       {card.signed === 'server' ? (
         <p className="font-bold" data-testid="match-signed">
           ✓ Signed. The bracket has moved on.
+          <span className="block">{countersignedLine(match)}</span>
         </p>
       ) : card.signed === 'waiting' ? (
         <p className="font-bold" data-testid="match-signed">
@@ -256,6 +258,13 @@ function MatchCardPanel({
       {problem && <Notice tone="error">{problem}</Notice>}
       {card.problem && <Notice tone="error">{card.problem}</Notice>}
       <Scoreline match={match} card={card} format={bracket.format} />
+      {open && (
+        <WritersDiffer
+          match={match}
+          settle={(end) => save({ kind: 'match.end', args: { ...target, ...end } })}
+          enter={(i) => setDraft({ endIndex: i, a: [], b: [] })}
+        />
+      )}
       <EndsTable
         match={match}
         card={card}

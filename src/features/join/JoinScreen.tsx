@@ -129,6 +129,9 @@ export function JoinScreen() {
       ) : (
         <p>Checking your sign-in…</p>
       )}
+      <Link to="/join/match" className="flex min-h-12 items-center font-bold underline">
+        Scoring an elimination match? Join it with the match’s code
+      </Link>
     </div>
   );
 }

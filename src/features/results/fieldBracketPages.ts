@@ -39,18 +39,15 @@ export function fieldBracketPages(brackets: BracketDto[], rowsPerPage: number): 
     const matches = b.matches.filter((m) => m.round === round && m.decidedBy !== 'bye');
     const count = Math.ceil(matches.length / MATCHES_PER_PAGE);
     const format = b.format === 'sets' ? 'set points' : 'totals';
-    const matchPages = Array.from(
-      { length: count },
-      (_, i): FieldBracketPage => ({
-        kind: 'matches',
-        title,
-        subtitle: `${roundName(round, b.rounds)}${round === b.rounds - 1 ? ' and bronze match' : ''} · ${format}${
-          count > 1 ? ` · page ${i + 1} of ${count}` : ''
-        }`,
-        format: b.format,
-        matches: matches.slice(i * MATCHES_PER_PAGE, (i + 1) * MATCHES_PER_PAGE),
-      }),
-    );
+    const matchPages = Array.from({ length: count }, (_, i): FieldBracketPage => ({
+      kind: 'matches',
+      title,
+      subtitle: `${roundName(round, b.rounds)}${round === b.rounds - 1 ? ' and bronze match' : ''} · ${format}${
+        count > 1 ? ` · page ${i + 1} of ${count}` : ''
+      }`,
+      format: b.format,
+      matches: matches.slice(i * MATCHES_PER_PAGE, (i + 1) * MATCHES_PER_PAGE),
+    }));
     return [...matchPages, ...placePages(b, title, rowsPerPage, false)];
   });
 }
