@@ -107,6 +107,12 @@ test('two archers score their match on their phones, the judge settles a mismatc
   await expect(codeLine).toBeVisible();
   const code = (await codeLine.locator('span').innerText()).trim();
   expect(code).toMatch(/^[A-Z0-9]{6}$/);
+  // A scorer is named by the e-mail of an account: an address without one is refused in words.
+  const other = org.getByTestId(`open-match-${matches.find((m) => m.round === 0 && m.slot === 1)!.id}`);
+  await other.getByText('Scorers instead of the archers').click();
+  await other.getByLabel('Scorer’s e-mail').fill('nobody@ringcall.example');
+  await other.getByRole('button', { name: 'Name the scorer' }).click();
+  await expect(other).toContainText('No account has the email nobody@ringcall.example');
   await checkA11y(org, 'eliminations: match join code');
   await shot(org, 'organizer-code');
 

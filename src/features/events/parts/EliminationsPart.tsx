@@ -13,6 +13,7 @@ import { useCreateBracket } from '../api/createBracket';
 import { usePlaceMatch } from '../api/placeMatch';
 import { useRecordWalkover } from '../api/recordWalkover';
 import { useMatchJoinCodes } from '../api/matchJoinCodes';
+import { MatchScorers } from './MatchScorers';
 
 const SIZES = ['8', '16', '32', '64', 'everyone'] as const;
 const FORMAT_NAMES: Record<MatchFormat, string> = {
@@ -246,6 +247,7 @@ function OpenMatch({
           </Button>
         </div>
       </details>
+      <MatchScorers eventId={eventId} match={match} names={(s) => names(match, s)} />
       {error && <Notice tone="error">{error.message}</Notice>}
     </li>
   );
