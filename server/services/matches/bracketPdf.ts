@@ -9,7 +9,7 @@ const INK = '#123047';
 const TOP = 104;
 const BOTTOM = PAGE.height - PAGE.margin - 28;
 /** Two lines for the sides, a third for each end's score. */
-const BOX = 44;
+const BOX = 42;
 /** The tree shows the rounds from the one with at most this many matches; earlier rounds are listed first. */
 const TREE_MATCHES = 8;
 /** A listed match: its box and a line for where it stands; two columns a page. */
@@ -59,7 +59,7 @@ function matchBox(pdf: PrintDocument, m: MatchDto, x: number, y: number, width: 
       align: 'right',
     });
   });
-  pdf.text(matchEndsLine(m), x + 4, y + 32, { size: 7, width: width - 8, minSize: 5, color: '#444444' });
+  pdf.text(matchEndsLine(m), x + 4, y + 29, { size: 7, width: width - 8, minSize: 5, color: '#444444' });
 }
 
 function header(pdf: PrintDocument, eventName: string, title: string, note: string): void {
