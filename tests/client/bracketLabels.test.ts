@@ -1,36 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { matchState, type ArrowValue } from '../../src/core';
 import type { BracketDto, MatchDto } from '../../src/contract/matches';
 import { matchEndsLine } from '../../src/ui/bracketLabels';
 import { fieldBracketPages } from '../../src/features/results/fieldBracketPages';
+import { matchDto, side, v } from './matchFixtures';
 
 /* Each end's score on the printed bracket; places on the field screen as soon as they are known. */
 
-const v = (text: string) => text.split(' ') as ArrowValue[];
-const side = (seed: number) => ({ seed, archers: [{ entryId: seed, name: `Archer ${seed}`, club: '' }] });
-function match(id: number, round: number, ends: MatchDto['ends'], extra: Partial<MatchDto> = {}): MatchDto {
-  const m: MatchDto = {
-    id,
-    round,
-    slot: 0,
-    bronze: false,
-    targetNumber: null,
-    sides: { a: side(1), b: side(2) },
-    ends,
-    shootOff: {},
-    state: null,
-    winner: null,
-    decidedBy: null,
-    signedAt: null,
-    writes: [],
-    countersignedBy: [],
-    ...extra,
-  };
-  const s = matchState('sets', { ends: m.ends, shootOff: m.shootOff });
-  const { score, totals, next, winner, endsLeft, shootOff, outlook } = s;
-  const setPoints = s.ends.map((e) => e.setPoints ?? null);
-  return { ...m, state: { score, totals, setPoints, next, winner, endsLeft, shootOff, outlook } };
-}
+const match = (id: number, round: number, ends: MatchDto['ends'], extra: Partial<MatchDto> = {}) =>
+  matchDto({ id, round, sides: { a: side(1), b: side(2) }, ends, targetNumber: null, ...extra }, true);
 
 describe('matchEndsLine', () => {
   it('gives set points with each set’s totals', () => {

@@ -1,12 +1,12 @@
 import 'fake-indexeddb/auto';
 import { afterEach, describe, expect, it } from 'vitest';
-import type { ArrowValue } from '../../src/core';
 import type { MatchDto } from '../../src/contract/matches';
 import { LocalDb, matchPadKeyOf, type OutboxRow } from '../../src/local/db';
 import { recordChange } from '../../src/local/outbox';
 import { summarizeWaiting, waitingWords } from '../../src/local/waitingSummary';
 import { matchInWords, waitingInWords } from '../../src/local/waitingInWords';
 import { matchCard } from '../../src/local/matchCard';
+import { matchDto, side, v } from './matchFixtures';
 
 /*
  * The judge's match card on the phone: the outbox rows laid over the server's copy (pending ones
@@ -18,25 +18,7 @@ afterEach(async () => {
   for (const db of dbs.splice(0)) await db.delete();
 });
 
-const v = (text: string) => text.split(' ') as ArrowValue[];
-const side = (seed: number, name: string) => ({ seed, archers: [{ entryId: seed, name, club: '' }] });
-const match = (extra: Partial<MatchDto> = {}): MatchDto => ({
-  id: 7,
-  round: 0,
-  slot: 0,
-  bronze: false,
-  targetNumber: 5,
-  sides: { a: side(1, 'Ada'), b: side(4, 'Bo') },
-  ends: [],
-  shootOff: {},
-  state: null,
-  winner: null,
-  decidedBy: null,
-  signedAt: null,
-  writes: [],
-  countersignedBy: [],
-  ...extra,
-});
+const match = (extra: Partial<MatchDto> = {}) => matchDto(extra);
 const row = (
   seq: number,
   kind: OutboxRow['kind'],

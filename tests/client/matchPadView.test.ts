@@ -1,37 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { matchState, type ArrowValue } from '../../src/core';
 import type { MatchDto, MatchPadDto } from '../../src/contract/matches';
 import type { OutboxRow } from '../../src/local/db';
 import { matchPadView } from '../../src/local/matchPadView';
+import { matchDto, side, v } from './matchFixtures';
 
 /* A writer's match pad: own ends laid over the server's copy, each cross-checked with the other writer. */
 
-const v = (text: string) => (text ? (text.split(' ') as ArrowValue[]) : []);
-const side = (entryId: number) => ({
-  seed: entryId,
-  archers: [{ entryId, name: `Archer ${entryId}`, club: '' }],
-});
 function pad(extra: Partial<MatchDto>): MatchPadDto {
-  const base: MatchDto = {
-    id: 7,
-    round: 0,
-    slot: 0,
-    bronze: false,
-    targetNumber: 2,
-    sides: { a: side(1), b: side(2) },
-    ends: [],
-    writes: [],
-    shootOff: {},
-    state: null,
-    winner: null,
-    decidedBy: null,
-    signedAt: null,
-    countersignedBy: [],
-    ...extra,
-  };
-  const s = matchState('sets', { ends: base.ends });
-  const { score, totals, next, winner, endsLeft, shootOff, outlook } = s;
-  const setPoints = s.ends.map((e) => e.setPoints ?? null);
   return {
     eventId: 3,
     eventName: 'Shoot',
@@ -40,7 +15,7 @@ function pad(extra: Partial<MatchDto>): MatchPadDto {
     format: 'sets',
     slot: 1,
     ownEntryId: 1,
-    match: { ...base, state: { score, totals, setPoints, next, winner, endsLeft, shootOff, outlook } },
+    match: matchDto({ sides: { a: side(1), b: side(2) }, targetNumber: 2, ...extra }, true),
   };
 }
 const row = (seq: number, args: OutboxRow['args'], status: OutboxRow['status'] = 'pending'): OutboxRow => ({

@@ -4,7 +4,7 @@ import { matchJoinSchema } from '../../contract/matches';
 import { RequireSignIn } from '../../account/RequireSignIn';
 import { useOnline } from '../../local/online';
 import { Button } from '../../ui/Button';
-import { Field } from '../../ui/Field';
+import { JoinCodeField } from '../../ui/JoinCodeField';
 import { Notice } from '../../ui/Notice';
 import { useJoinMatch } from './api/matchPad';
 
@@ -28,15 +28,11 @@ function JoinMatchForm({ userId }: { userId: number }) {
   const failure = problem ?? join.error?.message;
   return (
     <form onSubmit={submit} className="space-y-5" noValidate>
-      <Field
+      <JoinCodeField
         label="Match join code"
         hint="From the organizer or the judge. Only the match’s archers, or its named scorers, can join."
-        value={code}
-        onChange={(e) => setCode(e.target.value.toUpperCase())}
-        autoCapitalize="characters"
-        autoComplete="off"
-        spellCheck={false}
-        className="[&_input]:text-3xl [&_input]:tracking-[0.3em]"
+        code={code}
+        setCode={setCode}
       />
       {!online && (
         <Notice tone="info">Joining needs signal once. After that, scoring works without it.</Notice>
