@@ -123,6 +123,10 @@ test('two archers score their match on their phones, the judge settles a mismatc
     await page.goto('/join');
     await page.getByRole('link', { name: /Join it with the match’s code/ }).click();
     await page.getByLabel('Match join code').fill(code.toLowerCase());
+    if (pads.length === 0) {
+      await checkA11y(page, 'join your match');
+      await shot(page, 'join-match');
+    }
     await page.getByRole('button', { name: 'Join the match' }).click();
     await expect(page.getByRole('heading', { name: 'Match pad' })).toBeVisible();
     await expect(page.getByRole('heading', { name: 'End 1' })).toBeVisible();
