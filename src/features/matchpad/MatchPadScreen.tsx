@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { ARROW_VALUES, type ArrowValue } from '../../core';
@@ -99,6 +100,10 @@ function MatchOverPanel({
   );
 }
 
+/** After a complete end, the next one (empty) is where the next tap goes. */
+const typedOrNext = (d: Draft): Draft =>
+  d.a.length === ARROWS && d.b.length === ARROWS ? { endIndex: d.endIndex + 1, a: [], b: [] } : d;
+
 function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
   const rows = useLiveQuery(
     () =>
@@ -110,6 +115,7 @@ function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
     [userId, pad.matchId],
   );
   const { save: saveLocal, problem } = useLocalSave();
+  const [typed, setTyped] = useState<Draft | null>(null);
   const { match, format } = pad;
   const view = matchPadView(pad, rows ?? []);
   const card = matchCard(match, format, []);
@@ -120,9 +126,13 @@ function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
       syncLoop().kick();
     });
   const endOf = (i: number): Draft => ({ endIndex: i, a: view.ends[i]?.a ?? [], b: view.ends[i]?.b ?? [] });
-  const write = (d: Draft) =>
+  const write = (d: Draft) => {
+    setTyped(d);
     store({ kind: 'match.write', args: { ...ref, endIndex: d.endIndex, a: d.a, b: d.b } });
-  const current = view.current !== null ? endOf(view.current) : null;
+  };
+  const stored = view.current !== null ? endOf(view.current) : null;
+  // The last tap's end until the stored view catches up: taps quicker than the database never build on an older end.
+  const current = stored && typed && typed.endIndex >= stored.endIndex ? typedOrNext(typed) : stored;
   const next = current && current.a.length < ARROWS ? 'a' : 'b';
   return (
     <div className="space-y-4">
@@ -145,8 +155,11 @@ function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
           <ArrowKeypad
             allowed={ARROW_VALUES}
             onValues={(values: ArrowValue[]) => write(addValues(current, values))}
-            onUndo={() => view.undoEnd !== null && write(undoValue(endOf(view.undoEnd)))}
-            canUndo={view.undoEnd !== null}
+            onUndo={() => {
+              if (current.a.length + current.b.length > 0) write(undoValue(current));
+              else if (view.undoEnd !== null) write(undoValue(endOf(view.undoEnd)));
+            }}
+            canUndo={current.a.length + current.b.length > 0 || view.undoEnd !== null}
           />
         </Panel>
       )}
