@@ -3,6 +3,7 @@ import {
   MATCH_END_INDEX_MAX,
   createBracketSchema,
   matchEndSchema,
+  matchScorerSchema,
   matchShootOffSchema,
   matchTargetSchema,
   matchWalkoverSchema,
@@ -22,6 +23,8 @@ import {
   recordWalkover,
   signMatch,
 } from '../services/matches/matchActions';
+import { matchJoinCodes } from '../services/matches/matchJoinCodes';
+import { matchPad, setMatchScorer } from '../services/matches/matchWriters';
 import { findResultsEvent, requireResultsViewer } from '../services/results/resultsEvent';
 
 /**
@@ -129,6 +132,29 @@ export function matchRoutes(ctx: AppContext): Router {
     const { eventId, matchId } = ids(req);
     await signMatch(db, eventId, matchId, req.user!.id);
     res.json(await answer(eventId));
+  });
+
+  /** The join codes of the open matches whose archers are known (made when first asked for). */
+  router.get('/events/:eventId/matches/join-codes', ...organizer, async (req, res) => {
+    res.json({ codes: await matchJoinCodes(db, Number(req.params.eventId)) });
+  });
+
+  /** The organizer names a scorer to write for one line of a match in place of its archer. */
+  router.put(
+    '/events/:eventId/matches/:matchId/scorers',
+    ...organizer,
+    validateBody(matchScorerSchema),
+    async (req, res) => {
+      const { eventId, matchId } = ids(req);
+      await setMatchScorer(db, eventId, matchId, req.body, req.user!.id);
+      res.status(204).end();
+    },
+  );
+
+  /** A match writer's pad: the match as the server holds it, for those who joined it only. */
+  router.get('/events/:eventId/matches/:matchId/pad', ctx.requireUser, async (req, res) => {
+    const { matchId } = ids(req);
+    res.json(await matchPad(db, idParam(req, 'eventId', 'event'), matchId, req.user!.id));
   });
   return router;
 }

@@ -5,7 +5,8 @@ import { cardQuery, myCardsQuery } from '../api/card';
 import { localDb } from '../local/db';
 import { saveWaitingFile } from '../local/saveWaitingFile';
 import { syncLoop } from '../local/syncLoop';
-import { waitingInWords } from '../local/waitingInWords';
+import { matchInWords, waitingInWords } from '../local/waitingInWords';
+import type { BracketDto } from '../contract/matches';
 import { Button } from '../ui/Button';
 import { Notice } from '../ui/Notice';
 import { useSignOut } from './signIn';
@@ -20,6 +21,18 @@ function useCardNames() {
       ?.toSign.find((c) => c.sessionId === sessionId && c.entryId === entryId)?.archerName;
 }
 
+/** A match's archers from any bracket in the query cache (the judge's match cards). */
+function useMatchNames() {
+  const client = useQueryClient();
+  return (matchId: number) => {
+    for (const [, data] of client.getQueriesData<{ brackets: BracketDto[] }>({ queryKey: ['brackets'] })) {
+      const match = data?.brackets.flatMap((b) => b.matches).find((m) => m.id === matchId);
+      if (match) return matchInWords(match);
+    }
+    return undefined;
+  };
+}
+
 /**
  * Sign-out on a phone that may be shared. With nothing waiting, it signs out and clears the
  * person's data at once. Otherwise it first lists what has not reached the server, tries to send
@@ -30,7 +43,8 @@ export function SignOut({ userId }: { userId: number }) {
   const signOut = useSignOut();
   const [asking, setAsking] = useState(false);
   const names = useCardNames();
-  const waiting = useLiveQuery(() => waitingInWords(localDb(), userId, names), [userId]);
+  const matchNames = useMatchNames();
+  const waiting = useLiveQuery(() => waitingInWords(localDb(), userId, names, matchNames), [userId]);
   const busy = signOut.isPending || waiting === undefined;
   const error = signOut.error && <Notice tone="error">{signOut.error.message}</Notice>;
 

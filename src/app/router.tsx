@@ -13,6 +13,7 @@ import { eventRoutes } from '../features/events/routes';
 import { resultsRoutes } from '../features/results/routes';
 import { bracketRoutes } from '../features/brackets/routes';
 import { practiceRoutes } from '../features/practice/routes';
+import { matchPadRoutes } from '../features/matchpad/routes';
 
 /** The screen area: a screen that throws, or whose chunk cannot be fetched, shows RouteError inside the layout. */
 function ScreenArea() {
@@ -60,6 +61,7 @@ const routes: RouteObject[] = [
           },
           ...authRoutes,
           ...joinRoutes,
+          ...matchPadRoutes,
           ...padRoutes,
           ...deskRoutes,
           ...verifyRoutes,

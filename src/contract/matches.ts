@@ -13,6 +13,8 @@ import {
   type SideOutlook,
 } from '../core';
 import { arrowValueSchema } from './arrowValueSchema';
+import { emailSchema } from './auth';
+import { joinCodeSchema } from './joinCode';
 import { oneMeasure, shootOffArrowFields } from './shootOffArrowSchema';
 
 /*
@@ -69,6 +71,12 @@ export type DecidedBy = 'score' | 'shoot-off' | 'bye' | 'withdrawal' | 'no-show'
 
 export type MatchSideDto = { seed: number; archers: { entryId: number; name: string; club: string }[] };
 
+/** A match card's end: `writers` when the two writers agreed on it, `judge` when a judge entered or settled it. */
+export type MatchEndDto = { a: ArrowValue[]; b: ArrowValue[]; by?: 'writers' | 'judge' };
+
+/** One writer's own record of one end of a match (both sides' arrows), kept apart from the other's. */
+export type MatchWriteDto = { slot: 1 | 2; endIndex: number; a: ArrowValue[]; b: ArrowValue[] };
+
 export type MatchDto = {
   id: number;
   round: number;
@@ -76,7 +84,9 @@ export type MatchDto = {
   bronze: boolean;
   targetNumber: number | null;
   sides: Partial<Record<Side, MatchSideDto>>;
-  ends: { a: ArrowValue[]; b: ArrowValue[] }[];
+  ends: MatchEndDto[];
+  /** Each writer's own records when two writers score the match at the target. */
+  writes: MatchWriteDto[];
   shootOff: Partial<Record<Side, { value: ArrowValue; distanceMm?: number; closer?: boolean }>>;
   /** The core's reading of the ends so far (null until both sides are known). */
   state: {
@@ -93,6 +103,8 @@ export type MatchDto = {
   winner: Side | null;
   decidedBy: DecidedBy | null;
   signedAt: string | null;
+  /** The archers (entry ids) who countersigned the card after the judge's signature. */
+  countersignedBy: number[];
 };
 
 export type BracketDto = {
@@ -132,3 +144,51 @@ export type MatchShootOffArgs = z.infer<typeof matchShootOffArgsSchema>;
 
 export const matchSignArgsSchema = z.object(matchRef);
 export type MatchSignArgs = z.infer<typeof matchSignArgsSchema>;
+
+/**
+ * Two writers at the match's target (sync kinds `match.write`, `match.countersign`): a writer's
+ * record of one end, both sides' arrows, partial while being tapped; an archer's countersignature.
+ */
+const upToThree = z
+  .array(arrowValueSchema)
+  .max(MATCH_ARROWS_PER_END, `A match end has ${MATCH_ARROWS_PER_END} arrows a side.`);
+
+export const matchWriteArgsSchema = z.object({
+  ...matchRef,
+  endIndex: z.number().int().min(0).max(MATCH_END_INDEX_MAX, `A match has ends 1 to ${MATCH_MAX_ENDS}.`),
+  a: upToThree,
+  b: upToThree,
+});
+export type MatchWriteArgs = z.infer<typeof matchWriteArgsSchema>;
+
+export const matchCountersignArgsSchema = z.object(matchRef);
+export type MatchCountersignArgs = z.infer<typeof matchCountersignArgsSchema>;
+
+/** Joining a match's target with the match's join code. */
+export const matchJoinSchema = z.object({
+  code: joinCodeSchema,
+});
+export type MatchJoin = z.infer<typeof matchJoinSchema>;
+
+/** The organizer names a scorer (an account's email) to write for one line in place of its archer; null takes it back. */
+export const matchScorerSchema = z.object({
+  slot: z.union([z.literal(1), z.literal(2)], { error: 'Slot must be 1 (upper line) or 2 (lower line).' }),
+  email: emailSchema.nullable(),
+});
+export type MatchScorerBody = z.infer<typeof matchScorerSchema>;
+
+/** What a writer's phone needs to score one match, offline too. */
+export type MatchPadDto = {
+  eventId: number;
+  eventName: string;
+  divisionName: string;
+  roundName: string;
+  format: MatchFormat;
+  /** This person's writer slot: 1 for the upper line's archer or scorer, 2 for the lower's. */
+  slot: 1 | 2;
+  /** The entry this person may countersign for (an archer of the match), if any. */
+  ownEntryId: number | null;
+  match: MatchDto;
+};
+
+export type MatchJoinCodeDto = { matchId: number; code: string };

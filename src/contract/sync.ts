@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { ARROW_FLAGS, TASKS, type ArrowFlag, type Task, type WriterSlot } from './fieldTerms';
 import type { ArrowValue, EndView, RoundDefinition } from '../core';
 import { arrowValueSchema } from './arrowValueSchema';
+import { joinCodeSchema } from './joinCode';
 import type { LateDecisionDto } from './lateValues';
 import {
   cardSignArgsSchema,
@@ -12,7 +13,13 @@ import {
   type RulingDto,
 } from './judging';
 import { shootOffRecordArgsSchema } from './results';
-import { matchEndArgsSchema, matchShootOffArgsSchema, matchSignArgsSchema } from './matches';
+import {
+  matchCountersignArgsSchema,
+  matchEndArgsSchema,
+  matchShootOffArgsSchema,
+  matchSignArgsSchema,
+  matchWriteArgsSchema,
+} from './matches';
 import {
   practiceDeleteSchema,
   practiceEndSchema,
@@ -85,13 +92,18 @@ export const mutationSchema = z.discriminatedUnion(
     z.object({ ...base, kind: z.literal('practice.session'), args: practiceSessionSchema }),
     z.object({ ...base, kind: z.literal('practice.end'), args: practiceEndSchema }),
     z.object({ ...base, kind: z.literal('practice.delete'), args: practiceDeleteSchema }),
+    // A match writer's end at the target and an archer's countersignature on the match card.
+    z.object({ ...base, kind: z.literal('match.write'), args: matchWriteArgsSchema }),
+    z.object({ ...base, kind: z.literal('match.countersign'), args: matchCountersignArgsSchema }),
   ],
   { error: 'Unknown kind of change. This phone may need the newest version of Ringcall.' },
 );
 export type Mutation = z.infer<typeof mutationSchema>;
 export type MutationKind = Mutation['kind'];
-/** A judge's change to an elimination match: applied through the match services, not the field batch. */
-export type MatchMutation = Extract<Mutation, { kind: 'match.end' | 'match.shootoff' | 'match.sign' }>;
+/** A change to an elimination match: applied through the match services, not the field batch. */
+export type MatchMutation = Extract<
+  Mutation,
+  { kind: 'match.end' | 'match.shootoff' | 'match.sign' | 'match.write' | 'match.countersign' }
 /** A change to the person's own practice log: applied by the practice services, for that person only. */
 export type PracticeMutation = Extract<
   Mutation,
@@ -275,12 +287,7 @@ export type PullQuery = z.infer<typeof pullQuerySchema>;
 
 /** Joining a target group with its code. */
 export const joinRequestSchema = z.object({
-  code: z
-    .string({ error: 'Enter the join code from the target sheet.' })
-    .trim()
-    .toUpperCase()
-    .min(4, 'A join code has 6 characters.')
-    .max(16, 'A join code has 6 characters.'),
+  code: joinCodeSchema,
   task: z.enum(TASKS, { error: 'Choose writer 1, writer 2, caller or following.' }),
 });
 export type JoinRequest = z.infer<typeof joinRequestSchema>;

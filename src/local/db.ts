@@ -1,4 +1,11 @@
-import type { MatchEndArgs, MatchShootOffArgs, MatchSignArgs } from '../contract/matches';
+import type {
+  MatchCountersignArgs,
+  MatchEndArgs,
+  MatchPadDto,
+  MatchShootOffArgs,
+  MatchSignArgs,
+  MatchWriteArgs,
+} from '../contract/matches';
 import type { PracticeDeleteArgs, PracticeEndDto, PracticeSessionDto } from '../contract/practice';
 import { Dexie, type EntityTable } from 'dexie';
 import type { BowStyle, FaceId, Venue } from '../core';
@@ -58,7 +65,9 @@ export type OutboxRow = {
     | MatchSignArgs
     | PracticeSessionDto
     | PracticeEndDto
-    | PracticeDeleteArgs;
+    | PracticeDeleteArgs
+    | MatchWriteArgs
+    | MatchCountersignArgs;
   at: string;
   /** The end this change is about (session:entry:end), for the pad's overlay; a card, a shoot-off arrow or a match has its own key. */
   endKey: string;
@@ -69,6 +78,10 @@ export type OutboxRow = {
 };
 
 export type MetaRow = { key: string; value: unknown };
+
+/** A match this person joined as a writer, as last read from the server, so its pad opens offline. */
+export type JoinedMatch = MatchPadDto & { key: string; userId: number; matchId: number };
+export const matchPadKeyOf = (userId: number, matchId: number) => `${userId}:${matchId}`;
 
 /** The owner of practice recorded while no one is signed in on this phone. */
 export const NO_ACCOUNT = 0;
@@ -126,6 +139,7 @@ export class LocalDb extends Dexie {
   cardSignatures!: EntityTable<CardSignatureRow, 'id'>;
   practiceSessions!: EntityTable<PracticeSessionRow, 'id'>;
   practiceEnds!: EntityTable<PracticeEndRow, 'key'>;
+  matchPads!: EntityTable<JoinedMatch, 'key'>;
 
   constructor(name = 'ringcall') {
     // No live-query cache: a tap's write bypasses Dexie (see writeAtOnce), and a cached answer
@@ -149,6 +163,8 @@ export class LocalDb extends Dexie {
       practiceSessions: 'id, startedAt, ownerId',
       practiceEnds: 'key, sessionId',
     });
+    // Matches joined as a writer (docs/matches.md).
+    this.version(5).stores({ matchPads: 'key, userId' });
   }
 }
 

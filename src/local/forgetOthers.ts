@@ -32,6 +32,7 @@ export async function forgetOthers(db: LocalDb, keep: number | undefined): Promi
       db.cardSignatures,
       db.practiceSessions,
       db.practiceEnds,
+      db.matchPads,
     ],
     async () => {
       if (keep !== undefined && clientId) await adoptPractice(db, keep, clientId);
@@ -49,6 +50,18 @@ export async function forgetOthers(db: LocalDb, keep: number | undefined): Promi
           ),
       );
       await db.targets.bulkDelete(stale.map((t) => t.key));
+      // Matches joined by others go too, unless their waiting changes are about them (as targets).
+      const matches = (await db.matchPads.toArray()).filter((m) => m.userId !== keep);
+      await db.matchPads.bulkDelete(
+        matches
+          .filter(
+            (m) =>
+              !waiting.some(
+                (r) => r.userId === m.userId && 'matchId' in r.args && r.args.matchId === m.matchId,
+              ),
+          )
+          .map((m) => m.key),
+      );
       await db.outbox.bulkDelete(
         others.filter((r) => !isWaiting(r)).map((r): [string, number] => [r.clientId, r.seq]),
       );

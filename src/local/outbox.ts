@@ -1,7 +1,13 @@
 import type { EndSettleArgs, EndWriteArgs, Mutation } from '../contract/sync';
 import type { CardSignArgs, EndRuleArgs, EndSignArgs } from '../contract/judging';
 import type { ShootOffRecordArgs } from '../contract/results';
-import type { MatchEndArgs, MatchShootOffArgs, MatchSignArgs } from '../contract/matches';
+import type {
+  MatchCountersignArgs,
+  MatchEndArgs,
+  MatchShootOffArgs,
+  MatchSignArgs,
+  MatchWriteArgs,
+} from '../contract/matches';
 import type { PracticeDeleteArgs, PracticeEndDto, PracticeSessionDto } from '../contract/practice';
 import { Dexie } from 'dexie';
 import { cardKeyOf, endKeyOf, shootOffKeyOf, type LocalDb, type OutboxRow } from './db';
@@ -47,7 +53,9 @@ export type NewChange =
   | { kind: 'match.sign'; args: MatchSignArgs }
   | { kind: 'practice.session'; args: PracticeSessionDto }
   | { kind: 'practice.end'; args: PracticeEndDto }
-  | { kind: 'practice.delete'; args: PracticeDeleteArgs };
+  | { kind: 'practice.delete'; args: PracticeDeleteArgs }
+  | { kind: 'match.write'; args: MatchWriteArgs }
+  | { kind: 'match.countersign'; args: MatchCountersignArgs };
 
 /** A match change's key: the match, then the end, the shoot-off or the signature. */
 export const matchKeyOf = (matchId: number, what: string) => `match:${matchId}:${what}`;
@@ -56,25 +64,33 @@ export const matchKeyOf = (matchId: number, what: string) => `match:${matchId}:$
 export const practiceKeyOf = (sessionId: string, index?: number) =>
   index === undefined ? `practice:${sessionId}` : `practice:${sessionId}:${index}`;
 
-/** The end a change is about, the card for a card signature, the arrow for a shoot-off. */
-const subjectKey = (change: NewChange) =>
-  change.kind === 'practice.session'
-    ? practiceKeyOf(change.args.id)
-    : change.kind === 'practice.end'
-      ? practiceKeyOf(change.args.sessionId, change.args.index)
-      : change.kind === 'practice.delete'
-        ? practiceKeyOf(change.args.sessionId)
-        : change.kind === 'match.end'
-          ? matchKeyOf(change.args.matchId, `end:${change.args.endIndex}`)
-          : change.kind === 'match.shootoff'
-            ? matchKeyOf(change.args.matchId, 'shoot-off')
-            : change.kind === 'match.sign'
-              ? matchKeyOf(change.args.matchId, 'sign')
-              : change.kind === 'card.sign'
-                ? `${cardKeyOf(change.args.sessionId, change.args.entryId)}:card`
-                : change.kind === 'shootoff.record'
-                  ? shootOffKeyOf(change.args.sessionId, change.args.entryId, change.args.arrowIndex)
-                  : endKeyOf(change.args.sessionId, change.args.entryId, change.args.endIndex);
+/** The end a change is about, the card for a card signature, the arrow for a shoot-off, a match's part, a practice session or end. */
+function subjectKey(change: NewChange): string {
+  switch (change.kind) {
+    case 'practice.session':
+      return practiceKeyOf(change.args.id);
+    case 'practice.end':
+      return practiceKeyOf(change.args.sessionId, change.args.index);
+    case 'practice.delete':
+      return practiceKeyOf(change.args.sessionId);
+    case 'match.write':
+      return matchKeyOf(change.args.matchId, `write:${change.args.endIndex}`);
+    case 'match.countersign':
+      return matchKeyOf(change.args.matchId, 'countersign');
+    case 'match.end':
+      return matchKeyOf(change.args.matchId, `end:${change.args.endIndex}`);
+    case 'match.shootoff':
+      return matchKeyOf(change.args.matchId, 'shoot-off');
+    case 'match.sign':
+      return matchKeyOf(change.args.matchId, 'sign');
+    case 'card.sign':
+      return `${cardKeyOf(change.args.sessionId, change.args.entryId)}:card`;
+    case 'shootoff.record':
+      return shootOffKeyOf(change.args.sessionId, change.args.entryId, change.args.arrowIndex);
+    default:
+      return endKeyOf(change.args.sessionId, change.args.entryId, change.args.endIndex);
+  }
+}
 
 /** The next sequence number per client, as last committed from this page (see recordChange). */
 const knownNextSeq = new Map<string, number>();

@@ -1,3 +1,4 @@
+import { endTotal } from '../core';
 import type { MatchDto } from '../contract/matches';
 
 /** A round's name by how many matches it has: the final, the semi-finals, then "1/8" and so on. */
@@ -36,4 +37,25 @@ export function matchLine(
     score: m.ends.length > 0 ? m.state?.score[side] : undefined,
     won: winner === side,
   };
+}
+
+/**
+ * The score of a match with each end's totals, for the printed bracket: "6–4 (28-27, 26-29, …)",
+ * and the shoot-off arrows when there were some. Empty before the first end.
+ */
+export function matchEndsLine(m: MatchDto): string {
+  if (m.ends.length === 0 || !m.state) return '';
+  const ends = m.ends.map((e) => `${endTotal(e.a)}-${endTotal(e.b)}`);
+  const { a, b } = m.shootOff;
+  if (a && b) ends.push(`shoot-off ${a.value}-${b.value}`);
+  return `${m.state.score.a}–${m.state.score.b} (${ends.join(', ')})`;
+}
+
+/** "Countersigned by A and B": the archers who countersigned the card after the judge, or ''. */
+export function countersignedLine(m: MatchDto): string {
+  const names = (['a', 'b'] as const)
+    .flatMap((s) => m.sides[s]?.archers ?? [])
+    .filter((a) => m.countersignedBy.includes(a.entryId))
+    .map((a) => a.name);
+  return names.length === 0 ? '' : `Countersigned by ${names.join(' and ')}.`;
 }

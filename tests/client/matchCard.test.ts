@@ -1,12 +1,12 @@
 import 'fake-indexeddb/auto';
 import { afterEach, describe, expect, it } from 'vitest';
-import type { ArrowValue } from '../../src/core';
 import type { MatchDto } from '../../src/contract/matches';
-import { LocalDb, type OutboxRow } from '../../src/local/db';
+import { LocalDb, matchPadKeyOf, type OutboxRow } from '../../src/local/db';
 import { recordChange } from '../../src/local/outbox';
 import { summarizeWaiting, waitingWords } from '../../src/local/waitingSummary';
-import { waitingInWords } from '../../src/local/waitingInWords';
-import { matchCard } from '../../src/features/desk/matchCard';
+import { matchInWords, waitingInWords } from '../../src/local/waitingInWords';
+import { matchCard } from '../../src/local/matchCard';
+import { matchDto, side, v } from './matchFixtures';
 
 /*
  * The judge's match card on the phone: the outbox rows laid over the server's copy (pending ones
@@ -18,23 +18,7 @@ afterEach(async () => {
   for (const db of dbs.splice(0)) await db.delete();
 });
 
-const v = (text: string) => text.split(' ') as ArrowValue[];
-const side = (seed: number, name: string) => ({ seed, archers: [{ entryId: seed, name, club: '' }] });
-const match = (extra: Partial<MatchDto> = {}): MatchDto => ({
-  id: 7,
-  round: 0,
-  slot: 0,
-  bronze: false,
-  targetNumber: 5,
-  sides: { a: side(1, 'Ada'), b: side(4, 'Bo') },
-  ends: [],
-  shootOff: {},
-  state: null,
-  winner: null,
-  decidedBy: null,
-  signedAt: null,
-  ...extra,
-});
+const match = (extra: Partial<MatchDto> = {}) => matchDto(extra);
 const row = (
   seq: number,
   kind: OutboxRow['kind'],
@@ -138,9 +122,31 @@ describe('match changes in the outbox', () => {
     ]);
     expect(waitingWords(summarizeWaiting(rows))).toBe('1 end, 1 signature and 1 shoot-off arrow');
     expect(await waitingInWords(db, 1)).toEqual([
-      'End 1 of match 7',
-      'The shoot-off arrows of match 7',
-      'Your signature on match 7',
+      'Match: number 7, end 1',
+      'Match: number 7, shoot-off arrows',
+      'Your signature on the match number 7',
+    ]);
+    // Named by its archers once the phone knows them: a bracket looked at, or a match joined as writer.
+    const names = (matchId: number) => (matchId === 7 ? matchInWords(match()) : undefined);
+    expect((await waitingInWords(db, 1, undefined, names))[0]).toBe('Match: Ada v Bo, end 1');
+    await db.matchPads.put({
+      key: matchPadKeyOf(1, 7),
+      userId: 1,
+      matchId: 7,
+      eventId: 3,
+      eventName: 'Shoot',
+      divisionName: 'Recurve',
+      roundName: 'Final',
+      format: 'sets',
+      slot: 1,
+      ownEntryId: null,
+      match: match({ sides: { a: side(1, 'Cy'), b: side(2, 'Di') } }),
+    });
+    await recordChange(db, 1, { kind: 'match.write', args: { ...ref, endIndex: 1, a: v('10'), b: [] } });
+    await recordChange(db, 1, { kind: 'match.countersign', args: ref });
+    expect((await waitingInWords(db, 1)).slice(-2)).toEqual([
+      'Match: Cy v Di, end 2',
+      'Your countersignature on the match Cy v Di',
     ]);
   });
 });

@@ -1,6 +1,6 @@
 import type { Writable } from 'node:stream';
 import type { BracketDto, MatchDto } from '../../../src/contract/matches';
-import { matchLine, matchStatus, roundName } from '../../../src/ui/bracketLabels';
+import { matchEndsLine, matchLine, matchStatus, roundName } from '../../../src/ui/bracketLabels';
 import { PrintDocument } from '../printouts/pdfDocument';
 
 /** A4 landscape. */
@@ -8,11 +8,12 @@ const PAGE = { width: 841.89, height: 595.28, margin: 36 };
 const INK = '#123047';
 const TOP = 104;
 const BOTTOM = PAGE.height - PAGE.margin - 28;
-const BOX = 36;
+/** Two lines for the sides, a third for each end's score. */
+const BOX = 42;
 /** The tree shows the rounds from the one with at most this many matches; earlier rounds are listed first. */
 const TREE_MATCHES = 8;
 /** A listed match: its box and a line for where it stands; two columns a page. */
-const LIST_ROW = BOX + 16;
+const LIST_ROW = BOX + 9;
 const LIST_PER_COLUMN = Math.floor((BOTTOM - TOP) / LIST_ROW);
 const LIST_ROWS = LIST_PER_COLUMN * 2;
 const PLACES_WIDTH = 170;
@@ -37,7 +38,7 @@ function pagesOf(brackets: BracketDto[]): Page[] {
   });
 }
 
-/** One match as a box of two lines, the winner in bold with a tick. */
+/** One match as a box: a line a side (the winner in bold), then the score of each end. */
 function matchBox(pdf: PrintDocument, m: MatchDto, x: number, y: number, width: number): void {
   pdf.doc.lineWidth(1).rect(x, y, width, BOX).stroke(INK);
   (['a', 'b'] as const).forEach((side, i) => {
@@ -58,6 +59,7 @@ function matchBox(pdf: PrintDocument, m: MatchDto, x: number, y: number, width: 
       align: 'right',
     });
   });
+  pdf.text(matchEndsLine(m), x + 4, y + 29, { size: 7, width: width - 8, minSize: 5, color: '#444444' });
 }
 
 function header(pdf: PrintDocument, eventName: string, title: string, note: string): void {
@@ -131,8 +133,8 @@ function listPage(pdf: PrintDocument, bracket: BracketDto, round: number, matche
     const x = PAGE.margin + Math.floor(i / LIST_PER_COLUMN) * (column + 24);
     const y = TOP + (i % LIST_PER_COLUMN) * LIST_ROW;
     matchBox(pdf, m, x, y, column);
-    pdf.text(matchStatus(m), x + 4, y + BOX + 2, {
-      size: 8,
+    pdf.text(matchStatus(m), x + 4, y + BOX + 1, {
+      size: 7,
       width: column - 8,
       minSize: 6,
       color: '#444444',

@@ -2,6 +2,7 @@ import { finalPlaces, type BracketArcher, type MatchFormat, type Side } from '..
 import type { BracketDto, MatchDto, MatchSideDto } from '../../../src/contract/matches';
 import type { Db } from '../../db';
 import { loadRecords, readMatch, type MatchRow } from './matchRows';
+import { loadWriterRecords, type WriterRecords } from './matchWriterRows';
 
 type BracketRow = {
   id: number;
@@ -43,6 +44,7 @@ function matchDto(
   format: MatchFormat,
   sides: MatchDto['sides'],
   record: Pick<MatchDto, 'ends' | 'shootOff'>,
+  writers: WriterRecords,
 ): MatchDto {
   const state = sides.a && sides.b ? readMatch(format, record) : null;
   return {
@@ -53,6 +55,7 @@ function matchDto(
     targetNumber: m.target_number,
     sides,
     ends: record.ends,
+    writes: writers.writes,
     shootOff: record.shootOff,
     state: state && {
       score: state.score,
@@ -67,6 +70,7 @@ function matchDto(
     winner: m.winner_side,
     decidedBy: m.decided_by,
     signedAt: m.signed_at,
+    countersignedBy: writers.countersignedBy,
   };
 }
 
@@ -126,7 +130,11 @@ export async function eventBrackets(db: Db, eventId: number): Promise<BracketDto
     )
     .orderBy(['bracket_id', 'round', 'bronze', 'slot'])) as Omit<MatchRow, 'format' | 'size'>[];
   const ids = matchRows.map((m) => m.id);
-  const [sides, records] = await Promise.all([sidesOf(db, ids), loadRecords(db, ids)]);
+  const [sides, records, writers] = await Promise.all([
+    sidesOf(db, ids),
+    loadRecords(db, ids),
+    loadWriterRecords(db, ids),
+  ]);
   return brackets.map((b) => {
     const rounds = Math.log2(b.size);
     const matches = matchRows
@@ -137,6 +145,7 @@ export async function eventBrackets(db: Db, eventId: number): Promise<BracketDto
           b.format,
           sides.get(m.id) ?? {},
           records.get(m.id)!,
+          writers.get(m.id)!,
         ),
       );
     return {

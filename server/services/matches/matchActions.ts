@@ -20,7 +20,7 @@ async function openMatch(db: Db, eventId: number, matchId: number): Promise<Matc
   return match;
 }
 
-/** A judge records (or corrects, until the match is signed) one end of both sides. */
+/** A judge records (or corrects, or settles the writers' mismatch on, until the match is signed) one end of both sides. */
 export async function recordMatchEnd(
   db: Db,
   eventId: number,
@@ -40,6 +40,8 @@ export async function recordMatchEnd(
   const row = {
     a_json: JSON.stringify(body.a),
     b_json: JSON.stringify(body.b),
+    // The judge's end settles any mismatch of the writers and closes the end to them.
+    source: 'judge',
     recorded_by: userId,
     recorded_at: nowIso(),
   };

@@ -59,7 +59,13 @@ export async function requireBothSides(db: Db, matchId: number): Promise<void> {
     throw conflict('Both archers of this match are not known yet: earlier matches are still open.');
 }
 
-type EndRow = { match_id: number; end_index: number; a_json: string; b_json: string };
+type EndRow = {
+  match_id: number;
+  end_index: number;
+  a_json: string;
+  b_json: string;
+  source: 'writers' | 'judge';
+};
 type ShootRow = {
   match_id: number;
   side: Side;
@@ -81,9 +87,11 @@ export async function loadRecords(
     matchIds.map((id) => [id, { ends: [] as MatchDto['ends'], shootOff: {} as MatchDto['shootOff'] }]),
   );
   for (const e of ends) {
-    records
-      .get(e.match_id)!
-      .ends.push({ a: JSON.parse(e.a_json) as ArrowValue[], b: JSON.parse(e.b_json) as ArrowValue[] });
+    records.get(e.match_id)!.ends.push({
+      a: JSON.parse(e.a_json) as ArrowValue[],
+      b: JSON.parse(e.b_json) as ArrowValue[],
+      by: e.source,
+    });
   }
   for (const s of shots) {
     records.get(s.match_id)!.shootOff[s.side] = {

@@ -23,5 +23,7 @@ export {
 } from './seeding';
 export type { FirstRoundMatch } from './seeding';
 export { finalPlaces } from './finalPlaces';
+export { matchCrossCheck } from './matchCrossCheck';
+export type { MatchCrossCheck } from './matchCrossCheck';
 export { MATCH_SECONDS_PER_ARROW } from './timing';
 export type { BracketArcher, FinalPlace } from './finalPlaces';

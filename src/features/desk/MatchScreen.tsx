@@ -1,14 +1,14 @@
-import { useEffect, useRef, useState, type ReactNode } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useLiveQuery } from 'dexie-react-hooks';
-import { ARROW_VALUES, arrowPoints, type ArrowValue, type MatchFormat, type Side } from '../../core';
+import { ARROW_VALUES, arrowPoints, type Side } from '../../core';
 import type { BracketDto, MatchDto, MatchShootOffArgs } from '../../contract/matches';
 import { useEventBrackets } from '../../api/eventBrackets';
 import { localDb, type OutboxRow } from '../../local/db';
 import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
 import { useLocalSave } from '../../local/useLocalSave';
-import { roundName } from '../../ui/bracketLabels';
+import { countersignedLine, roundName } from '../../ui/bracketLabels';
 import { Button } from '../../ui/Button';
 import { Field } from '../../ui/Field';
 import { Notice } from '../../ui/Notice';
@@ -16,17 +16,23 @@ import { ArrowKeypad } from '../../ui/scorecard/ArrowKeypad';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
 import { RefusedNotice } from '../../ui/scorecard/RefusedNotice';
 import { JudgeOnly } from './JudgeOnly';
-import { ArrowCountdown } from './ArrowCountdown';
-import { matchCard, matchRowsOf, type MatchCardView } from './matchCard';
+import { WritersDiffer } from './WritersDiffer';
+import { ArrowCountdown } from '../../ui/match/ArrowCountdown';
+import { matchCard, matchRowsOf, type MatchCardView } from '../../local/matchCard';
+import {
+  addValues,
+  ARROWS,
+  DraftLines,
+  EndsTable,
+  nameOf,
+  Panel,
+  Scoreline,
+  SIDES,
+  undoValue,
+  type Draft,
+} from '../../ui/match/MatchCardParts';
 
-const SIDES: readonly Side[] = ['a', 'b'];
-const ARROWS = 3;
-type Draft = { endIndex: number; a: ArrowValue[]; b: ArrowValue[] };
 type Save = (change: Parameters<typeof recordChange>[2]) => void;
-
-const sum = (values: readonly ArrowValue[]) => values.reduce((t, v) => t + arrowPoints(v), 0);
-const nameOf = (match: MatchDto, side: Side) =>
-  match.sides[side]?.archers.map((a) => a.name).join(', ') ?? '—';
 
 /** This judge's match changes on this phone (waiting, delivered or refused). */
 const ownMatchRows = (userId: number): Promise<OutboxRow[]> =>
@@ -35,151 +41,6 @@ const ownMatchRows = (userId: number): Promise<OutboxRow[]> =>
     .equals(userId)
     .filter((r) => r.kind.startsWith('match.'))
     .toArray();
-
-/** Fills the upper line's three arrows, then the lower line's. */
-function addValues(draft: Draft, values: ArrowValue[], per = ARROWS): Draft {
-  const next = { ...draft, a: [...draft.a], b: [...draft.b] };
-  for (const v of values) {
-    if (next.a.length < per) next.a.push(v);
-    else if (next.b.length < per) next.b.push(v);
-  }
-  return next;
-}
-const undoValue = (d: Draft): Draft =>
-  d.b.length > 0 ? { ...d, b: d.b.slice(0, -1) } : { ...d, a: d.a.slice(0, -1) };
-
-/** One titled part of the match card. */
-function Panel({
-  id,
-  title,
-  testId,
-  strong,
-  children,
-}: {
-  id: string;
-  title: string;
-  testId?: string;
-  strong?: boolean;
-  children: ReactNode;
-}) {
-  return (
-    <section
-      aria-labelledby={id}
-      className={`surface space-y-3 rounded-xl bg-card p-3 ${strong ? 'border-4 border-ink' : 'border-2 border-line'}`}
-      data-testid={testId}
-    >
-      <h2 id={id} className="text-2xl font-bold">
-        {title}
-      </h2>
-      {children}
-    </section>
-  );
-}
-
-function Scoreline({ match, card, format }: { match: MatchDto; card: MatchCardView; format: MatchFormat }) {
-  const state = card.state;
-  return (
-    <div className="grid grid-cols-2 gap-2" data-testid="match-score">
-      {SIDES.map((side) => (
-        <div
-          key={side}
-          className="surface rounded-xl border-2 border-line bg-card p-3"
-          data-testid={`score-${side}`}
-        >
-          <p className="font-bold">
-            {nameOf(match, side)} <span className="text-ink-soft">({match.sides[side]?.seed})</span>
-          </p>
-          <p className="text-4xl font-bold" aria-label={format === 'sets' ? 'set points' : 'total'}>
-            {state?.score[side] ?? 0}
-          </p>
-          <p className="text-base">{format === 'sets' ? 'set points' : 'running total'}</p>
-          {state?.outlook[side].say && (
-            <p className="mt-1 font-bold" data-testid={`outlook-${side}`}>
-              {state.outlook[side].say}
-            </p>
-          )}
-        </div>
-      ))}
-    </div>
-  );
-}
-
-function EndsTable({
-  match,
-  card,
-  format,
-  onCorrect,
-}: {
-  match: MatchDto;
-  card: MatchCardView;
-  format: MatchFormat;
-  onCorrect?: ((endIndex: number) => void) | undefined;
-}) {
-  if (card.ends.length === 0) return <p>No end recorded yet.</p>;
-  return (
-    <table className="w-full border-collapse text-left" data-testid="match-ends">
-      <caption className="sr-only">Ends of the match</caption>
-      <thead>
-        <tr className="border-b-2 border-line [&>th]:px-1 [&>th]:align-bottom">
-          <th scope="col">{format === 'sets' ? 'Set' : 'End'}</th>
-          <th scope="col">{nameOf(match, 'a')}</th>
-          <th scope="col">{nameOf(match, 'b')}</th>
-          <th scope="col">
-            <span className="sr-only">State</span>
-          </th>
-        </tr>
-      </thead>
-      <tbody>
-        {card.ends.map((end, i) => {
-          const points = card.state?.ends[i]?.setPoints;
-          return (
-            <tr key={i} className="border-b border-line" data-testid={`match-end-${i + 1}`}>
-              <th scope="row" className="px-1 py-1 align-top">
-                {i + 1}
-              </th>
-              {SIDES.map((side) => (
-                <td key={side} className="px-1 py-1 align-top">
-                  <span className="block whitespace-nowrap">{end[side].join(' ')}</span>
-                  <span className="block">
-                    = <span className="font-bold">{sum(end[side])}</span>
-                    {points && ` · ${points[side]} pt`}
-                  </span>
-                </td>
-              ))}
-              <td className="px-1 py-1 align-top">
-                {end.waiting ? '▲ waiting to sync' : '✓ synced'}
-                {onCorrect && (
-                  <button
-                    type="button"
-                    className="mt-1 block min-h-11 min-w-11 rounded-lg border-2 border-ink px-2 font-bold"
-                    onClick={() => onCorrect(i)}
-                    aria-label={`Correct end ${i + 1}`}
-                  >
-                    Correct
-                  </button>
-                )}
-              </td>
-            </tr>
-          );
-        })}
-      </tbody>
-    </table>
-  );
-}
-
-function DraftLines({ match, draft, per }: { match: MatchDto; draft: Draft; per: number }) {
-  return (
-    <div className="space-y-1" data-testid="match-draft">
-      {SIDES.map((side) => (
-        <p key={side} className="text-xl">
-          <span className="font-bold">{nameOf(match, side)}:</span>{' '}
-          {Array.from({ length: per }, (_, i) => draft[side][i] ?? '·').join(' ')}
-          {draft[side].length === per && per > 1 && <span> = {sum(draft[side])}</span>}
-        </p>
-      ))}
-    </div>
-  );
-}
 
 function EndEntry({
   match,
@@ -345,6 +206,7 @@ function MatchOver({
       {card.signed === 'server' ? (
         <p className="font-bold" data-testid="match-signed">
           ✓ Signed. The bracket has moved on.
+          <span className="block">{countersignedLine(match)}</span>
         </p>
       ) : card.signed === 'waiting' ? (
         <p className="font-bold" data-testid="match-signed">
@@ -396,6 +258,13 @@ function MatchCardPanel({
       {problem && <Notice tone="error">{problem}</Notice>}
       {card.problem && <Notice tone="error">{card.problem}</Notice>}
       <Scoreline match={match} card={card} format={bracket.format} />
+      {open && (
+        <WritersDiffer
+          match={match}
+          settle={(end) => save({ kind: 'match.end', args: { ...target, ...end } })}
+          enter={(i) => setDraft({ endIndex: i, a: [], b: [] })}
+        />
+      )}
       <EndsTable
         match={match}
         card={card}

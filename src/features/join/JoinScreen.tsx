@@ -5,7 +5,7 @@ import { useMe } from '../../local/me';
 import { isPending, useSignUp } from '../../account/signIn';
 import { AccountFields, checkAccount, emptyAccount, type AccountProblems } from '../../account/AccountFields';
 import { CheckYourMail } from '../../account/CheckYourMail';
-import { Field } from '../../ui/Field';
+import { JoinCodeField } from '../../ui/JoinCodeField';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { useOnline } from '../../local/online';
@@ -57,15 +57,11 @@ function JoinForm({ userId }: { userId: number | undefined }) {
   const next = encodeURIComponent(`/join${code ? `?code=${encodeURIComponent(code)}` : ''}`);
   return (
     <form onSubmit={submit} className="space-y-5" noValidate>
-      <Field
+      <JoinCodeField
         label="Join code"
         hint="Printed on your target sheet, or scan its QR code."
-        value={code}
-        onChange={(e) => setCode(e.target.value.toUpperCase())}
-        autoCapitalize="characters"
-        autoComplete="off"
-        spellCheck={false}
-        className="[&_input]:text-3xl [&_input]:tracking-[0.3em]"
+        code={code}
+        setCode={setCode}
       />
       {newcomer && (
         <fieldset className="space-y-4">
@@ -129,6 +125,9 @@ export function JoinScreen() {
       ) : (
         <p>Checking your sign-in…</p>
       )}
+      <Link to="/join/match" className="flex min-h-12 items-center font-bold underline">
+        Scoring an elimination match? Join it with the match’s code
+      </Link>
     </div>
   );
 }

@@ -12,7 +12,13 @@ import type {
 } from '../../../src/contract/sync';
 import type { CardSignArgs, EndRuleArgs, EndSignArgs } from '../../../src/contract/judging';
 import type { ShootOffRecordArgs } from '../../../src/contract/results';
-import type { MatchEndArgs, MatchShootOffArgs, MatchSignArgs } from '../../../src/contract/matches';
+import type {
+  MatchCountersignArgs,
+  MatchEndArgs,
+  MatchShootOffArgs,
+  MatchSignArgs,
+  MatchWriteArgs,
+} from '../../../src/contract/matches';
 import type { Db } from '../../../server/db';
 import type { TestPerson } from './people';
 
@@ -94,6 +100,15 @@ export class Phone {
   /** A change to this person's own practice log (`practice.session`, `practice.end`, `practice.delete`). */
   practice(change: Pick<Extract<Mutation, { kind: `practice.${string}` }>, 'kind' | 'args'>): Mutation {
     return this.next(change);
+  }
+
+  /** A match writer's end and an archer's countersignature on the match card. */
+  matchWrite(args: MatchWriteArgs): Mutation {
+    return this.next({ kind: 'match.write', args });
+  }
+
+  matchCountersign(args: MatchCountersignArgs): Mutation {
+    return this.next({ kind: 'match.countersign', args });
   }
 
   private next(change: Pick<Mutation, 'kind' | 'args'>): Mutation {

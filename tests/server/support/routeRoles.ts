@@ -340,6 +340,16 @@ export const ROUTES: RouteRule[] = [
     allowed: SIGNED_IN,
     ok: 200,
   },
+  // A match's code: the fixture has no match, so a signed-in caller is told no match has it.
+  // Who may join a match: tests/server/matches.writers.test.ts.
+  {
+    method: 'post',
+    route: '/api/join/match',
+    path: () => '/api/join/match',
+    body: () => ({ code: 'ZZZZZZ' }),
+    allowed: SIGNED_IN,
+    ok: 404,
+  },
   {
     method: 'get',
     route: '/api/targets/:sessionId/:targetNumber',
@@ -700,6 +710,29 @@ export const ROUTES: RouteRule[] = [
     path: (f) => `${ev(f)}/matches/999999/shoot-off`,
     body: () => ({ a: { value: '10' }, b: { value: '9' } }),
     allowed: JUDGE,
+    ok: 404,
+  },
+  {
+    method: 'get',
+    route: '/api/events/:eventId/matches/join-codes',
+    path: (f) => `${ev(f)}/matches/join-codes`,
+    allowed: ORGANIZER,
+    ok: 200,
+  },
+  {
+    method: 'put',
+    route: '/api/events/:eventId/matches/:matchId/scorers',
+    path: (f) => `${ev(f)}/matches/999999/scorers`,
+    body: () => ({ slot: 1, email: null }),
+    allowed: ORGANIZER,
+    ok: 404,
+  },
+  // A match's writers only (checked past sign-in, tests/server/matches.writers.test.ts): no such match here.
+  {
+    method: 'get',
+    route: '/api/events/:eventId/matches/:matchId/pad',
+    path: (f) => `${ev(f)}/matches/999999/pad`,
+    allowed: SIGNED_IN,
     ok: 404,
   },
   {

@@ -1,6 +1,6 @@
 import type { MatchDto } from '../../../contract/matches';
 import type { Side } from '../../../core';
-import { matchLine, matchStatus } from '../../../ui/bracketLabels';
+import { countersignedLine, matchLine, matchStatus } from '../../../ui/bracketLabels';
 import { WonMark } from '../../../ui/WonMark';
 
 /** One match: its two sides with seed, archer and score; the winner is marked by a word and a shape, never by colour alone. */
@@ -32,6 +32,7 @@ export function MatchCard({ match }: { match: MatchDto }) {
         {matchStatus(match)}
         {match.targetNumber !== null && ` · target ${match.targetNumber}`}
       </p>
+      {countersignedLine(match) && <p className="text-base">✓ {countersignedLine(match)}</p>}
     </article>
   );
 }

@@ -12,6 +12,8 @@ import { SelectField } from '../../../ui/SelectField';
 import { useCreateBracket } from '../api/createBracket';
 import { usePlaceMatch } from '../api/placeMatch';
 import { useRecordWalkover } from '../api/recordWalkover';
+import { useMatchJoinCodes } from '../api/matchJoinCodes';
+import { MatchScorers } from './MatchScorers';
 
 const SIZES = ['8', '16', '32', '64', 'everyone'] as const;
 const FORMAT_NAMES: Record<MatchFormat, string> = {
@@ -141,6 +143,7 @@ function NewBracket({ summary, division }: { summary: EventSummary; division: Di
 
 function BracketMatches({ eventId, bracket }: { eventId: number; bracket: BracketDto }) {
   const open = bracket.matches.filter((m) => !m.winner && m.sides.a && m.sides.b);
+  const codes = useMatchJoinCodes(eventId, open.length > 0, open.length).data?.codes;
   return (
     <div className="space-y-3">
       <p>
@@ -152,7 +155,13 @@ function BracketMatches({ eventId, bracket }: { eventId: number; bracket: Bracke
       ) : (
         <ol className="space-y-3">
           {open.map((m) => (
-            <OpenMatch key={m.id} eventId={eventId} match={m} rounds={bracket.rounds} />
+            <OpenMatch
+              key={m.id}
+              eventId={eventId}
+              match={m}
+              rounds={bracket.rounds}
+              code={codes?.find((c) => c.matchId === m.id)?.code}
+            />
           ))}
         </ol>
       )}
@@ -160,7 +169,17 @@ function BracketMatches({ eventId, bracket }: { eventId: number; bracket: Bracke
   );
 }
 
-function OpenMatch({ eventId, match, rounds }: { eventId: number; match: MatchDto; rounds: number }) {
+function OpenMatch({
+  eventId,
+  match,
+  rounds,
+  code,
+}: {
+  eventId: number;
+  match: MatchDto;
+  rounds: number;
+  code: string | undefined;
+}) {
   const [target, setTarget] = useState(match.targetNumber === null ? '' : String(match.targetNumber));
   const [side, setSide] = useState<Side>('b');
   const [reason, setReason] = useState<'withdrawal' | 'no-show'>('no-show');
@@ -182,6 +201,12 @@ function OpenMatch({ eventId, match, rounds }: { eventId: number; match: MatchDt
         {matchStatus(match)} ·{' '}
         {match.targetNumber === null ? 'no target yet' : `on target ${match.targetNumber}`}
       </p>
+      {code && (
+        <p data-testid={`match-code-${match.id}`}>
+          Join code for the match’s two writers (its archers, on “Join your match”):{' '}
+          <span className="font-mono text-xl font-bold tracking-widest">{code}</span>
+        </p>
+      )}
       <form onSubmit={placeIt} className="flex flex-wrap items-end gap-2">
         <Field
           label={`Target for ${title}`}
@@ -222,6 +247,7 @@ function OpenMatch({ eventId, match, rounds }: { eventId: number; match: MatchDt
           </Button>
         </div>
       </details>
+      <MatchScorers eventId={eventId} match={match} names={(s) => names(match, s)} />
       {error && <Notice tone="error">{error.message}</Notice>}
     </li>
   );

@@ -5,9 +5,9 @@ import {
   type MatchState,
   type ShootOffArrow,
   type Side,
-} from '../../core';
-import type { MatchDto, MatchEndArgs, MatchShootOffArgs } from '../../contract/matches';
-import type { OutboxRow } from '../../local/db';
+} from '../core';
+import type { MatchDto, MatchEndArgs, MatchShootOffArgs } from '../contract/matches';
+import type { OutboxRow } from './db';
 
 /** One end of the match card as the judge's phone shows it: the server's copy or this phone's own change. */
 export type CardEnd = {
