@@ -133,13 +133,10 @@ function OneTarget({
 }) {
   // Reads begun so far: an end signed on this screen leaves at once (see withoutSigned).
   const reads = useRef(0);
-  const data = useLiveQuery(
-    async () => {
-      const readNumber = (reads.current += 1);
-      return { ...(await readDesk(sessionId, userId, [target])), readNumber };
-    },
-    [sessionId, userId, target],
-  );
+  const data = useLiveQuery(async () => {
+    const readNumber = (reads.current += 1);
+    return { ...(await readDesk(sessionId, userId, [target])), readNumber };
+  }, [sessionId, userId, target]);
   const [signedAt, setSignedAt] = useState<ReadonlyMap<string, number>>(new Map());
   const onSigned = useCallback((item: DeskItem) => {
     const begun = reads.current;
