@@ -104,6 +104,7 @@ export type MutationKind = Mutation['kind'];
 export type MatchMutation = Extract<
   Mutation,
   { kind: 'match.end' | 'match.shootoff' | 'match.sign' | 'match.write' | 'match.countersign' }
+>;
 /** A change to the person's own practice log: applied by the practice services, for that person only. */
 export type PracticeMutation = Extract<
   Mutation,

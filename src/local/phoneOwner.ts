@@ -1,5 +1,4 @@
 import { useSyncExternalStore } from 'react';
-import { forgetOthers } from './forgetOthers';
 
 /**
  * The person whose data this phone holds: the last one to sign in, until they sign out. A phone
@@ -47,11 +46,15 @@ function changeOwner(next: number | undefined): Promise<void> {
   }
   listeners.forEach((l) => l());
   // One clearing after another, each run even if the one before failed.
-  // The database is imported here, not at the top: the public results pages read the owner
-  // (their query cache is the owner's) without loading Dexie.
+  // The database and the clearing (which needs it) are imported here, not at the top: the public
+  // results pages read the owner (their query cache is the owner's) without loading Dexie
+  // (tests/client/publicFirstLoad.test.ts).
   forgetting = forgetting
     .catch(() => undefined)
-    .then(async () => forgetOthers((await import('./db')).localDb(), next));
+    .then(async () => {
+      const [{ localDb }, { forgetOthers }] = await Promise.all([import('./db'), import('./forgetOthers')]);
+      await forgetOthers(localDb(), next);
+    });
   return forgetting;
 }
 

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { getRound, type ArrowValue } from '../../src/core';
 import { endKeyOf, type EndRecordRow, type JoinedTarget, type OutboxRow } from '../../src/local/db';
 import { localEnd, type LocalEnd } from '../../src/local/endFacts';
-import { deskItems, targetSummaries } from '../../src/features/desk/deskItems';
+import { deskItemKey, deskItems, targetSummaries, withoutSigned } from '../../src/features/desk/deskItems';
 
 const SIX: ArrowValue[] = ['10', '9', '9', '8', '7', '6'];
 const round = getRound('70m');
@@ -66,5 +66,24 @@ describe('the judge desk overview', () => {
       items.find((i) => i.target.archers[i.archerIndex]!.entryId === entryId)!.revision;
     expect(revisionOf(after, 10)).toBe(revisionOf(before, 10));
     expect(revisionOf(after, 20)).not.toBe(revisionOf(before, 20));
+  });
+});
+
+describe('an end signed on the desk', () => {
+  const targets = [target(1), target(2)];
+  const items = deskItems(targets, new Map([endOf(10, SIX), endOf(20, SIX)]), keyOf);
+  const signed = items.find((i) => i.target.targetNumber === 1)!;
+
+  it('leaves the desk once stored, even in a read begun before the signature was stored', () => {
+    // Reads 1 to 3 had begun when the signature was stored.
+    const signedAt = new Map([[deskItemKey(signed), 3]]);
+    for (const readNumber of [2, 3]) {
+      expect(withoutSigned(items, signedAt, readNumber).map((i) => i.target.targetNumber)).toEqual([2]);
+    }
+  });
+
+  it('comes back when a read begun after its signature still shows it (a refused signature)', () => {
+    const signedAt = new Map([[deskItemKey(signed), 3]]);
+    expect(withoutSigned(items, signedAt, 4).map((i) => i.target.targetNumber)).toEqual([1, 2]);
   });
 });

@@ -9,9 +9,15 @@ import { DESK_KIND_LABELS, type DeskItem } from './deskItems';
 import { RuleForm } from './RuleForm';
 import { signEnds } from './signEnds';
 
-type Props = { item: DeskItem; eventId: number; userId: number };
+type Props = {
+  item: DeskItem;
+  eventId: number;
+  userId: number;
+  /** Told once the end's signature is stored on the phone (not before); the same function on every render. */
+  onSigned: (item: DeskItem) => void;
+};
 
-function DeskItemCardView({ item, eventId, userId }: Props) {
+function DeskItemCardView({ item, eventId, userId, onSigned }: Props) {
   const [ruling, setRuling] = useState(false);
   const { save, problem } = useLocalSave();
   const archer = item.target.archers[item.archerIndex]!;
@@ -54,7 +60,16 @@ function DeskItemCardView({ item, eventId, userId }: Props) {
             Rule on this end
           </Button>
           {item.kind === 'to-sign' && (
-            <Button onClick={() => save(() => signEnds(userId, [item]))}>✍ Sign end</Button>
+            <Button
+              onClick={() =>
+                save(async () => {
+                  await signEnds(userId, [item]);
+                  onSigned(item);
+                })
+              }
+            >
+              ✍ Sign end
+            </Button>
           )}
         </div>
       )}
@@ -72,5 +87,6 @@ export const DeskItemCard = memo(
   (before, after) =>
     before.item.revision === after.item.revision &&
     before.eventId === after.eventId &&
-    before.userId === after.userId,
+    before.userId === after.userId &&
+    before.onSigned === after.onSigned,
 );

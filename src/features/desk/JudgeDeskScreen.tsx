@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useCallback, useRef, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { endKeyOf, localDb, type JoinedTarget } from '../../local/db';
@@ -12,7 +12,15 @@ import { SelectField } from '../../ui/SelectField';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
 import { Rejections } from '../../ui/scorecard/Rejections';
 import { useEventSummary } from '../../api/eventSummary';
-import { DESK_KIND_LABELS, deskItems, targetSummaries, type DeskItem, type DeskItemKind } from './deskItems';
+import {
+  DESK_KIND_LABELS,
+  deskItemKey,
+  deskItems,
+  targetSummaries,
+  withoutSigned,
+  type DeskItem,
+  type DeskItemKind,
+} from './deskItems';
 import { DeskItemCard } from './DeskItemCard';
 import { signEnds } from './signEnds';
 import { ImportWaiting } from './ImportWaiting';
@@ -123,29 +131,41 @@ function OneTarget({
   userId: number;
   target: JoinedTarget;
 }) {
-  const data = useLiveQuery(() => readDesk(sessionId, userId, [target]), [sessionId, userId, target]);
+  // Reads begun so far: an end signed on this screen leaves at once (see withoutSigned).
+  const reads = useRef(0);
+  const data = useLiveQuery(async () => {
+    const readNumber = (reads.current += 1);
+    return { ...(await readDesk(sessionId, userId, [target])), readNumber };
+  }, [sessionId, userId, target]);
+  const [signedAt, setSignedAt] = useState<ReadonlyMap<string, number>>(new Map());
+  const onSigned = useCallback((item: DeskItem) => {
+    const begun = reads.current;
+    setSignedAt((signed) => new Map(signed).set(deskItemKey(item), begun));
+  }, []);
   if (!data) return <p>Reading the ends on this phone…</p>;
+  const items = withoutSigned(data.items, signedAt, data.readNumber);
   return (
     <>
       <Rejections rows={data.rejected} target={target} />
       <SignAll
         userId={userId}
-        ready={data.items.filter((i) => i.kind === 'to-sign')}
+        ready={items.filter((i) => i.kind === 'to-sign')}
         suffix={` of target ${target.targetNumber}`}
       />
-      {data.items.length === 0 ? (
+      {items.length === 0 ? (
         <p>
           Nothing waits for a judge on this target. Disputes, incidents and ends to sign appear here as phones
           sync.
         </p>
       ) : (
         <ul className="space-y-3">
-          {data.items.map((item) => (
+          {items.map((item) => (
             <DeskItemCard
-              key={`${item.target.key}-${item.archerIndex}-${item.endIndex}`}
+              key={deskItemKey(item)}
               item={item}
               eventId={eventId}
               userId={userId}
+              onSigned={onSigned}
             />
           ))}
         </ul>

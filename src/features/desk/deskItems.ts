@@ -17,6 +17,25 @@ export type DeskItem = {
   revision: string;
 };
 
+/** One end's card on the desk, the same across reads. */
+export const deskItemKey = (item: Pick<DeskItem, 'target' | 'archerIndex' | 'endIndex'>): string =>
+  `${item.target.key}-${item.archerIndex}-${item.endIndex}`;
+
+/**
+ * The items a read shows, less the ends signed since that read began. A signed end leaves the desk
+ * as soon as its signature is stored, without waiting for the desk's ends to be read again; a read
+ * begun after the signature was stored is the truth again (a refused signature brings the end back).
+ * `signedAt`: by item key, how many reads had begun when its signature was stored; `readNumber`:
+ * this read's own number in that count.
+ */
+export function withoutSigned<T extends Pick<DeskItem, 'target' | 'archerIndex' | 'endIndex'>>(
+  items: T[],
+  signedAt: ReadonlyMap<string, number>,
+  readNumber: number,
+): T[] {
+  return items.filter((item) => (signedAt.get(deskItemKey(item)) ?? -1) < readNumber);
+}
+
 /** Most urgent first: a judge's decision before a signature. */
 const KIND_ORDER: DeskItemKind[] = ['dispute', 'incident', 'mismatch', 'to-sign'];
 

@@ -1,0 +1,67 @@
+import { existsSync, readFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+/**
+ * The public results pages load without the phone's database: a spectator's first load stays
+ * small (goal ≤ 110 KiB gzip, `scripts/report-route-sizes.ts`). The bundler puts every module a
+ * page imports statically into its first load, so Dexie must not be reachable from these pages
+ * through static imports (a dynamic `import()` is fine: it loads only when it runs).
+ */
+const PUBLIC_FIRST_LOAD = [
+  'src/main.tsx',
+  'src/features/results/ResultsScreen.tsx',
+  'src/features/results/FieldResultsScreen.tsx',
+  // The query cache, which lazyScreen opens with every screen that reads server data.
+  'src/app/ServerData.tsx',
+];
+
+/** Specifiers a file imports as values at load time (not `import type`, not `import()`). */
+function staticImports(source: string): string[] {
+  const found: string[] = [];
+  const statement = /^\s*(?:import|export)\s+(type\s+)?(?:[^'";]*?\s+from\s+)?['"]([^'"]+)['"]/gm;
+  for (const [, typeOnly, specifier] of source.matchAll(statement)) {
+    if (!typeOnly) found.push(specifier!);
+  }
+  return found;
+}
+
+function resolveFile(from: string, specifier: string): string | undefined {
+  const base = join(dirname(from), specifier);
+  return [base, `${base}.ts`, `${base}.tsx`, join(base, 'index.ts')].find(
+    (f) => existsSync(f) && f.match(/\.tsx?$/),
+  );
+}
+
+/** The packages reached from `roots` through static imports, each with the chain of files that reaches it. */
+function packagesReached(roots: string[]): Map<string, string[]> {
+  const packages = new Map<string, string[]>();
+  const seen = new Set<string>();
+  const visit = (file: string, chain: string[]) => {
+    if (seen.has(file)) return;
+    seen.add(file);
+    for (const specifier of staticImports(readFileSync(file, 'utf8'))) {
+      if (specifier.startsWith('.')) {
+        const next = resolveFile(file, specifier);
+        if (next) visit(next, [...chain, next]);
+      } else if (!packages.has(specifier)) packages.set(specifier, chain);
+    }
+  };
+  for (const root of roots) visit(root, [root]);
+  return packages;
+}
+
+describe('the public results pages', () => {
+  it('reach no phone database (Dexie) through static imports', () => {
+    const reached = packagesReached(PUBLIC_FIRST_LOAD);
+    const dexie = [...reached].filter(([name]) => name.startsWith('dexie'));
+    expect(dexie.map(([name, chain]) => `${name} via ${chain.join(' → ')}`)).toEqual([]);
+  });
+
+  it('are walked far enough to see the packages they do load', () => {
+    // A walker that stopped early would pass the check above without looking.
+    const reached = packagesReached(PUBLIC_FIRST_LOAD);
+    expect(reached.has('react-dom/client')).toBe(true);
+    expect(reached.has('@tanstack/react-query')).toBe(true);
+  });
+});
