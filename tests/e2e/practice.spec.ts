@@ -27,15 +27,17 @@ test('with no account and no signal, a practice session plotted arrow by arrow i
   await page.getByLabel('Arrows per end').selectOption('6');
   await page.getByLabel('Ends', { exact: true }).fill('2');
   await page.getByLabel('Note (optional)').fill('Club hall, new tab');
+  await page.getByLabel('Arrow shaft diameter (mm)').fill('8,5');
   await page.getByRole('button', { name: 'Start free practice' }).click();
   await expect(page.getByRole('heading', { level: 1 })).toContainText('Free practice, 18 m');
   await expect(page.getByRole('heading', { name: /End 1 of 2/ })).toBeVisible();
   await page.getByRole('button', { name: 'Plot on the face' }).click();
+  await expect(page.getByText('Shaft 8.5 mm')).toBeVisible();
   await checkA11y(page, 'practice session, first end');
   await page.screenshot({ path: '.tmp/screens/practice-plot-start.png', fullPage: true });
 
   for (const [i, plot] of PLOTS.entries()) {
-    if (i === 2) await page.getByRole('button', { name: 'Closer look (inner zones)' }).click();
+    if (i === 2) await page.getByRole('button', { name: 'Zoom in' }).click();
     if (i === 11) {
       // The last arrow by keyboard: the mark starts at the centre, each arrow key moves it a
       // quarter zone (5 mm on the 40 cm face), Enter keeps it: (40, -15) mm.
@@ -58,7 +60,7 @@ test('with no account and no signal, a practice session plotted arrow by arrow i
       await page.mouse.click(target.x, target.y);
     }
     if (i === 3) {
-      await checkA11y(page, 'practice session, a mark waiting, closer look');
+      await checkA11y(page, 'practice session, a mark waiting, zoomed in');
       await page.screenshot({ path: '.tmp/screens/practice-plot-mark.png', fullPage: true });
       await page.getByRole('button', { name: 'Whole face' }).click();
     }
@@ -118,4 +120,51 @@ test('a catalog round starts in two taps and takes values from the pad’s keys 
   await expect(page.getByTestId('practice-summary')).toContainText('29 from 4 arrows');
   await checkA11y(page, 'practice session, typing values');
   await page.screenshot({ path: '.tmp/screens/practice-keys.png', fullPage: true });
+});
+
+test('two fingers zoom the plotting face, and a finger dragging a mark shows it magnified', async ({
+  page,
+  context,
+}) => {
+  await page.goto('/practice');
+  await page.getByRole('button', { name: 'Start free practice' }).click();
+  await page.getByRole('button', { name: 'Plot on the face' }).click();
+  const face = page.getByTestId('plot-face');
+  const width = async () => Number((await face.getAttribute('viewBox'))?.split(' ')[2]);
+  const whole = await width();
+  // Touches as a phone sends them (the Pixel 7 context has a touch screen).
+  const cdp = await context.newCDPSession(page);
+  const touch = (type: 'touchStart' | 'touchMove' | 'touchEnd', points: { x: number; y: number }[]) =>
+    cdp.send('Input.dispatchTouchEvent', { type, touchPoints: points.map((p, id) => ({ ...p, id })) });
+
+  const c = await pixelsOf(page, 0, 0);
+  await touch('touchStart', [{ x: c.x - 30, y: c.y }]);
+  await touch('touchStart', [
+    { x: c.x - 30, y: c.y },
+    { x: c.x + 30, y: c.y },
+  ]);
+  for (const spread of [45, 60, 75, 90]) {
+    await touch('touchMove', [
+      { x: c.x - spread, y: c.y },
+      { x: c.x + spread, y: c.y },
+    ]);
+  }
+  await touch('touchEnd', []);
+  // Fingers three times as far apart: a third of the face's width on show, and no mark placed.
+  await expect.poll(width).toBeCloseTo(whole / 3, 0);
+  await expect(page.getByTestId('keep-arrow')).toHaveText('Tap the face first');
+
+  const at = await pixelsOf(page, 10, 0);
+  await touch('touchStart', [at]);
+  await touch('touchMove', [{ x: at.x + 5, y: at.y }]);
+  await expect(page.getByTestId('plot-loupe')).toBeVisible();
+  await page.screenshot({ path: '.tmp/screens/practice-plot-loupe.png' });
+  await touch('touchEnd', []);
+  await expect(page.getByTestId('plot-loupe')).toBeHidden();
+  await expect(page.getByTestId('keep-arrow')).toHaveText(/Keep arrow: (9|10|X)/);
+
+  await face.focus();
+  await page.keyboard.press('0');
+  await expect.poll(width).toBeCloseTo(whole, 0);
+  await checkA11y(page, 'practice session, plotting face after a pinch');
 });

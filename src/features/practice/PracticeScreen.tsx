@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { BOW_STYLES, ROUND_CATALOG, roundArrowCount } from '../../core';
 import { countedValues, practiceTally } from '../../core/practice';
+import { SHAFT_DIAMETER_MM, readShaftDiameter } from '../../core/shaft';
 import type { BowStyle, FaceId, Venue } from '../../core';
 import { usePhoneOwner } from '../../local/phoneOwner';
 import { localDb } from '../../local/db';
@@ -27,8 +28,7 @@ import {
 import { storedTournamentCards, tournamentTitle, useFreshTournamentCards } from './tournamentCards';
 
 const BOW_KEY = 'ringcall.practiceBowStyle';
-/** A typical target shaft (mm); the plotting rule judges a line touch at the shaft's edge. */
-const SHAFT_DIAMETER_MM = 5.5;
+const SHAFT_KEY = 'ringcall.practiceShaftMm';
 const INDOOR_FACES: ReadonlySet<FaceId> = new Set(['full-40', 'triple-40', 'full-60']);
 
 function savedBowStyle(): BowStyle {
@@ -37,6 +37,16 @@ function savedBowStyle(): BowStyle {
     return BOW_STYLES.find((b) => b === saved) ?? 'recurve';
   } catch {
     return 'recurve';
+  }
+}
+
+/** The last shaft diameter used on this phone (an archer shoots the same arrows for weeks). */
+function savedShaft(): string {
+  try {
+    const saved = readShaftDiameter(localStorage.getItem(SHAFT_KEY) ?? '');
+    return String(saved.ok ? saved.mm : SHAFT_DIAMETER_MM.default);
+  } catch {
+    return String(SHAFT_DIAMETER_MM.default);
   }
 }
 
@@ -62,6 +72,8 @@ function StartPractice() {
   const navigate = useNavigate();
   const [bowStyle, setBowStyle] = useState<BowStyle>(savedBowStyle);
   const [note, setNote] = useState('');
+  const [shaft, setShaft] = useState(savedShaft);
+  const shaftReading = readShaftDiameter(shaft);
   const [free, setFree] = useState({
     distanceM: '18',
     faceId: 'full-40' as FaceId,
@@ -79,11 +91,17 @@ function StartPractice() {
     }
   };
   const start = (session: Omit<NewPracticeSession, 'bowStyle' | 'note' | 'shaftDiameterMm'>) => {
+    if (!shaftReading.ok) return setError(shaftReading.message);
     const trimmed = note.trim().slice(0, 200);
+    try {
+      localStorage.setItem(SHAFT_KEY, String(shaftReading.mm));
+    } catch {
+      // Private mode: the default again next visit.
+    }
     startPracticeSession({
       ...session,
       bowStyle,
-      shaftDiameterMm: SHAFT_DIAMETER_MM,
+      shaftDiameterMm: shaftReading.mm,
       ...(trimmed ? { note: trimmed } : {}),
     }).then(
       (id) => navigate(`/practice/${id}`),
@@ -133,6 +151,14 @@ function StartPractice() {
         value={note}
         maxLength={200}
         onChange={(e) => setNote(e.target.value)}
+      />
+      <Field
+        label="Arrow shaft diameter (mm)"
+        hint={`For plotting: a shaft touching a line scores the higher zone. ${SHAFT_DIAMETER_MM.min} to ${SHAFT_DIAMETER_MM.max} mm.`}
+        inputMode="decimal"
+        value={shaft}
+        error={shaftReading.ok ? undefined : shaftReading.message}
+        onChange={(e) => setShaft(e.target.value)}
       />
       <h3 className="text-xl font-bold">A round</h3>
       <ul className="space-y-2">

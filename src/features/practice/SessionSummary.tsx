@@ -44,7 +44,7 @@ function Group({ part }: { part: DistancePart }) {
       <TargetFace
         faceId={faceId}
         singleSpot
-        view={{ xMm: 0, yMm: 0, radiusMm: viewRadius }}
+        view={{ x: -viewRadius, y: -viewRadius, width: 2 * viewRadius, height: 2 * viewRadius }}
         label={`Plotted arrows on the ${face.label}, with the group centre ${describeCentre(group)} and a circle of ${Math.round(group.spreadMm)} mm around it`}
         className="max-w-sm"
       >

@@ -1,6 +1,7 @@
 import type { ReactNode, Ref, SVGProps } from 'react';
 import { getFace } from '../../core';
 import type { FaceId, ZoneColour } from '../../core';
+import type { Rect } from './faceZoom';
 
 // The sport's own face colours, used only where a face is drawn (shared/look.md).
 const FILL: Record<ZoneColour, string> = {
@@ -57,8 +58,8 @@ type Props = Omit<SVGProps<SVGSVGElement>, 'ref'> & {
   /** Draw one spot only (a group measured from its spot's centre). */
   singleSpot?: boolean;
   label: string;
-  /** Show only this square around (x, y), in mm, instead of the whole face (a closer look). */
-  view?: { xMm: number; yMm: number; radiusMm: number } | undefined;
+  /** Show only this part of the face, in mm, instead of all of it (zoomed in). */
+  view?: Rect | undefined;
   children?: ReactNode;
   className?: string;
 };
@@ -73,14 +74,7 @@ export function TargetFace({
   className = '',
   ...svg
 }: Props) {
-  const frame = view
-    ? {
-        x: view.xMm - view.radiusMm,
-        y: view.yMm - view.radiusMm,
-        width: 2 * view.radiusMm,
-        height: 2 * view.radiusMm,
-      }
-    : faceFrame(faceId, singleSpot);
+  const frame = view ?? faceFrame(faceId, singleSpot);
   const centres = singleSpot ? [0] : getFace(faceId).spotCentresMm;
   return (
     <svg
