@@ -3,8 +3,8 @@
  * page's IndexedDB, then the screen drawn (tap on "Progress over weeks" → every chart drawn) in
  * Chromium at 4× CPU throttling (`Emulation.setCPUThrottlingRate`), Pixel 7 viewport. Prints the
  * script time Chromium counts while drawing (`Performance.getMetrics` ScriptDuration; goal
- * ≤ 100 ms), the first time (the screen's and the chart library's chunks fetched and run) and
- * again with them loaded. Needs a built client (`npm run build`) and Debian's Chromium.
+ * ≤ 100 ms), the first time (1.5 s after the log shows: the progress screen's chunk fetched while
+ * the log was idle, its code run for the first time) and again. Needs a built client (`npm run build`) and Debian's Chromium.
  */
 import { cpus, loadavg } from 'node:os';
 import { chromium, devices, type CDPSession } from '@playwright/test';
@@ -18,6 +18,8 @@ const SESSIONS = 300;
 const ARROWS = 20_000;
 const THROTTLE = 4;
 const RUNS = 6;
+/** Before the first tap (BENCH_PAUSE_MS=0: tapped as soon as the link shows). */
+const PAUSE_MS = Number(process.env['BENCH_PAUSE_MS'] ?? 1500);
 
 const server = await startBenchServer(4475, '.tmp/bench-progress');
 // The server child would keep this process, and `npm run bench`, waiting for ever.
@@ -108,6 +110,8 @@ try {
   await page.reload();
   const link = page.getByRole('link', { name: 'Progress over weeks' });
   await link.waitFor();
+  // A person reads the log before tapping: time for its idle fetch of the progress chunk.
+  await page.waitForTimeout(PAUSE_MS);
 
   const cdp = await context.newCDPSession(page);
   await cdp.send('Performance.enable');
@@ -152,7 +156,7 @@ try {
     `progress screen, ${SESSIONS} sessions, ${stored} arrows in IndexedDB, ${charts} charts, CPU ${THROTTLE}× slower, Pixel 7 viewport:`,
   );
   console.log(
-    `  script time drawing it (tap → every chart drawn): first ${scriptMs[0]!.toFixed(0)} ms (chunks fetched and run), then p50 ${percentile(warm, 50).toFixed(0)} ms, max ${Math.max(...warm).toFixed(0)} ms over ${warm.length} (goal ≤ 100 ms)`,
+    `  script time drawing it (tap → every chart drawn): first ${scriptMs[0]!.toFixed(0)} ms (the screen's code run for the first time), then p50 ${percentile(warm, 50).toFixed(0)} ms, max ${Math.max(...warm).toFixed(0)} ms over ${warm.length} (goal ≤ 100 ms)`,
   );
   console.log(
     `  wall time: first ${wallMs[0]} ms, then p50 ${percentile(warmWall, 50).toFixed(0)} ms; machine load (1-minute average, ${cpus().length} cores): ${loadavg()[0]!.toFixed(1)}`,

@@ -48,7 +48,8 @@ export function PlotFace({ setup, placed, onKeep }: Props) {
   const zoom = zoomed?.faceId === setup.faceId ? zoomed.zoom : wholeFace(frame);
   const setZoom = (next: Zoom) => setZoomed({ faceId: setup.faceId, zoom: next });
   const view = zoomRect(frame, zoom);
-  const markRadius = Math.max(setup.shaftDiameterMm / 2, view.width / 170);
+  // Large enough to see on the whole face; zoomed in, the shaft's own size.
+  const markRadius = Math.max(setup.shaftDiameterMm / 2, view.width / 80);
   const pending = mark ? plotPracticeArrow(setup, mark.xMm, mark.yMm) : undefined;
 
   const screenToMm = () => svg.current?.getScreenCTM()?.inverse();
@@ -77,6 +78,8 @@ export function PlotFace({ setup, placed, onKeep }: Props) {
   };
 
   const onPointerDown = (e: PointerEvent<SVGSVGElement>) => {
+    // A first finger starts afresh, should a lifted finger's event have been lost.
+    if (e.isPrimary) pointers.current.clear();
     pointers.current.set(e.pointerId, { x: e.clientX, y: e.clientY });
     e.currentTarget.setPointerCapture(e.pointerId);
     if (pointers.current.size === 1) {
