@@ -110,7 +110,7 @@ try {
   await page.reload();
   const link = page.getByRole('link', { name: 'Progress over weeks' });
   await link.waitFor();
-  // A person reads the log before tapping: time for its idle fetch of the progress chunk.
+  // A person reads the log before tapping (BENCH_PAUSE_MS=0: the tap at once).
   await page.waitForTimeout(PAUSE_MS);
 
   const cdp = await context.newCDPSession(page);

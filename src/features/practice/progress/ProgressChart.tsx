@@ -2,13 +2,13 @@ import { useEffect, useRef } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import type { ProgressSeries } from '../../../core/practice/progress';
-import { perArrow } from './progressData';
+import { perArrow, weeklyLine } from './progressData';
 
 const shortDay = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
-const dayOf = (weekStart: string) => shortDay.format(new Date(`${weekStart}T00:00:00Z`));
+const dayOf = (seconds: number) => shortDay.format(new Date(seconds * 1000));
 
 /**
- * The weekly average per arrow of one distance and face, drawn with uPlot (this file is the only
+ * The weekly average per arrow of one distance and face on a time axis, drawn with uPlot (this file is the only
  * one that imports it, loaded after the progress screen). The best session is a larger ring on
  * its week. Hidden from screen readers: the table beside it holds the same figures.
  */
@@ -17,14 +17,13 @@ export function ProgressChart({ series }: { series: ProgressSeries }) {
   useEffect(() => {
     const el = box.current;
     if (!el) return;
-    // One step a week with practice (the table gives every date): a year stays readable on a phone.
-    const xs = series.weeks.map((_w, i) => i);
-    const labelEvery = Math.max(1, Math.ceil(series.weeks.length / 4));
-    const averages = series.weeks.map((w) => w.averagePerArrow);
-    const best = series.weeks.map((w) =>
-      w.weekStart === series.best.weekStart ? series.best.averagePerArrow : null,
-    );
-    const ys = [...averages, series.best.averagePerArrow];
+    // Weeks placed by date; a week with no practice breaks the line (the table gives every week).
+    const { xs, ys: averages } = weeklyLine(series.weeks);
+    const bestAt = Date.parse(`${series.best.weekStart}T00:00:00Z`) / 1000;
+    const best = xs.map((x) => (x === bestAt ? series.best.averagePerArrow : null));
+    const week = 7 * 24 * 60 * 60;
+    const labelEvery = Math.max(1, Math.ceil(xs.length / 4));
+    const ys = [...series.weeks.map((w) => w.averagePerArrow), series.best.averagePerArrow];
     const low = Math.max(0, Math.floor(Math.min(...ys)) - 1);
     const high = Math.min(11, Math.ceil(Math.max(...ys)) + 0.5);
     const ink = '#123047';
@@ -35,16 +34,16 @@ export function ProgressChart({ series }: { series: ProgressSeries }) {
         legend: { show: false },
         cursor: { show: false },
         scales: {
-          // Half a step either side, so a lone week stands in the middle.
-          x: { time: false, auto: false, range: [-0.5, xs.length - 0.5] },
+          // Half a week either side, so a lone week stands in the middle. Labels are our own (UTC).
+          x: { time: false, auto: false, range: [xs[0]! - week / 2, xs[xs.length - 1]! + week / 2] },
           y: { range: [low, high] },
         },
         axes: [
           {
             stroke: ink,
             font: '14px "Atkinson Hyperlegible", sans-serif',
-            splits: () => xs.filter((i) => i % labelEvery === 0),
-            values: (_u, splits) => splits.map((i) => dayOf(series.weeks[i]?.weekStart ?? '')),
+            splits: () => xs.filter((_x, i) => i % labelEvery === 0),
+            values: (_u, splits) => splits.map(dayOf),
           },
           {
             stroke: ink,
@@ -59,7 +58,8 @@ export function ProgressChart({ series }: { series: ProgressSeries }) {
             label: 'Average per arrow',
             stroke: '#1f5f3a',
             width: 3,
-            points: { size: 9, fill: '#1f5f3a', stroke: '#1f5f3a' },
+            // Points always drawn: a week alone between gaps has no line to show it.
+            points: { show: true, size: 9, fill: '#1f5f3a', stroke: '#1f5f3a' },
           },
           {
             label: 'Best session',

@@ -17,3 +17,24 @@ const localDay = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'shor
 export const dayLabel = (iso: string): string => localDay.format(new Date(iso));
 
 export const perArrow = (n: number) => n.toFixed(2);
+
+const WEEK_SECONDS = 7 * 24 * 60 * 60;
+const secondsOf = (weekStart: string) => Date.parse(`${weekStart}T00:00:00Z`) / 1000;
+
+/**
+ * Weeks on a time axis: every week from the first with practice to the last, in seconds (UTC
+ * Mondays are exactly a week apart), with no average where nobody shot, so the line breaks there
+ * instead of joining weeks months apart as if they were neighbours.
+ */
+export function weeklyLine(weeks: readonly { weekStart: string; averagePerArrow: number }[]): {
+  xs: number[];
+  ys: (number | null)[];
+} {
+  if (weeks.length === 0) return { xs: [], ys: [] };
+  const byWeek = new Map(weeks.map((w) => [secondsOf(w.weekStart), w.averagePerArrow]));
+  const first = secondsOf(weeks[0]!.weekStart);
+  const last = secondsOf(weeks[weeks.length - 1]!.weekStart);
+  const xs: number[] = [];
+  for (let x = first; x <= last; x += WEEK_SECONDS) xs.push(x);
+  return { xs, ys: xs.map((x) => byWeek.get(x) ?? null) };
+}
