@@ -261,7 +261,6 @@ export type ChangeDto =
 
 /** A change of the person's own practice log (see docs/practice.md). */
 export type PracticeChangeDto = Extract<ChangeDto, { type: 'practice' | 'practice-end' | 'practice-del' }>;
-export const isPracticeChange = (c: ChangeDto): c is PracticeChangeDto => c.type.startsWith('practice');
 
 export type PullResponse = { changes: ChangeDto[]; cursor: number; hasMore: boolean };
 

@@ -1,6 +1,7 @@
 import { Dexie } from 'dexie';
 import type { PracticeEndDto, PracticeSessionDto } from '../contract/practice';
-import { isPracticeChange, type ChangeDto } from '../contract/sync';
+import type { ChangeDto } from '../contract/sync';
+import { isPracticeChange } from '../contract/practiceChange';
 import { progressParts } from '../core/practice/progressParts';
 import { NO_ACCOUNT, type LocalDb, type PracticeEndRow, type PracticeSessionRow } from './db';
 import { clientIdFor, recordChangesInTransaction, type NewChange } from './outbox';

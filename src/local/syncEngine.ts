@@ -1,11 +1,5 @@
-import {
-  isPracticeChange,
-  type ChangeDto,
-  type MutationResult,
-  type PullResponse,
-  type PushRequest,
-  type PushResponse,
-} from '../contract/sync';
+import type { ChangeDto, MutationResult, PullResponse, PushRequest, PushResponse } from '../contract/sync';
+import { isPracticeChange } from '../contract/practiceChange';
 import {
   cardKeyOf,
   endKeyOf,
@@ -19,7 +13,6 @@ import {
   type SettlementRow,
 } from './db';
 import { clientIdFor, toMutation } from './outbox';
-import { applyPulledPractice, sendOlderPractice } from './practiceSync';
 import type { DeviceKeyRequest } from '../contract/deviceKeys';
 import { ensureDeviceKeyRegistered, type KeyRegistration } from './deviceKey';
 
@@ -52,6 +45,8 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
   // phone hears of it from the push just after).
   if (transport.registerKey)
     await ensureDeviceKeyRegistered(db, clientId, transport.registerKey).catch(() => undefined);
+  // Loaded with the first sync, not with the pad: a writer's first paint does not wait for practice code.
+  const { applyPulledPractice, sendOlderPractice } = await import('./practiceSync');
   await sendOlderPractice(db, userId, clientId);
   const outcomes = new Map<number, MutationResult>();
   let pushed = 0;

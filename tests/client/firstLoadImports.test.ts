@@ -65,3 +65,28 @@ describe('the public results pages', () => {
     expect(reached.has('@tanstack/react-query')).toBe(true);
   });
 });
+
+/**
+ * The pad's first load (goal ≤ 130 KiB gzip): the shell, the app layout with the sync loop, the
+ * query cache and the pad. The API's zod schemas (`src/contract/*`) are the server's and the
+ * forms' business: imported as values by the phone's sync code they once added ~26 KiB gzip here.
+ */
+const PAD_FIRST_LOAD = [
+  'src/main.tsx',
+  'src/app/AppLayout.tsx',
+  'src/app/ServerData.tsx',
+  'src/features/pad/PadScreen.tsx',
+];
+
+describe('the pad', () => {
+  it('reaches no zod schema through static imports', () => {
+    const zod = [...packagesReached(PAD_FIRST_LOAD)].filter(([name]) => name === 'zod');
+    expect(zod.map(([name, chain]) => `${name} via ${chain.join(' → ')}`)).toEqual([]);
+  });
+
+  it('is walked far enough to see the packages it does load', () => {
+    const reached = packagesReached(PAD_FIRST_LOAD);
+    expect(reached.has('dexie')).toBe(true);
+    expect(reached.has('react-router-dom')).toBe(true);
+  });
+});
