@@ -130,6 +130,10 @@ test('two archers score their match on their phones, the judge settles a mismatc
     await page.getByRole('button', { name: 'Join the match' }).click();
     await expect(page.getByRole('heading', { name: 'Match pad' })).toBeVisible();
     await expect(page.getByRole('heading', { name: 'End 1' })).toBeVisible();
+    // Scoring happens here: the range cautions are shown, deferring to the judges.
+    await expect(page.getByRole('complementary', { name: 'Range safety' })).toContainText(
+      "The event's judges and the governing body's rules always decide.",
+    );
     pads.push(page);
   }
   const [padA, padB] = pads as [Page, Page];

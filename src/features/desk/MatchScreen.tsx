@@ -14,6 +14,7 @@ import { Field } from '../../ui/Field';
 import { Notice } from '../../ui/Notice';
 import { ArrowKeypad } from '../../ui/scorecard/ArrowKeypad';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
+import { SafetyNote } from '../../ui/SafetyNote';
 import { RefusedNotice } from '../../ui/scorecard/RefusedNotice';
 import { JudgeOnly } from './JudgeOnly';
 import { WritersDiffer } from './WritersDiffer';
@@ -330,6 +331,7 @@ export function MatchScreen() {
       <Link to={`/desk/${eventId}/matches`} className="inline-flex min-h-12 items-center font-bold underline">
         ◂ Matches
       </Link>
+      <SafetyNote compact />
       <JudgeOnly eventId={eventId} only="Only the event's judges score matches.">
         {(userId) => <MatchPanel eventId={eventId} matchId={matchId} userId={userId} />}
       </JudgeOnly>

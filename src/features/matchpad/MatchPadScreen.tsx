@@ -28,6 +28,7 @@ import {
 import { ArrowKeypad } from '../../ui/scorecard/ArrowKeypad';
 import { RefusedNotice } from '../../ui/scorecard/RefusedNotice';
 import { SyncLine } from '../../ui/scorecard/SyncLine';
+import { SafetyNote } from '../../ui/SafetyNote';
 import { useMatchPadRefresh } from './api/matchPad';
 
 const STATUS_WORDS: Record<WriterEndStatus, string> = {
@@ -192,6 +193,7 @@ export function MatchPadScreen() {
   return (
     <div className="space-y-4">
       <h1 className="text-3xl font-bold">Match pad</h1>
+      <SafetyNote compact />
       <RequireSignIn>
         {(me) => <MatchPadPanel eventId={eventId} matchId={matchId} userId={me.user.id} />}
       </RequireSignIn>
