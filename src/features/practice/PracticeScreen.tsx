@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { BOW_STYLES, ROUND_CATALOG, roundArrowCount } from '../../core';
 import { countedValues, practiceTally } from '../../core/practice';
@@ -17,6 +17,7 @@ import { SafetyNote } from '../../ui/SafetyNote';
 import { BOW_STYLE_LABELS, sessionTitle } from './plan';
 import { useStored } from './useStored';
 import { practiceCsv } from './practiceCsv';
+import { warmProgress } from './progress/loadProgress';
 import {
   deletePracticeSession,
   ownPractice,
@@ -52,6 +53,7 @@ function savedShaft(): string {
 
 /** The practice log: start a session in two taps, and the sessions kept on this phone. */
 export function PracticeScreen() {
+  useEffect(warmProgress, []);
   return (
     <div className="space-y-6">
       <header className="space-y-2">
