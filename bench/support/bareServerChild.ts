@@ -7,7 +7,7 @@
  * Usage: node --import tsx bench/support/bareServerChild.ts
  */
 import http from 'node:http';
-import type { AddressInfo } from 'node:net';
+import { serveBenchChild } from './benchServerChild';
 
 type Change = { id: string; seq: number; args: object };
 
@@ -38,14 +38,4 @@ function answer(res: http.ServerResponse, value: object): void {
   res.writeHead(200, { 'content-type': 'application/json', 'content-length': Buffer.byteLength(body) });
   res.end(body);
 }
-server.listen(0, '127.0.0.1', () => {
-  process.stdout.write(`${JSON.stringify({ port: (server.address() as AddressInfo).port })}\n`);
-});
-process.on('message', (message) => {
-  if (message === 'cpu') process.send!(process.cpuUsage());
-});
-process.on('SIGTERM', () => {
-  server.close();
-  server.closeAllConnections();
-  process.exit(0);
-});
+serveBenchChild(server);

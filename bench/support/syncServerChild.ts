@@ -6,7 +6,8 @@
  * Usage: node --import tsx bench/support/syncServerChild.ts <database file>
  */
 import { dirname } from 'node:path';
-import type { AddressInfo } from 'node:net';
+import http from 'node:http';
+import { serveBenchChild } from './benchServerChild';
 import { createApp } from '../../server/app';
 import { migrate, openDb } from '../../server/db';
 import { loadSigningKeys } from '../../server/services/signing/serverKeys';
@@ -27,15 +28,4 @@ const app = createApp({
   // As deployed (LOG_REQUESTS defaults to on; the push and the pull are not in the request log).
   logRequests: true,
 });
-const server = app.listen(0, '127.0.0.1', () => {
-  process.stdout.write(`${JSON.stringify({ port: (server.address() as AddressInfo).port })}\n`);
-});
-// The bench asks for the CPU time used so far, to tell the server's own cost from a busy machine's.
-process.on('message', (message) => {
-  if (message === 'cpu') process.send!(process.cpuUsage());
-});
-process.on('SIGTERM', () => {
-  server.close();
-  server.closeAllConnections();
-  void db.destroy().then(() => process.exit(0));
-});
+serveBenchChild(http.createServer(app), () => db.destroy());

@@ -1,9 +1,8 @@
 import { expect, test } from '@playwright/test';
 import { DEMO_JUDGES, DEMO_ORGANIZER } from '../../server/demo/demoPeople';
 import { checkA11y } from './support/a11y';
-import { apiPhone, token } from './support/apiPhone';
-import { readDemoRows } from './support/demoDb';
-import { apiCall, setUpSmallEvent } from './support/smallEvent';
+import { token } from './support/apiPhone';
+import { apiCall, qualificationWriters, setUpSmallEvent } from './support/smallEvent';
 
 /*
  * A four-archer bracket seen on a spectator's phone: qualification shot through the field loop
@@ -12,6 +11,7 @@ import { apiCall, setUpSmallEvent } from './support/smallEvent';
  * the bracket moving on and the final places.
  */
 
+const ARCHERS = ['Ines Arbour', 'Jonah Quill', 'Kit Fairway', 'Lena Marsh'];
 const QUALIFICATION = [
   ['10', '10', '10'],
   ['10', '10', '9'],
@@ -37,34 +37,20 @@ test('a spectator follows a four-archer bracket to its final places on a phone',
       className: 'Evening',
       sessionName: 'Evening qualification',
       roundId: 'bracket-e2e',
-      archers: ['Ines Arbour', 'Jonah Quill', 'Kit Fairway', 'Lena Marsh'],
+      archers: ARCHERS,
     },
   );
   await apiCall(request, organizer, 'patch', `/api/events/${eventId}/results-settings`, { published: true });
 
   // Two writers enter each archer's end, the same values: agreed ends make the standings.
-  const archers = readDemoRows<{ entry_id: number; target_number: number; name: string }>(
-    `select t.entry_id, t.target_number, e.name from target_assignments t join entries e on e.id = t.entry_id
-     where t.session_id = ? order by e.name`,
+  const { entries, writeEnds } = await qualificationWriters(
+    request,
+    { organizer, judge },
     sessionId,
+    'bracket',
+    (name) => QUALIFICATION[ARCHERS.indexOf(name)]!,
   );
-  const codes = readDemoRows<{ code: string; target_number: number }>(
-    'select code, target_number from join_codes where session_id = ? and revoked_at is null',
-    sessionId,
-  );
-  for (const [slot, bearer] of [
-    [1, organizer],
-    [2, judge],
-  ] as const) {
-    const phone = apiPhone(request, bearer, `bracket-w${slot}`);
-    for (const c of codes) await phone.join(c.code, `writer${slot}`);
-    await phone.push(
-      archers.map((a, i) => ({
-        kind: 'end.write',
-        args: { sessionId, entryId: a.entry_id, endIndex: 0, slot, arrows: QUALIFICATION[i], flags: [] },
-      })),
-    );
-  }
+  await writeEnds(entries);
 
   // Seeded 1 Ines … 4 Lena; semi-finals 1–4 and 2–3.
   let body = await apiCall(request, organizer, 'post', `/api/events/${eventId}/brackets`, {

@@ -1,10 +1,9 @@
 import { expect, test, type Page } from '@playwright/test';
 import { DEMO_JUDGES, DEMO_ORGANIZER } from '../../server/demo/demoPeople';
 import { checkA11y } from './support/a11y';
-import { apiPhone, token } from './support/apiPhone';
-import { readDemoRows } from './support/demoDb';
+import { token } from './support/apiPhone';
 import { signedInPhone } from './support/signIn';
-import { setUpSmallEvent } from './support/smallEvent';
+import { qualificationWriters, setUpSmallEvent } from './support/smallEvent';
 
 /*
  * The afternoon in the app: the organizer creates a four-archer bracket on the event screen (first
@@ -56,36 +55,13 @@ test('the organizer creates a bracket, the judge scores matches offline on the p
       archers: ARCHERS,
     },
   );
-  const archers = readDemoRows<{ entry_id: number; name: string }>(
-    `select t.entry_id, e.name from target_assignments t join entries e on e.id = t.entry_id
-     where t.session_id = ? order by e.name`,
+  const { entries: archers, writeEnds } = await qualificationWriters(
+    request,
+    { organizer, judge },
     sessionId,
+    'match-day',
+    (name) => QUALIFICATION[ARCHERS.indexOf(name)]!,
   );
-  const codes = readDemoRows<{ code: string }>(
-    'select code from join_codes where session_id = ? and revoked_at is null',
-    sessionId,
-  );
-  const writers = ([1, 2] as const).map((slot) => ({
-    slot,
-    phone: apiPhone(request, slot === 1 ? organizer : judge, `match-day-w${slot}`),
-  }));
-  for (const { slot, phone } of writers) for (const c of codes) await phone.join(c.code, `writer${slot}`);
-  const writeEnds = async (list: typeof archers) => {
-    for (const { slot, phone } of writers)
-      await phone.push(
-        list.map((a) => ({
-          kind: 'end.write',
-          args: {
-            sessionId,
-            entryId: a.entry_id,
-            endIndex: 0,
-            slot,
-            arrows: QUALIFICATION[ARCHERS.indexOf(a.name)],
-            flags: [],
-          },
-        })),
-      );
-  };
   // Pim Ledger has not shot yet.
   await writeEnds(archers.slice(0, 3));
 

@@ -1,10 +1,9 @@
 import { expect, test, type Page } from '@playwright/test';
 import { DEMO_JUDGES, DEMO_ORGANIZER, demoArchers } from '../../server/demo/demoPeople';
 import { checkA11y } from './support/a11y';
-import { apiPhone, token } from './support/apiPhone';
-import { readDemoRows } from './support/demoDb';
+import { token } from './support/apiPhone';
 import { signedInPhone } from './support/signIn';
-import { apiCall, setUpSmallEvent } from './support/smallEvent';
+import { apiCall, qualificationWriters, setUpSmallEvent } from './support/smallEvent';
 
 /*
  * Two writers at a match's target: the two archers of a semi-final join it with the match's code
@@ -54,32 +53,14 @@ test('two archers score their match on their phones, the judge settles a mismatc
       archers: ARCHERS,
     },
   );
-  const entries = readDemoRows<{ entry_id: number; name: string }>(
-    `select t.entry_id, e.name from target_assignments t join entries e on e.id = t.entry_id
-     where t.session_id = ? order by e.name`,
+  const { entries, writeEnds } = await qualificationWriters(
+    request,
+    { organizer, judge },
     sessionId,
+    'match-writers',
+    (name) => QUALIFICATION[ARCHERS.indexOf(name)]!,
   );
-  const codes = readDemoRows<{ code: string }>(
-    'select code from join_codes where session_id = ? and revoked_at is null',
-    sessionId,
-  );
-  for (const slot of [1, 2] as const) {
-    const phone = apiPhone(request, slot === 1 ? organizer : judge, `match-writers-w${slot}`);
-    for (const c of codes) await phone.join(c.code, `writer${slot}`);
-    await phone.push(
-      entries.map((a) => ({
-        kind: 'end.write',
-        args: {
-          sessionId,
-          entryId: a.entry_id,
-          endIndex: 0,
-          slot,
-          arrows: QUALIFICATION[ARCHERS.indexOf(a.name)],
-          flags: [],
-        },
-      })),
-    );
-  }
+  await writeEnds(entries);
   // Seeds 1 and 4 have accounts: their entries carry their addresses.
   for (const [name, archer] of [
     [ARCHERS[0]!, FIRST],

@@ -1,4 +1,6 @@
 import { expect, type APIRequestContext } from '@playwright/test';
+import { apiPhone } from './apiPhone';
+import { readDemoRows } from './demoDb';
 import { operatorMailTo } from './operatorMail';
 
 /** One API call with a bearer token, failing the test with the answer when it is refused. */
@@ -75,4 +77,42 @@ export async function setUpSmallEvent(
   await apiCall(request, organizer, 'post', `/api/events/${eventId}/sessions/${sessionId}/assign`, {});
   await apiCall(request, organizer, 'post', `/api/events/${eventId}/sessions/${sessionId}/join-codes`, {});
   return { eventId, divisionId: division.id as number, sessionId };
+}
+
+/**
+ * The two writers of a small event's qualification, on phones driven through the API (the
+ * organizer as writer 1, the judge as writer 2, on every target): `writeEnds` writes the one end
+ * of the given archers alike on both, so it is agreed.
+ */
+export async function qualificationWriters(
+  request: APIRequestContext,
+  people: { organizer: string; judge: string },
+  sessionId: number,
+  phoneName: string,
+  arrowsOf: (archerName: string) => string[],
+) {
+  const entries = readDemoRows<{ entry_id: number; name: string }>(
+    `select t.entry_id, e.name from target_assignments t join entries e on e.id = t.entry_id
+     where t.session_id = ? order by e.name`,
+    sessionId,
+  );
+  const codes = readDemoRows<{ code: string }>(
+    'select code from join_codes where session_id = ? and revoked_at is null',
+    sessionId,
+  );
+  const writers = ([1, 2] as const).map((slot) => ({
+    slot,
+    phone: apiPhone(request, slot === 1 ? people.organizer : people.judge, `${phoneName}-w${slot}`),
+  }));
+  for (const { slot, phone } of writers) for (const c of codes) await phone.join(c.code, `writer${slot}`);
+  const writeEnds = async (list: typeof entries) => {
+    for (const { slot, phone } of writers)
+      await phone.push(
+        list.map((a) => ({
+          kind: 'end.write',
+          args: { sessionId, entryId: a.entry_id, endIndex: 0, slot, arrows: arrowsOf(a.name), flags: [] },
+        })),
+      );
+  };
+  return { entries, writeEnds };
 }
