@@ -14,3 +14,11 @@ function worthCompressing(req: Request, res: Response): boolean {
 }
 
 export const compressAnswers = compression({ filter: worthCompressing });
+
+/**
+ * The field lane's compression (server/routes/syncLane.ts): a push's answer is a few hundred bytes
+ * to a few KiB, where compressing costs the server more than the bytes cost the field network; a
+ * pull from the start of a target or an event is far larger and is compressed.
+ */
+export const COMPRESS_FROM_BYTES = 16 * 1024;
+export const compressLargeAnswers = compression({ filter: worthCompressing, threshold: COMPRESS_FROM_BYTES });

@@ -9,6 +9,7 @@ import type { AppContext } from '../context';
 import { HttpError, badRequest } from '../http/httpError';
 import { checkBodyShape } from '../http/bodyShape';
 import { leanHeaders, sendJson } from '../http/leanJson';
+import { compressLargeAnswers } from '../http/compressAnswers';
 import { describeIssues, validateBody } from '../http/validate';
 import { pullChanges } from '../services/sync/pullChanges';
 import { pushAndPull } from '../services/sync/pushAndPull';
@@ -39,6 +40,7 @@ export function syncLane(ctx: AppContext): Router {
   router.post(
     '/sync/push',
     leanHeaders,
+    compressLargeAnswers,
     express.json({ limit: '256kb' }),
     checkBodyShape,
     ctx.requireFieldUser,
@@ -50,11 +52,11 @@ export function syncLane(ctx: AppContext): Router {
         // Mailed after the push is committed, without holding up its answer.
         onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, ctx.linkAddress.url),
       });
-      sendJson(req, res, answer);
+      sendJson(res, answer);
     },
   );
 
-  router.get('/sync/pull', leanHeaders, ctx.requireFieldUser, async (req, res) => {
+  router.get('/sync/pull', leanHeaders, compressLargeAnswers, ctx.requireFieldUser, async (req, res) => {
     const query = pullQuerySchema.safeParse(req.query);
     if (!query.success) {
       const fields = describeIssues(query.error.issues);
@@ -63,7 +65,7 @@ export function syncLane(ctx: AppContext): Router {
         fields,
       );
     }
-    sendJson(req, res, await pullChanges(db, req.user!.id, query.data));
+    sendJson(res, await pullChanges(db, req.user!.id, query.data));
   });
 
   return router;

@@ -2,7 +2,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ArrowValue } from '../../src/core';
 import type { Mutation, PushResponse } from '../../src/contract/sync';
-import { COMPRESS_FROM_BYTES } from '../../server/http/leanJson';
+import { COMPRESS_FROM_BYTES } from '../../server/http/compressAnswers';
 import { startTestServer, type TestServer } from './support/testServer';
 import { makePerson, type TestPerson } from './support/people';
 import { setUpMixedField, type Field } from './support/fieldSetup';
