@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { BOW_STYLES, FACE_IDS, VENUES, type BowStyle, type FaceId, type Venue } from '../core/faces';
 import { ROUND_CATALOG } from '../core/rounds';
+import { SHAFT_DIAMETER_MM } from '../core/shaft';
 import { arrowValueSchema } from './arrowValueSchema';
 
 /**
@@ -19,6 +20,7 @@ const sessionId = z.uuid('A practice session is named by its id (a UUID).');
 const isoTime = z.iso.datetime({ error: 'Times are ISO 8601 in UTC, like 2026-05-01T09:30:00.000Z.' });
 const faceId = z.enum(FACE_IDS as [FaceId, ...FaceId[]], { error: 'Choose a face this app knows.' });
 const roundIds = new Set(ROUND_CATALOG.map((r) => r.id));
+const SHAFT_WORDS = `A shaft is ${SHAFT_DIAMETER_MM.min} to ${SHAFT_DIAMETER_MM.max} mm across.`;
 
 /** A session's setup: what the phone's practiceSessions row holds, without owner and progress. */
 export const practiceSessionSchema = z.object({
@@ -40,10 +42,8 @@ export const practiceSessionSchema = z.object({
   faceId,
   arrowsPerEnd: z.number().int().min(1).max(PRACTICE_MAX_ARROWS_PER_END),
   plannedEnds: z.number().int().min(1).max(PRACTICE_MAX_ENDS).nullable(),
-  shaftDiameterMm: z
-    .number()
-    .min(1, 'A shaft is 1 to 15 mm across.')
-    .max(15, 'A shaft is 1 to 15 mm across.'),
+  // The core's range (src/core/shaft.ts): the phone and the server read a shaft alike.
+  shaftDiameterMm: z.number().min(SHAFT_DIAMETER_MM.min, SHAFT_WORDS).max(SHAFT_DIAMETER_MM.max, SHAFT_WORDS),
   note: z.string().max(PRACTICE_NOTE_MAX, `A note has at most ${PRACTICE_NOTE_MAX} characters.`).optional(),
   finishedAt: isoTime.optional(),
 });

@@ -185,6 +185,8 @@ describe('bad practice changes', () => {
           phone.practice({ kind: 'practice.session', args: { ...s, note: 'n'.repeat(201) } }),
           phone.practice({ kind: 'practice.session', args: { ...s, roundId: 'no-such-round' } }),
           phone.practice({ kind: 'practice.session', args: { ...s, arrowsPerEnd: 40 } }),
+          // Wider than the core's shaft range (src/core/shaft.ts), which the phone's form also keeps.
+          phone.practice({ kind: 'practice.session', args: { ...s, shaftDiameterMm: 12 } }),
           phone.practice({ kind: 'practice.session', args: s }),
           phone.practice({
             kind: 'practice.end',
@@ -201,6 +203,7 @@ describe('bad practice changes', () => {
       'rejected',
       'rejected',
       'rejected',
+      'rejected',
       'applied',
       'rejected',
       'rejected',
@@ -209,8 +212,9 @@ describe('bad practice changes', () => {
     ]);
     expect(reasonOf(results[0])).toMatch(/at most 200 characters/);
     expect(reasonOf(results[1])).toMatch(/not in the catalog/);
-    expect(reasonOf(results[4])).toMatch(/at most 12 arrows/);
-    expect(reasonOf(results[5])).toMatch(/at most 200 ends/);
+    expect(reasonOf(results[3])).toMatch(/A shaft is 4 to 9.5 mm across/);
+    expect(reasonOf(results[5])).toMatch(/at most 12 arrows/);
+    expect(reasonOf(results[6])).toMatch(/at most 200 ends/);
     expect((await storedEnds(s.id)).map((e) => e.arrows)).toEqual([arrows('9')]);
   });
 
