@@ -1,6 +1,6 @@
 import { NO_ACCOUNT, type LocalDb, type OutboxRow } from './db';
 import { clientIdFor } from './outbox';
-import { sendPractice, wholeSession } from './practiceSync';
+import { sendPractice, wholeSessions } from './practiceSync';
 
 /** A change the server has not accepted yet: it belongs to its person until it reaches the server. */
 const isWaiting = (row: OutboxRow) => row.status !== 'applied';
@@ -83,22 +83,7 @@ export async function forgetOthers(db: LocalDb, keep: number | undefined): Promi
 async function adoptPractice(db: LocalDb, userId: number, clientId: string): Promise<void> {
   const sessions = await db.practiceSessions.where('ownerId').equals(NO_ACCOUNT).toArray();
   if (sessions.length === 0) return;
-  const ends = await db.practiceEnds
-    .where('sessionId')
-    .anyOf(sessions.map((s) => s.id))
-    .toArray();
   const adopted = sessions.map((s) => ({ ...s, ownerId: userId }));
   await db.practiceSessions.bulkPut(adopted);
-  const sorted = ends.sort((a, b) => a.index - b.index);
-  await sendPractice(
-    db,
-    { userId, clientId },
-    userId,
-    adopted.flatMap((s) =>
-      wholeSession(
-        s,
-        sorted.filter((e) => e.sessionId === s.id),
-      ),
-    ),
-  );
+  await sendPractice(db, { userId, clientId }, userId, await wholeSessions(db, adopted));
 }

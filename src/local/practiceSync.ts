@@ -40,6 +40,24 @@ export const wholeSession = (session: PracticeSessionRow, ends: readonly Practic
   ...ends.map((e): NewChange => ({ kind: 'practice.end', args: practiceEndDto(e) })),
 ];
 
+/** Everything of several sessions, read from the phone (inside the caller's transaction), ends in order. */
+export async function wholeSessions(
+  db: LocalDb,
+  sessions: readonly PracticeSessionRow[],
+): Promise<NewChange[]> {
+  const ends = await db.practiceEnds
+    .where('sessionId')
+    .anyOf(sessions.map((s) => s.id))
+    .toArray();
+  ends.sort((a, b) => a.index - b.index);
+  return sessions.flatMap((s) =>
+    wholeSession(
+      s,
+      ends.filter((e) => e.sessionId === s.id),
+    ),
+  );
+}
+
 /**
  * Who a practice write on this phone is sent for, found before its transaction opens (finding a
  * client id may write): the person using the phone, or no one (practice with no account waits
@@ -94,18 +112,7 @@ export async function sendOlderPractice(db: LocalDb, userId: number, clientId: s
     ]);
     const sent = new Set(rows.map((r) => sessionOfKey(r.endKey)));
     const older = sessions.filter((s) => !sent.has(s.id));
-    const ends = await db.practiceEnds
-      .where('sessionId')
-      .anyOf(older.map((s) => s.id))
-      .toArray();
-    ends.sort((a, b) => a.index - b.index);
-    const changes = older.flatMap((s) =>
-      wholeSession(
-        s,
-        ends.filter((e) => e.sessionId === s.id),
-      ),
-    );
-    await recordChangesInTransaction(db, clientId, userId, changes);
+    await recordChangesInTransaction(db, clientId, userId, await wholeSessions(db, older));
     await db.meta.put({ key, value: new Date().toISOString() });
   });
   olderPracticeSent.add(`${db.name}:${key}`);
