@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { BOW_STYLES, FACE_IDS, VENUES, type BowStyle, type FaceId, type Venue } from '../core/faces';
 import { ROUND_CATALOG } from '../core/rounds';
 import { SHAFT_DIAMETER_MM } from '../core/shaft';
+import { PRACTICE_MAX_ARROWS_PER_END, PRACTICE_MAX_ENDS, PRACTICE_NOTE_MAX } from '../core/practice/limits';
 import { arrowValueSchema } from './arrowValueSchema';
 
 /**
@@ -9,12 +10,6 @@ import { arrowValueSchema } from './arrowValueSchema';
  * end are changes of their own, each replacing the one before, so sending one again (a retry, a
  * reload) changes nothing and an arrow is in effect once. Sizes are bounded here, on both sides.
  */
-
-/** An end holds at most this many arrows (the catalog's largest end has 6). */
-export const PRACTICE_MAX_ARROWS_PER_END = 12;
-/** A session holds at most this many ends (the catalog's longest round has 36; open-ended sessions stop here). */
-export const PRACTICE_MAX_ENDS = 200;
-export const PRACTICE_NOTE_MAX = 200;
 
 const sessionId = z.uuid('A practice session is named by its id (a UUID).');
 const isoTime = z.iso.datetime({ error: 'Times are ISO 8601 in UTC, like 2026-05-01T09:30:00.000Z.' });

@@ -14,6 +14,7 @@ import {
   undoPracticeArrow,
 } from '../../src/features/practice/practiceStore';
 import { nextEndIndex } from '../../src/features/practice/plan';
+import { PRACTICE_MAX_ENDS } from '../../src/core/practice/limits';
 import { summarize } from '../../src/features/practice/summary';
 import { FREE_PRACTICE } from './support/practiceSetup';
 
@@ -61,6 +62,19 @@ describe('practice on the phone', () => {
     for (let i = 0; i < 40; i += 1) await addPracticeArrow(open, { value: '9' }, db);
     expect((await practiceEnds(open, db)).length).toBe(40);
     expect((await db.practiceSessions.get(open))?.finishedAt).toBeUndefined();
+    // It stops at the most ends a session keeps (the account refuses a 201st), and is finished then.
+    const stored = (await db.practiceSessions.get(open))!;
+    const full = Array.from({ length: PRACTICE_MAX_ENDS }, (_, index) => ({
+      key: `${open}:${index}`,
+      sessionId: open,
+      index,
+      distanceM: 18,
+      faceId: 'full-40' as const,
+      arrows: [{ value: '9' as const }],
+      at: stored.startedAt,
+    }));
+    expect(nextEndIndex(stored, full.slice(0, -1))).toBe(PRACTICE_MAX_ENDS - 1);
+    expect(nextEndIndex(stored, full)).toBeUndefined();
 
     const round = await startPracticeSession({ ...free, roundId: '1440-men', venue: 'outdoor' }, db);
     // 90 m and 70 m in ends of six, then 50 m on the 80 cm face in ends of three (src/core/rounds.ts).

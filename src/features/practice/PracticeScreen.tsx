@@ -3,6 +3,7 @@ import { Link, useNavigate } from 'react-router-dom';
 import { BOW_STYLES, ROUND_CATALOG, roundArrowCount } from '../../core';
 import { countedValues, practiceTally } from '../../core/practice';
 import { SHAFT_DIAMETER_MM, readShaftDiameter } from '../../core/shaft';
+import { PRACTICE_NOTE_MAX } from '../../core/practice/limits';
 import type { BowStyle, FaceId, Venue } from '../../core';
 import { usePhoneOwner } from '../../local/phoneOwner';
 import { localDb } from '../../local/db';
@@ -94,7 +95,7 @@ function StartPractice() {
   };
   const start = (session: Omit<NewPracticeSession, 'bowStyle' | 'note' | 'shaftDiameterMm'>) => {
     if (!shaftReading.ok) return setError(shaftReading.message);
-    const trimmed = note.trim().slice(0, 200);
+    const trimmed = note.trim().slice(0, PRACTICE_NOTE_MAX);
     try {
       localStorage.setItem(SHAFT_KEY, String(shaftReading.mm));
     } catch {
@@ -151,7 +152,7 @@ function StartPractice() {
         label="Note (optional)"
         hint="Place, weather, equipment, sight mark"
         value={note}
-        maxLength={200}
+        maxLength={PRACTICE_NOTE_MAX}
         onChange={(e) => setNote(e.target.value)}
       />
       <Field

@@ -1,5 +1,6 @@
 import { endsOfRound, getFace, getRound } from '../../core';
 import type { FaceId } from '../../core';
+import { PRACTICE_MAX_ENDS } from '../../core/practice/limits';
 import type { PracticeEndRow, PracticeSessionRow } from '../../local/db';
 
 /** What one end of a practice session is shot at. */
@@ -24,10 +25,14 @@ const free = (s: PracticeSessionRow): EndSetup => ({
   arrows: s.arrowsPerEnd,
 });
 
-/** The setup of end `index` (from 0); open-ended sessions repeat their one setup. */
+/**
+ * The setup of end `index` (from 0); open-ended sessions repeat their one setup up to the
+ * most ends a session keeps (the account refuses more).
+ */
 export function endSetup(session: PracticeSessionRow, index: number): EndSetup | undefined {
   const plan = plannedEnds(session);
-  return plan ? plan[index] : free(session);
+  if (plan) return plan[index];
+  return index < PRACTICE_MAX_ENDS ? free(session) : undefined;
 }
 
 /** The end the next arrow goes to, or undefined when every planned end is full. */
