@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { clientIdSchema } from './clientId';
 
 const coordinate = z.string().regex(/^[A-Za-z0-9_-]{43}$/, 'A P-256 key coordinate has 43 characters.');
 
@@ -8,7 +9,7 @@ const coordinate = z.string().regex(/^[A-Za-z0-9_-]{43}$/, 'A P-256 key coordina
  * kept; anything else in the JWK is dropped.
  */
 export const deviceKeyRequestSchema = z.object({
-  clientId: z.string().min(8).max(100),
+  clientId: clientIdSchema,
   publicJwk: z.object(
     { kty: z.literal('EC'), crv: z.literal('P-256'), x: coordinate, y: coordinate },
     { error: 'publicJwk must be the public half of an ECDSA P-256 key, as a JWK.' },

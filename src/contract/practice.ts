@@ -16,6 +16,14 @@ const isoTime = z.iso.datetime({ error: 'Times are ISO 8601 in UTC, like 2026-05
 const faceId = z.enum(FACE_IDS as [FaceId, ...FaceId[]], { error: 'Choose a face this app knows.' });
 const roundIds = new Set(ROUND_CATALOG.map((r) => r.id));
 const SHAFT_WORDS = `A shaft is ${SHAFT_DIAMETER_MM.min} to ${SHAFT_DIAMETER_MM.max} mm across.`;
+const distanceMessage = 'A distance is a number of metres from 1 to 150.';
+const distanceM = z.number({ error: distanceMessage }).min(1, distanceMessage).max(150, distanceMessage);
+/** A count the phone sends as a number; its message names the bounds, whatever was wrong. */
+const wholeNumber = (min: number, max: number, what: string) => {
+  const message = `${what} a whole number from ${min} to ${max}.`;
+  return z.number({ error: message }).int(message).min(min, message).max(max, message);
+};
+const indexMessage = 'An end is numbered by a whole number from 0 (the first end).';
 
 /** A session's setup: what the phone's practiceSessions row holds, without owner and progress. */
 export const practiceSessionSchema = z.object({
@@ -33,12 +41,15 @@ export const practiceSessionSchema = z.object({
     error: 'Bow style must be recurve, compound or barebow.',
   }),
   venue: z.enum(VENUES as [Venue, ...Venue[]], { error: 'Venue must be outdoor or indoor.' }),
-  distanceM: z.number().min(1, 'A distance is 1 to 150 m.').max(150, 'A distance is 1 to 150 m.'),
+  distanceM,
   faceId,
-  arrowsPerEnd: z.number().int().min(1).max(PRACTICE_MAX_ARROWS_PER_END),
-  plannedEnds: z.number().int().min(1).max(PRACTICE_MAX_ENDS).nullable(),
+  arrowsPerEnd: wholeNumber(1, PRACTICE_MAX_ARROWS_PER_END, 'Arrows per end are'),
+  plannedEnds: wholeNumber(1, PRACTICE_MAX_ENDS, 'Planned ends are').nullable(),
   // The core's range (src/core/shaft.ts): the phone and the server read a shaft alike.
-  shaftDiameterMm: z.number().min(SHAFT_DIAMETER_MM.min, SHAFT_WORDS).max(SHAFT_DIAMETER_MM.max, SHAFT_WORDS),
+  shaftDiameterMm: z
+    .number({ error: SHAFT_WORDS })
+    .min(SHAFT_DIAMETER_MM.min, SHAFT_WORDS)
+    .max(SHAFT_DIAMETER_MM.max, SHAFT_WORDS),
   note: z.string().max(PRACTICE_NOTE_MAX, `A note has at most ${PRACTICE_NOTE_MAX} characters.`).optional(),
   finishedAt: isoTime.optional(),
 });
@@ -58,11 +69,11 @@ export const practiceArrowSchema = z.object({
 export const practiceEndSchema = z.object({
   sessionId,
   index: z
-    .number()
-    .int()
-    .min(0)
+    .number({ error: indexMessage })
+    .int(indexMessage)
+    .min(0, indexMessage)
     .max(PRACTICE_MAX_ENDS - 1, `A practice session holds at most ${PRACTICE_MAX_ENDS} ends.`),
-  distanceM: z.number().min(1).max(150),
+  distanceM,
   faceId,
   arrows: z
     .array(practiceArrowSchema)

@@ -3,6 +3,7 @@ import { ARROW_FLAGS, TASKS, type ArrowFlag, type Task, type WriterSlot } from '
 import type { ArrowValue, EndView, RoundDefinition } from '../core';
 import { arrowValueSchema } from './arrowValueSchema';
 import { joinCodeSchema } from './joinCode';
+import { clientIdSchema } from './clientId';
 import type { LateDecisionDto } from './lateValues';
 import {
   cardSignArgsSchema,
@@ -175,7 +176,7 @@ export const receivedChangeSchema = z
 const cursorMessage = 'cursor must be a whole number: the version of the last change this phone holds, or 0.';
 
 export const pushRequestSchema = z.object({
-  clientId: z.string().min(8).max(100),
+  clientId: clientIdSchema,
   mutations: z
     .array(receivedChangeSchema)
     .min(1)

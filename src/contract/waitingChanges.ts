@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { clientIdSchema } from './clientId';
 import { receivedChangeSchema, type MutationResult } from './sync';
 
 /**
@@ -15,7 +16,7 @@ export const waitingChangesFileSchema = z.object({
   clients: z
     .array(
       z.object({
-        clientId: z.string().min(8).max(100),
+        clientId: clientIdSchema,
         userId: z.number().int().positive(),
         mutations: z.array(receivedChangeSchema).min(1).max(2000),
         /**

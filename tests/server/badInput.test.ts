@@ -1,8 +1,9 @@
 import request from 'supertest';
-import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from './support/testServer';
 import { setUpEvent, type SetUpEvent } from './support/eventSetup';
 import { makePerson, type TestPerson } from './support/people';
+import { expectNoServerErrors } from './support/noServerErrors';
 
 /*
  * Hostile or broken input is the sender's fault: every such request gets a 4xx in the usual
@@ -13,7 +14,7 @@ let server: TestServer;
 let setup: SetUpEvent;
 let person: TestPerson;
 let divisionId: number;
-const logged = vi.spyOn(console, 'error');
+expectNoServerErrors();
 
 beforeAll(async () => {
   server = await startTestServer();
@@ -22,12 +23,7 @@ beforeAll(async () => {
   person = await makePerson(server.db, 'Bad Input Sender');
 });
 afterAll(async () => {
-  logged.mockRestore();
   await server.close();
-});
-afterEach(() => {
-  expect(logged).not.toHaveBeenCalled();
-  logged.mockClear();
 });
 
 const expectRefused = (res: request.Response, status = 400) => {

@@ -1,10 +1,11 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { roundEndCount, getRound, type ArrowValue } from '../../src/core';
-import type { BracketDto, MatchDto, MatchJoinCodeDto, MatchPadDto } from '../../src/contract/matches';
+import type { ArrowValue } from '../../src/core';
+import type { BracketDto, MatchDto, MatchPadDto } from '../../src/contract/matches';
 import type { Mutation, MutationResult } from '../../src/contract/sync';
-import { setUpField, writeAgreedEnds, type Field } from './support/fieldSetup';
-import { giveRole, makeEvent, makePerson, type TestPerson } from './support/people';
+import type { Field } from './support/fieldSetup';
+import { setUpMatchWriters, type MatchWritersField } from './support/matchWriters';
+import { makePerson, type TestPerson } from './support/people';
 import { Phone } from './support/phone';
 import { startTestServer, type TestServer } from './support/testServer';
 
@@ -20,11 +21,10 @@ let field: Field;
 let stranger: TestPerson;
 let otherJudge: TestPerson;
 /** The archers of the first semi-final (seed 1 v 4) and of the second (2 v 3), by line. */
-const archers: Record<'a' | 'b' | 'c' | 'd', TestPerson> = {} as never;
+let archers: MatchWritersField['archers'];
 let first: MatchDto;
 let second: MatchDto;
 let codes: Map<number, string>;
-const ENDS = roundEndCount(getRound('18m'));
 
 const v = (text: string) => text.split(' ') as ArrowValue[];
 const reasonOf = (r: MutationResult | undefined) => (r && 'reason' in r ? r.reason : undefined);
@@ -41,43 +41,7 @@ async function pushOne(phone: Phone, change: Mutation): Promise<MutationResult> 
 
 beforeAll(async () => {
   server = await startTestServer();
-  const names = [1, 2, 3, 4].map((i) => ({ name: `Recurve ${i}`, division: 'Recurve Men', drop: i }));
-  field = await setUpField(server.db, {
-    divisions: [{ name: 'Recurve Men', bowStyle: 'recurve', roundId: '18m' }],
-    targets: [{ number: 1, archers: names }],
-  });
-  await writeAgreedEnds(server.db, field, ENDS, (a) => names.find((n) => n.name === a.name)!.drop);
-  const divisionId = (await server.db('divisions').where({ event_id: field.eventId }).first('id'))
-    .id as number;
-  const made = await request(server.app)
-    .post(`/api/events/${field.eventId}/brackets`)
-    .set(field.organizer.auth)
-    .send({ sessionId: field.sessionId, divisionId, size: 4 });
-  expect(made.status).toBe(201);
-  const matches = (made.body.brackets as BracketDto[])[0]!.matches;
-  first = matches.find((m) => m.round === 0 && m.slot === 0)!;
-  second = matches.find((m) => m.round === 0 && m.slot === 1)!;
-  // The archers of the entry list have accounts: each entry is linked to its person.
-  const lines = [
-    ['a', first.sides.a!],
-    ['b', first.sides.b!],
-    ['c', second.sides.a!],
-    ['d', second.sides.b!],
-  ] as const;
-  for (const [key, side] of lines) {
-    archers[key] = await makePerson(server.db, `Archer ${key}`);
-    await server.db('entries').where({ id: side.archers[0]!.entryId }).update({ user_id: archers[key].id });
-  }
-  stranger = await makePerson(server.db, 'Stranger');
-  // A judge of another event: that role opens none of this event's matches.
-  const otherEventId = await makeEvent(server.db, field.organizer, 'Other Shoot');
-  otherJudge = await makePerson(server.db, 'Other Judge');
-  await giveRole(server.db, otherEventId, otherJudge, 'judge');
-  const res = await request(server.app)
-    .get(`/api/events/${field.eventId}/matches/join-codes`)
-    .set(field.organizer.auth);
-  expect(res.status).toBe(200);
-  codes = new Map((res.body.codes as MatchJoinCodeDto[]).map((c) => [c.matchId, c.code]));
+  ({ field, stranger, otherJudge, archers, first, second, codes } = await setUpMatchWriters(server));
 });
 afterAll(() => server.close());
 

@@ -9,7 +9,7 @@ import {
   twelveEnds,
   type JudgingField,
 } from './support/judging';
-import type { TestPerson } from './support/people';
+import { giveRole, makeEvent, makePerson, type TestPerson } from './support/people';
 import { startTestServer, type TestServer } from './support/testServer';
 
 /*
@@ -19,12 +19,18 @@ import { startTestServer, type TestServer } from './support/testServer';
 
 let server: TestServer;
 let j: JudgingField;
+/** The organizer also shoots (entry 1B, linked to their account) and has a card of their own. */
+let organizerEntryId: number;
 
 beforeAll(async () => {
   server = await startTestServer();
   j = await setUpJudging(server);
   await agreeEnds(j, j.ada.entryId, twelveEnds().slice(0, 3));
   expectApplied(await signEnds(server, j, j.ada.entryId, [0, 1]));
+  organizerEntryId = j.field.archer(1, 'B').entryId;
+  await server.db('entries').where({ id: organizerEntryId }).update({ user_id: j.field.organizer.id });
+  await agreeEnds(j, organizerEntryId, twelveEnds().slice(0, 1));
+  expectApplied(await signEnds(server, j, organizerEntryId, [0]));
 });
 afterAll(() => server.close());
 
@@ -56,6 +62,25 @@ describe('tournament cards in the practice log', () => {
       const { cards } = await cardsOf(person);
       expect(cards.some((c) => c.entryId === j.ada.entryId)).toBe(false);
     }
+  });
+
+  it('gives an organizer who shoots only their own card, whatever the query string asks for', async () => {
+    const res = await request(server.app)
+      .get('/api/me/practice-cards')
+      .query({ userId: j.people.ada.id, entryId: j.ada.entryId, user: 'all' })
+      .set(j.field.organizer.auth);
+    expect(res.status).toBe(200);
+    expect((res.body as TournamentCards).cards.map((c) => c.entryId)).toEqual([organizerEntryId]);
+  });
+
+  it('gives an archer of another event none of this event’s cards', async () => {
+    const otherEvent = await makeEvent(server.db, j.field.organizer, 'Another Shoot');
+    const archer = await makePerson(server.db, 'Other Event Archer');
+    await giveRole(server.db, otherEvent, archer, 'archer');
+    const res = await request(server.app)
+      .get(`/api/me/practice-cards?userId=${j.people.ada.id}`)
+      .set(archer.auth);
+    expect((res.body as TournamentCards).cards).toEqual([]);
   });
 
   it('refuses a caller who is not signed in', async () => {

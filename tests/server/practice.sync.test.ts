@@ -1,10 +1,11 @@
 import request from 'supertest';
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { PracticeEndDto, PracticeSessionDto } from '../../src/contract/practice';
+import type { PracticeEndDto } from '../../src/contract/practice';
 import type { ChangeDto, MutationResult } from '../../src/contract/sync';
 import { giveRole, makeEvent, makePerson, type TestPerson } from './support/people';
 import { Phone } from './support/phone';
+import { arrows, end, session } from './support/practice';
 import { startTestServer, type TestServer } from './support/testServer';
 
 /*
@@ -30,30 +31,6 @@ beforeAll(async () => {
   await giveRole(server.db, eventId, archer, 'archer');
 });
 afterAll(() => server.close());
-
-const session = (over: Partial<PracticeSessionDto> = {}): PracticeSessionDto => ({
-  id: randomUUID(),
-  startedAt: '2026-11-30T09:00:00.000Z',
-  bowStyle: 'recurve',
-  venue: 'indoor',
-  distanceM: 18,
-  faceId: 'full-40',
-  arrowsPerEnd: 3,
-  plannedEnds: 4,
-  shaftDiameterMm: 5.5,
-  note: 'Windy',
-  ...over,
-});
-const end = (sessionId: string, index: number, values: PracticeEndDto['arrows']): PracticeEndDto => ({
-  sessionId,
-  index,
-  distanceM: 18,
-  faceId: 'full-40',
-  arrows: values,
-  at: '2026-11-30T09:05:00.000Z',
-});
-const arrows = (...values: string[]) =>
-  values.map((value) => ({ value }) as PracticeEndDto['arrows'][number]);
 
 const practiceOf = (changes: ChangeDto[]) => changes.filter((c) => c.type.startsWith('practice'));
 const storedEnds = async (sessionId: string) =>
