@@ -1,6 +1,7 @@
 import { NO_ACCOUNT, type LocalDb, type OutboxRow } from './db';
 import { clientIdFor } from './outbox';
 import { sendPractice, wholeSessions } from './practiceSync';
+import { PERSON_META_PREFIXES } from './personMeta';
 
 /** A change the server has not accepted yet: it belongs to its person until it reaches the server. */
 const isWaiting = (row: OutboxRow) => row.status !== 'applied';
@@ -71,9 +72,7 @@ export async function forgetOthers(db: LocalDb, keep: number | undefined): Promi
         db.rulings.clear(),
         db.endSignatures.clear(),
         db.cardSignatures.clear(),
-        db.meta.where('key').startsWith('pullCursor:').delete(),
-        // The kept copy of tournament cards (features/practice/tournamentCards.ts) is one person's too.
-        db.meta.where('key').startsWith('tournamentCards:').delete(),
+        db.meta.where('key').startsWithAnyOf([...PERSON_META_PREFIXES]).delete(),
       ]);
     },
   );

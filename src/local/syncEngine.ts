@@ -15,6 +15,7 @@ import {
 import { clientIdFor, toMutation } from './outbox';
 import type { DeviceKeyRequest } from '../contract/deviceKeys';
 import { ensureDeviceKeyRegistered, type KeyRegistration } from './deviceKey';
+import { pullCursorKey } from './personMeta';
 
 /** How the engine reaches the server; the app uses HTTP, tests can wire the app directly. */
 export type SyncTransport = {
@@ -28,7 +29,6 @@ export type SyncReport = { pushed: number; applied: number; rejected: number; pu
 
 const PUSH_BATCH = 200;
 
-const cursorKey = (userId: number) => `pullCursor:${userId}`;
 
 /**
  * One round of sync for the signed-in person: push waiting changes in order, then pull what
@@ -51,7 +51,7 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
   const outcomes = new Map<number, MutationResult>();
   let pushed = 0;
   const changes: ChangeDto[] = [];
-  let cursor = ((await db.meta.get(cursorKey(userId)))?.value as number | undefined) ?? 0;
+  let cursor = ((await db.meta.get(pullCursorKey(userId)))?.value as number | undefined) ?? 0;
   /** Whether the last answer's pull left nothing waiting (so no separate pull is needed). */
   let pulledAll = false;
 
@@ -117,7 +117,7 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
       await applyLateDecisions(db, changes);
       await applyChanges(db, changes);
       await applyPulledPractice(db, userId, changes);
-      await db.meta.put({ key: cursorKey(userId), value: cursor });
+      await db.meta.put({ key: pullCursorKey(userId), value: cursor });
     },
   );
   return { pushed, applied, rejected, pulled: changes.length };

@@ -3,6 +3,7 @@ import type { TournamentCard, TournamentCards } from '../../contract/myCards';
 import type { ProgressSession } from '../../core/practice/progress';
 import { progressParts } from '../../core/practice/progressParts';
 import { NO_ACCOUNT, localDb } from '../../local/db';
+import { tournamentCardsKey } from '../../local/personMeta';
 import { phoneOwner } from '../../local/phoneOwner';
 
 /*
@@ -11,8 +12,6 @@ import { phoneOwner } from '../../local/phoneOwner';
  * copy per person; forgetOthers drops it when the phone changes hands).
  */
 
-export const TOURNAMENT_CARDS_KEY = 'tournamentCards:';
-
 /** The copy kept for whoever uses the phone now; none with no one signed in. */
 export async function storedTournamentCards(
   owner: number | undefined,
@@ -20,7 +19,7 @@ export async function storedTournamentCards(
 ): Promise<TournamentCard[]> {
   if (owner === undefined || owner === NO_ACCOUNT) return [];
   return (
-    ((await db.meta.get(`${TOURNAMENT_CARDS_KEY}${owner}`))?.value as TournamentCard[] | undefined) ?? []
+    ((await db.meta.get(tournamentCardsKey(owner)))?.value as TournamentCard[] | undefined) ?? []
   );
 }
 
@@ -34,7 +33,7 @@ export async function refreshTournamentCards(owner: number | undefined, db = loc
   }));
   // The phone may have changed hands while the answer travelled.
   if (cards && phoneOwner() === owner)
-    await db.meta.put({ key: `${TOURNAMENT_CARDS_KEY}${owner}`, value: cards });
+    await db.meta.put({ key: tournamentCardsKey(owner), value: cards });
 }
 
 export const tournamentTitle = (card: TournamentCard) => `${card.eventName}, ${card.sessionName}`;

@@ -5,6 +5,7 @@ import { fetchSessionTargets } from '../../../api/sessionTargets';
 import { localDb, targetKeyOf, type JoinedTarget } from '../../../local/db';
 import { syncLoop } from '../../../local/syncLoop';
 import { askPersistentStorage } from '../../../local/useSync';
+import { pullCursorKey } from '../../../local/personMeta';
 
 /**
  * Keeps every target of a session on the judge's phone, so the desk works on the field without
@@ -28,7 +29,7 @@ export async function prepareDesk(eventId: number, sessionId: number, userId: nu
       await db.targets.put(row);
     }
     // A fresh pull brings every end recorded before the desk was prepared.
-    await db.meta.put({ key: `pullCursor:${userId}`, value: 0 });
+    await db.meta.put({ key: pullCursorKey(userId), value: 0 });
   });
   await askPersistentStorage();
   syncLoop().kick();

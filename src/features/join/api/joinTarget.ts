@@ -4,6 +4,7 @@ import type { JoinRequest, TargetPackage } from '../../../contract/sync';
 import { localDb, targetKeyOf, type JoinedTarget } from '../../../local/db';
 import { askPersistentStorage } from '../../../local/useSync';
 import { syncLoop } from '../../../local/syncLoop';
+import { pullCursorKey } from '../../../local/personMeta';
 
 /** Joins a target group and keeps its package on the phone for offline scoring. */
 export async function joinTarget(input: JoinRequest, userId: number): Promise<JoinedTarget> {
@@ -17,7 +18,7 @@ export async function joinTarget(input: JoinRequest, userId: number): Promise<Jo
   await localDb().transaction('rw', localDb().targets, localDb().meta, async () => {
     await localDb().targets.put(row);
     // The server's cursor only covers what this person could see before; a new target needs a fresh pull.
-    await localDb().meta.put({ key: `pullCursor:${userId}`, value: 0 });
+    await localDb().meta.put({ key: pullCursorKey(userId), value: 0 });
   });
   await askPersistentStorage();
   syncLoop().kick();
