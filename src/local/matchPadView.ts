@@ -14,7 +14,7 @@ import type { OutboxRow } from './db';
  * Where one of the writer's ends stands: it counts (agreed, or settled by the judge), it waits for
  * the other writer or the judge, or it is agreed (or settled) but waits for an earlier end to count.
  */
-export type WriterEndStatus = 'counted' | 'judge' | 'waiting' | 'mismatch' | 'held';
+export type WriterEndStatus = 'counted' | 'judge' | 'waiting' | 'mismatch' | 'stopped';
 
 export type WriterEnd = {
   a: ArrowValue[];
@@ -79,7 +79,7 @@ export function matchPadView(pad: MatchPadDto, rows: readonly OutboxRow[]): Matc
     const signed = !!match.ends[i]?.signed;
     if (i < counted.length) return { ...e, status: counted[i]!.by === 'judge' ? 'judge' : 'counted', signed };
     const check = matchCrossCheck(e, other(i));
-    const status = closed(i) || check.status === 'agreed' ? 'held' : check.status;
+    const status = closed(i) || check.status === 'agreed' ? 'stopped' : check.status;
     return { ...e, status, signed };
   });
   const firstOpen = ends.findIndex((e) => !complete(e));

@@ -73,7 +73,7 @@ describe('matchPadView', () => {
     });
     expect(matchPadView(served, []).counted).toHaveLength(2);
     const changed = matchPadView(served, [row(1, { ...ref, endIndex: 0, a: v('10 10 9'), b: v('9 9 9') })]);
-    expect(changed.ends.map((e) => e.status)).toEqual(['mismatch', 'held']);
+    expect(changed.ends.map((e) => e.status)).toEqual(['mismatch', 'stopped']);
     expect(changed.counted).toEqual([]);
   });
 

@@ -36,7 +36,7 @@ const STATUS_WORDS: Record<WriterEndStatus, string> = {
   judge: '✓ Settled by the judge',
   waiting: 'Waiting for the other writer',
   mismatch: '▲ The writers differ: sent to the judge',
-  held: 'Agreed: it counts once the ends before it count',
+  stopped: 'Agreed: it counts once the ends before it count',
 };
 
 function YourEnds({ match, view }: { match: MatchDto; view: MatchPadView }) {
