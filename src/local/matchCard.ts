@@ -50,9 +50,11 @@ export function matchCard(match: MatchDto, format: MatchFormat, rows: readonly O
   let shootOffWaiting = false;
   let signed: MatchCardView['signed'] = match.signedAt ? 'server' : null;
   const mine = matchRowsOf(rows, match.id);
-  // This phone's last change to each end: a delivered signature followed by a correction is gone.
+  // This phone's last judge's change to each end: a delivered signature followed by a correction is gone.
   const lastOnEnd = new Map<number, OutboxRow>();
-  for (const row of mine) if ('endIndex' in row.args) lastOnEnd.set(row.args.endIndex, row);
+  for (const row of mine)
+    if ((row.kind === 'match.end' || row.kind === 'match.endSign') && 'endIndex' in row.args)
+      lastOnEnd.set(row.args.endIndex, row);
   for (const row of mine) {
     // A delivered change counts until the server's copy shows it: the copy may be from before it
     // arrived (it is asked for again once the change is delivered).
