@@ -15,6 +15,7 @@ import { divisionQuery, idParam } from '../http/params';
 import { validateBody } from '../http/validate';
 import { bracketPdf } from '../services/matches/bracketPdf';
 import { eventBrackets } from '../services/matches/bracketView';
+import { signMatchEnd } from '../services/matches/endSignatures';
 import { createBracket } from '../services/matches/createBracket';
 import {
   placeMatch,
@@ -30,7 +31,7 @@ import { findResultsEvent, requireResultsViewer } from '../services/results/resu
 /**
  * Eliminations: brackets are seen like the results (public once published); organizers create
  * them, place matches on targets and record withdrawals and no-shows; judges record the ends and
- * shoot-off arrows of a match and sign it, which moves the bracket on.
+ * shoot-off arrows of a match and sign its ends and the match, which moves the bracket on.
  */
 export function matchRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -42,6 +43,14 @@ export function matchRoutes(ctx: AppContext): Router {
     matchId: idParam(req, 'matchId', 'match'),
   });
   const answer = async (eventId: number) => ({ brackets: await eventBrackets(db, eventId) });
+  const endIndexParam = (req: Request) => {
+    const raw = String(req.params.endIndex);
+    const endIndex = Number(raw);
+    if (!/^\d$/.test(raw) || endIndex > MATCH_END_INDEX_MAX) {
+      throw badRequest(`A match has ends 0 to ${MATCH_END_INDEX_MAX}.`);
+    }
+    return endIndex;
+  };
 
   const maybeUser = (req: Request, res: Response, next: NextFunction) =>
     req.get('authorization') ? ctx.requireUser(req, res, next) : next();
@@ -107,15 +116,17 @@ export function matchRoutes(ctx: AppContext): Router {
     validateBody(matchEndSchema),
     async (req, res) => {
       const { eventId, matchId } = ids(req);
-      const raw = String(req.params.endIndex);
-      const endIndex = Number(raw);
-      if (!/^\d$/.test(raw) || endIndex > MATCH_END_INDEX_MAX) {
-        throw badRequest(`A match has ends 0 to ${MATCH_END_INDEX_MAX}.`);
-      }
-      await recordMatchEnd(db, eventId, matchId, endIndex, req.body, req.user!.id);
+      await recordMatchEnd(db, eventId, matchId, endIndexParam(req), req.body, req.user!.id);
       res.json(await answer(eventId));
     },
   );
+
+  /** The judge signs one set or end that counts; it is closed to the writers. */
+  router.post('/events/:eventId/matches/:matchId/ends/:endIndex/sign', ...judge, async (req, res) => {
+    const { eventId, matchId } = ids(req);
+    await signMatchEnd(db, eventId, matchId, endIndexParam(req), req.user!.id);
+    res.json(await answer(eventId));
+  });
 
   router.put(
     '/events/:eventId/matches/:matchId/shoot-off',

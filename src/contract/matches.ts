@@ -71,8 +71,11 @@ export type DecidedBy = 'score' | 'shoot-off' | 'bye' | 'withdrawal' | 'no-show'
 
 export type MatchSideDto = { seed: number; archers: { entryId: number; name: string; club: string }[] };
 
-/** A match card's end: `writers` when the two writers agreed on it, `judge` when a judge entered or settled it. */
-export type MatchEndDto = { a: ArrowValue[]; b: ArrowValue[]; by?: 'writers' | 'judge' };
+/**
+ * A match card's end that counts: `writers` when the two writers agreed on it, `judge` when a judge
+ * entered or settled it; `signed` once a judge signed it (closed to the writers).
+ */
+export type MatchEndDto = { a: ArrowValue[]; b: ArrowValue[]; by?: 'writers' | 'judge'; signed?: true };
 
 /** One writer's own record of one end of a match (both sides' arrows), kept apart from the other's. */
 export type MatchWriteDto = { slot: 1 | 2; endIndex: number; a: ArrowValue[]; b: ArrowValue[] };
@@ -123,7 +126,7 @@ export type BracketDto = {
 
 /*
  * The judge's match changes as they travel through the phone's outbox (sync kinds `match.end`,
- * `match.shootoff`, `match.sign`): the same bodies as the routes, with the event and match named.
+ * `match.shootoff`, `match.endSign`, `match.sign`): the same bodies as the routes, with the event and match named.
  */
 const matchRef = { eventId: id, matchId: id };
 
@@ -144,6 +147,13 @@ export type MatchShootOffArgs = z.infer<typeof matchShootOffArgsSchema>;
 
 export const matchSignArgsSchema = z.object(matchRef);
 export type MatchSignArgs = z.infer<typeof matchSignArgsSchema>;
+
+/** A judge signs one counted set (set system) or end (cumulative) of a match (sync kind `match.endSign`). */
+export const matchEndSignArgsSchema = z.object({
+  ...matchRef,
+  endIndex: z.number().int().min(0).max(MATCH_END_INDEX_MAX, `A match has ends 1 to ${MATCH_MAX_ENDS}.`),
+});
+export type MatchEndSignArgs = z.infer<typeof matchEndSignArgsSchema>;
 
 /**
  * Two writers at the match's target (sync kinds `match.write`, `match.countersign`): a writer's

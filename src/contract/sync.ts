@@ -17,6 +17,7 @@ import { shootOffRecordArgsSchema } from './results';
 import {
   matchCountersignArgsSchema,
   matchEndArgsSchema,
+  matchEndSignArgsSchema,
   matchShootOffArgsSchema,
   matchSignArgsSchema,
   matchWriteArgsSchema,
@@ -85,10 +86,11 @@ export const mutationSchema = z.discriminatedUnion(
     z.object({ ...base, kind: z.literal('card.sign'), args: cardSignArgsSchema }),
     // A judge's shoot-off arrow (results).
     z.object({ ...base, kind: z.literal('shootoff.record'), args: shootOffRecordArgsSchema }),
-    // A judge's match ends, shoot-off arrows and signature (eliminations, docs/matches.md).
+    // A judge's match ends, shoot-off arrows and signatures, of an end or the match (eliminations, docs/matches.md).
     z.object({ ...base, kind: z.literal('match.end'), args: matchEndArgsSchema }),
     z.object({ ...base, kind: z.literal('match.shootoff'), args: matchShootOffArgsSchema }),
     z.object({ ...base, kind: z.literal('match.sign'), args: matchSignArgsSchema }),
+    z.object({ ...base, kind: z.literal('match.endSign'), args: matchEndSignArgsSchema }),
     // The person's own practice log (docs/practice.md): a session's setup, one end, a deletion.
     z.object({ ...base, kind: z.literal('practice.session'), args: practiceSessionSchema }),
     z.object({ ...base, kind: z.literal('practice.end'), args: practiceEndSchema }),
@@ -104,7 +106,9 @@ export type MutationKind = Mutation['kind'];
 /** A change to an elimination match: applied through the match services, not the field batch. */
 export type MatchMutation = Extract<
   Mutation,
-  { kind: 'match.end' | 'match.shootoff' | 'match.sign' | 'match.write' | 'match.countersign' }
+  {
+    kind: 'match.end' | 'match.shootoff' | 'match.sign' | 'match.endSign' | 'match.write' | 'match.countersign';
+  }
 >;
 /** A change to the person's own practice log: applied by the practice services, for that person only. */
 export type PracticeMutation = Extract<

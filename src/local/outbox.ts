@@ -4,6 +4,7 @@ import type { ShootOffRecordArgs } from '../contract/results';
 import type {
   MatchCountersignArgs,
   MatchEndArgs,
+  MatchEndSignArgs,
   MatchShootOffArgs,
   MatchSignArgs,
   MatchWriteArgs,
@@ -51,6 +52,7 @@ export type NewChange =
   | { kind: 'match.end'; args: MatchEndArgs }
   | { kind: 'match.shootoff'; args: MatchShootOffArgs }
   | { kind: 'match.sign'; args: MatchSignArgs }
+  | { kind: 'match.endSign'; args: MatchEndSignArgs }
   | { kind: 'practice.session'; args: PracticeSessionDto }
   | { kind: 'practice.end'; args: PracticeEndDto }
   | { kind: 'practice.delete'; args: PracticeDeleteArgs }
@@ -83,6 +85,8 @@ function subjectKey(change: NewChange): string {
       return matchKeyOf(change.args.matchId, 'shoot-off');
     case 'match.sign':
       return matchKeyOf(change.args.matchId, 'sign');
+    case 'match.endSign':
+      return matchKeyOf(change.args.matchId, `end-sign:${change.args.endIndex}`);
     case 'card.sign':
       return `${cardKeyOf(change.args.sessionId, change.args.entryId)}:card`;
     case 'shootoff.record':

@@ -3,6 +3,8 @@ import type { LocalDb, OutboxRow } from './db';
 
 /** What one waiting match change is: the match named by its archers ("Match: A v B, end 2"). */
 function describeMatch(row: OutboxRow, match: string): string {
+  if (row.kind === 'match.endSign' && 'endIndex' in row.args)
+    return `Your signature on end ${row.args.endIndex + 1} of the match ${match}`;
   if ('endIndex' in row.args) return `Match: ${match}, end ${row.args.endIndex + 1}`;
   if (row.kind === 'match.sign') return `Your signature on the match ${match}`;
   if (row.kind === 'match.countersign') return `Your countersignature on the match ${match}`;

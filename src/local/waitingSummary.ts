@@ -13,7 +13,7 @@ export function summarizeWaiting(rows: readonly Pick<OutboxRow, 'kind' | 'endKey
   // A re-recorded shoot-off arrow replaces the earlier one: count arrows, not changes.
   const shootOffArrows = new Set<string>();
   for (const row of rows) {
-    if (row.kind === 'end.sign' || row.kind === 'card.sign' || row.kind === 'match.sign') signatures += 1;
+    if (['end.sign', 'card.sign', 'match.sign', 'match.endSign'].includes(row.kind)) signatures += 1;
     else if (row.kind === 'shootoff.record' || row.kind === 'match.shootoff') shootOffArrows.add(row.endKey);
     // A practice session's setup or deletion is no end of its own (its ends count).
     else if (row.kind === 'practice.session' || row.kind === 'practice.delete') continue;

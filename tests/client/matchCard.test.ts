@@ -62,6 +62,25 @@ describe('matchCard', () => {
     expect(matchCard(copy, 'sets', [delivered]).ends[0]!.a).toEqual(v('9 9 9'));
   });
 
+  it('shows the judge’s signature on an end: waiting, delivered, and gone with a correction', () => {
+    const signedEnd = { a: v('10 10 10'), b: v('9 9 9') };
+    const sign = (seq: number, status: OutboxRow['status']) =>
+      row(seq, 'match.endSign', { ...ref, endIndex: 0 }, status);
+    const copy = match({ ends: [signedEnd] });
+    expect(matchCard(copy, 'sets', [sign(1, 'pending')]).ends[0]!.signature).toBe('waiting');
+    // Delivered before the copy shows it: signed; the copy's own signature reads the same.
+    expect(matchCard(copy, 'sets', [sign(1, 'applied')]).ends[0]!.signature).toBe('server');
+    expect(matchCard(match({ ends: [{ ...signedEnd, signed: true }] }), 'sets', []).ends[0]!.signature).toBe(
+      'server',
+    );
+    // The judge's correction after the signature replaces the end and its signature.
+    const fix = row(2, 'match.end', { ...ref, endIndex: 0, a: v('10 10 9'), b: v('9 9 9') }, 'pending');
+    expect(matchCard(copy, 'sets', [sign(1, 'applied'), fix]).ends[0]!.signature).toBeNull();
+    const fixed = row(2, 'match.end', { ...ref, endIndex: 0, a: v('10 10 9'), b: v('9 9 9') }, 'applied');
+    const corrected = match({ ends: [{ a: v('10 10 9'), b: v('9 9 9') }] });
+    expect(matchCard(corrected, 'sets', [sign(1, 'applied'), fixed]).ends[0]!.signature).toBeNull();
+  });
+
   it('never lays a refused change over, and says when the core refuses the card', () => {
     const refused = row(1, 'match.end', { ...ref, endIndex: 0, a: v('10 10 10'), b: v('9 9 9') }, 'rejected');
     expect(matchCard(match(), 'sets', [refused]).ends).toHaveLength(0);
@@ -112,18 +131,21 @@ describe('match changes in the outbox', () => {
       kind: 'match.shootoff',
       args: { ...ref, a: { value: '9', closer: true }, b: { value: '9', closer: false } },
     });
+    await recordChange(db, 1, { kind: 'match.endSign', args: { ...ref, endIndex: 0 } });
     await recordChange(db, 1, { kind: 'match.sign', args: ref });
     const rows = await db.outbox.toArray();
     expect(rows.map((r) => r.endKey)).toEqual([
       'match:7:end:0',
       'match:7:end:0',
       'match:7:shoot-off',
+      'match:7:end-sign:0',
       'match:7:sign',
     ]);
-    expect(waitingWords(summarizeWaiting(rows))).toBe('1 end, 1 signature and 1 shoot-off arrow');
+    expect(waitingWords(summarizeWaiting(rows))).toBe('1 end, 2 signatures and 1 shoot-off arrow');
     expect(await waitingInWords(db, 1)).toEqual([
       'Match: number 7, end 1',
       'Match: number 7, shoot-off arrows',
+      'Your signature on end 1 of the match number 7',
       'Your signature on the match number 7',
     ]);
     // Named by its archers once the phone knows them: a bracket looked at, or a match joined as writer.

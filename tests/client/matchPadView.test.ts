@@ -61,6 +61,30 @@ describe('matchPadView', () => {
     expect(matchPadView(counted, []).undoEnd).toBeNull();
   });
 
+  it('takes a counted end this writer changes out of the count at once, with the ends after it', () => {
+    const agreed = (endIndex: number, a: string, b: string) =>
+      ([1, 2] as const).map((slot) => ({ slot, endIndex, a: v(a), b: v(b) }));
+    const served = pad({
+      ends: [
+        { a: v('10 10 10'), b: v('9 9 9'), by: 'writers' },
+        { a: v('9 9 9'), b: v('9 9 9'), by: 'writers' },
+      ],
+      writes: [...agreed(0, '10 10 10', '9 9 9'), ...agreed(1, '9 9 9', '9 9 9')],
+    });
+    expect(matchPadView(served, []).counted).toHaveLength(2);
+    const changed = matchPadView(served, [row(1, { ...ref, endIndex: 0, a: v('10 10 9'), b: v('9 9 9') })]);
+    expect(changed.ends.map((e) => e.status)).toEqual(['mismatch', 'stopped']);
+    expect(changed.counted).toEqual([]);
+  });
+
+  it('says which ends the judge signed, and never undoes into one', () => {
+    const writes = [{ slot: 1 as const, endIndex: 0, a: v('10 10 10'), b: v('9 9 9') }];
+    const signed = pad({ writes, ends: [{ a: v('10 10 10'), b: v('9 9 9'), by: 'judge', signed: true }] });
+    const view = matchPadView(signed, []);
+    expect(view.ends[0]).toMatchObject({ status: 'judge', signed: true });
+    expect(view.undoEnd).toBeNull();
+  });
+
   it('shows the countersignature waiting on this phone, then the server’s', () => {
     expect(matchPadView(pad({}), [row(1, ref)]).countersigned).toBe('waiting');
     expect(matchPadView(pad({ countersignedBy: [1] }), []).countersigned).toBe('server');

@@ -9,7 +9,8 @@ import { apiCall, qualificationWriters, setUpSmallEvent } from './support/smallE
  * Two writers at a match's target: the two archers of a semi-final join it with the match's code
  * on their own phones and write both lines' arrows each end with the pad's keys. An end they wrote
  * alike counts; one they wrote differently goes to the judge's match card, where the judge settles
- * it. The judge signs, both archers countersign, and the winner moves on to the final.
+ * it. The judge signs a set, then the match, both archers countersign, and the winner moves on to
+ * the final.
  */
 
 const ARCHERS = ['Ilse Quarry', 'Jory Pellam', 'Kes Marlow', 'Lio Fenwick'];
@@ -151,6 +152,19 @@ test('two archers score their match on their phones, the judge settles a mismatc
   await expect(desk.getByTestId('writers-differ')).toHaveCount(0, { timeout: 30_000 });
   await expect(desk.getByTestId('score-a')).toContainText('4', { timeout: 30_000 });
   await expect(padB.getByTestId('writer-end-2')).toContainText('Settled by the judge', { timeout: 30_000 });
+
+  // The judge signs set 1 on the match card; the writers' pads say so.
+  const ends = desk.getByTestId('match-ends');
+  const signKey = await ends.getByRole('button', { name: 'Sign set 1' }).boundingBox();
+  expect(signKey!.height).toBeGreaterThanOrEqual(44);
+  await ends.getByRole('button', { name: 'Sign set 1' }).click();
+  await expect(desk.getByTestId('end-signature-1')).toContainText('✓ signed by the judge', { timeout: 30_000 });
+  await expect(ends.getByRole('button', { name: 'Sign set 1' })).toHaveCount(0);
+  await expect(ends.getByRole('button', { name: 'Sign set 2' })).toBeVisible();
+  await checkA11y(desk, 'judge: set 1 signed');
+  await shot(desk, 'judge-set-1-signed');
+  await expect(padA.getByTestId('writer-end-1')).toContainText('signed by the judge', { timeout: 30_000 });
+  await shot(padA, 'pad-set-1-signed');
 
   // End 3 alike: the match is over; the judge signs.
   await tapEnd(padA, '10 9 9 9 9 8');

@@ -4,6 +4,7 @@ import { rolesInEvent } from '../../auth/eventRoles';
 import { HttpError } from '../../http/httpError';
 import type { Author } from '../sync/effects';
 import { countersignMatch } from './countersignMatch';
+import { signMatchEnd } from './endSignatures';
 import { recordMatchEnd, recordMatchShootOff, signMatch } from './matchActions';
 import { recordMatchWrite } from './matchWrites';
 
@@ -11,9 +12,10 @@ import { recordMatchWrite } from './matchWrites';
 const byWriterOrArcher = (m: MatchMutation) => m.kind === 'match.write' || m.kind === 'match.countersign';
 
 /**
- * A match change from the phone's outbox: a judge's (`match.end`, `match.shootoff`, `match.sign`),
- * a writer's end (`match.write`) or an archer's countersignature (`match.countersign`), applied
- * through the same services as the match routes, inside the push's transaction. The sync
+ * A match change from the phone's outbox: a judge's (`match.end`, `match.shootoff`, `match.endSign`,
+ * `match.sign`), a writer's end (`match.write`) or an archer's countersignature
+ * (`match.countersign`), applied through the same services as the match routes, inside the
+ * push's transaction. The sync
  * log answers a change pushed again, so it takes effect once. A refusal (not a judge of the event,
  * a match of another event, a card the rules cannot produce) comes back as its sentence, with
  * nothing stored: the phone shows it like any other refused change.
@@ -34,6 +36,8 @@ export async function applyMatchChange(trx: Db, m: MatchMutation, by: Author): P
         await recordMatchWrite(sp, m.args, by.userId);
       } else if (m.kind === 'match.countersign') {
         await countersignMatch(sp, eventId, matchId, by.userId);
+      } else if (m.kind === 'match.endSign') {
+        await signMatchEnd(sp, eventId, matchId, m.args.endIndex, by.userId);
       } else if (m.kind === 'match.shootoff') {
         await recordMatchShootOff(sp, eventId, matchId, { a: m.args.a, b: m.args.b }, by.userId);
       } else {

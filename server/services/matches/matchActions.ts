@@ -5,6 +5,8 @@ import { badRequest, conflict } from '../../http/httpError';
 import { nowIso } from '../../time';
 import { audit } from '../audit';
 import { advance } from './advance';
+import { recountEnds } from './countEnds';
+import { signCountedEnds } from './endSignatures';
 import { findMatch, loadRecords, readMatch, requireBothSides, requireOpen, type MatchRow } from './matchRows';
 
 /*
@@ -44,11 +46,16 @@ export async function recordMatchEnd(
     source: 'judge',
     recorded_by: userId,
     recorded_at: nowIso(),
+    // The judge's own correction of a signed end replaces it: the end waits for a new signature.
+    signed_by: null,
+    signed_at: null,
   };
   await db('match_ends')
     .insert({ match_id: matchId, end_index: endIndex, ...row })
     .onConflict(['match_id', 'end_index'])
     .merge(row);
+  // Ends the writers agree on after an end that stopped the count count again once it is settled.
+  await recountEnds(db, match, userId);
 }
 
 /** A judge records the shoot-off arrow of each side (again, to add a measurement or "closer"). */
@@ -80,7 +87,7 @@ export async function recordMatchShootOff(
   });
 }
 
-/** A judge signs a decided match: its winner is stored and the bracket moves on. */
+/** A judge signs a decided match (and its counted ends not signed yet): its winner is stored and the bracket moves on. */
 export async function signMatch(db: Db, eventId: number, matchId: number, userId: number): Promise<void> {
   const match = await openMatch(db, eventId, matchId);
   const state = readMatch(match.format, (await loadRecords(db, [matchId])).get(matchId)!);
@@ -94,6 +101,7 @@ export async function signMatch(db: Db, eventId: number, matchId: number, userId
     throw conflict(`This match is not decided yet: ${waiting}.`);
   }
   await db.transaction(async (trx) => {
+    await signCountedEnds(trx, matchId, state.ends.length, userId);
     await trx('matches').where({ id: matchId }).update({
       winner_side: state.winner,
       decided_by: state.decidedBy,

@@ -1,4 +1,5 @@
 import {
+  countedEnds,
   matchState,
   ScoringError,
   type ArrowValue,
@@ -6,7 +7,7 @@ import {
   type MatchRecord,
   type Side,
 } from '../../../src/core';
-import type { MatchDto } from '../../../src/contract/matches';
+import type { MatchDto, MatchEndDto } from '../../../src/contract/matches';
 import type { Db } from '../../db';
 import { conflict, notFound } from '../../http/httpError';
 
@@ -59,13 +60,24 @@ export async function requireBothSides(db: Db, matchId: number): Promise<void> {
     throw conflict('Both archers of this match are not known yet: earlier matches are still open.');
 }
 
-type EndRow = {
+export type EndRow = {
   match_id: number;
   end_index: number;
   a_json: string;
   b_json: string;
   source: 'writers' | 'judge';
+  signed_at: string | null;
 };
+
+type StoredEnd = MatchEndDto & { by: EndRow['source'] };
+
+/** A stored end as the card shows it: its values, who made it count, and the judge's signature. */
+export const endOfRow = (e: EndRow): StoredEnd => ({
+  a: JSON.parse(e.a_json) as ArrowValue[],
+  b: JSON.parse(e.b_json) as ArrowValue[],
+  by: e.source,
+  ...(e.signed_at ? { signed: true as const } : {}),
+});
 type ShootRow = {
   match_id: number;
   side: Side;
@@ -74,25 +86,50 @@ type ShootRow = {
   closer: number | boolean;
 };
 
-/** The match cards of the given matches as the core reads them, by match id. */
+/**
+ * The match cards of the given matches as the core reads them, by match id: the stored ends that
+ * count (the core's countedEnds, so a judge's end kept after an end that left the count waits
+ * for it) and the shoot-off arrows.
+ */
 export async function loadRecords(
   db: Db,
   matchIds: number[],
 ): Promise<Map<number, Pick<MatchDto, 'ends' | 'shootOff'>>> {
-  const ends = (await db('match_ends')
-    .whereIn('match_id', matchIds)
-    .orderBy(['match_id', 'end_index'])) as EndRow[];
+  const ends = (await db('match_ends as e')
+    .join('matches as m', 'm.id', 'e.match_id')
+    .join('brackets as b', 'b.id', 'm.bracket_id')
+    .whereIn('e.match_id', matchIds)
+    .orderBy(['e.match_id', 'e.end_index'])
+    .select(
+      'e.match_id',
+      'e.end_index',
+      'e.a_json',
+      'e.b_json',
+      'e.source',
+      'e.signed_at',
+      'b.format',
+    )) as (EndRow & {
+    format: MatchFormat;
+  })[];
   const shots = (await db('match_shootoff_arrows').whereIn('match_id', matchIds)) as ShootRow[];
-  const records = new Map(
-    matchIds.map((id) => [id, { ends: [] as MatchDto['ends'], shootOff: {} as MatchDto['shootOff'] }]),
-  );
+  const stored = new Map<number, { format: MatchFormat; ends: StoredEnd[] }>();
   for (const e of ends) {
-    records.get(e.match_id)!.ends.push({
-      a: JSON.parse(e.a_json) as ArrowValue[],
-      b: JSON.parse(e.b_json) as ArrowValue[],
-      by: e.source,
-    });
+    const match = stored.get(e.match_id) ?? { format: e.format, ends: [] };
+    match.ends[e.end_index] = endOfRow(e);
+    stored.set(e.match_id, match);
   }
+  const records = new Map(
+    matchIds.map((id) => {
+      const match = stored.get(id);
+      const counted = match
+        ? countedEnds(
+            match.format,
+            Array.from(match.ends, (closed) => closed && { closed }),
+          )
+        : [];
+      return [id, { ends: counted as StoredEnd[], shootOff: {} as MatchDto['shootOff'] }];
+    }),
+  );
   for (const s of shots) {
     records.get(s.match_id)!.shootOff[s.side] = {
       value: s.value,

@@ -1,70 +1,32 @@
-import {
-  matchCrossCheck,
-  matchState,
-  ScoringError,
-  sortEnd,
-  type ArrowValue,
-  type MatchEnd,
-} from '../../../src/core';
 import type { MatchWriteArgs } from '../../../src/contract/matches';
 import type { Db } from '../../db';
 import { badRequest, conflict, forbidden } from '../../http/httpError';
 import { nowIso } from '../../time';
-import { findMatch, loadRecords, requireBothSides, requireOpen, type MatchRow } from './matchRows';
+import { recountEnds } from './countEnds';
+import { findMatch, requireBothSides, requireOpen, type EndRow } from './matchRows';
 import { writerSlot } from './matchWriters';
 
 /*
  * Two writers score a match at its target, like a qualification end: each writer's record of an
  * end (both lines' arrows) is kept apart; the core's cross-check compares them arrow by arrow;
- * an end both wrote alike, complete, counts on the match card. A mismatch waits for the match's
- * judge, whose end (`match.end`) settles it and closes it to the writers.
+ * an end both wrote alike, complete, counts on the match card (the core's countedEnds, in order).
+ * A mismatch waits for the match's judge, whose end (`match.end`) settles it and closes it to the
+ * writers; so does the judge's signature on an end (`match.endSign`).
  */
 
-type WriteRow = { end_index: number; slot: number; a_json: string; b_json: string; revision: number };
-
-const sameEnd = (x: MatchEnd, y: MatchEnd) =>
-  JSON.stringify([sortEnd(x.a), sortEnd(x.b)]) === JSON.stringify([sortEnd(y.a), sortEnd(y.b)]);
-
-/**
- * Counts the ends the writers agree on, in order: an end the judge entered stays as it is; the
- * first end they do not (yet) agree on stops the count, and so does an end the rules refuse
- * (after the match is won): those wait for the writers or the judge.
- */
-async function countAgreedEnds(db: Db, match: MatchRow, userId: number): Promise<void> {
-  const record = (await loadRecords(db, [match.id])).get(match.id)!;
-  const writes = (await db('match_end_writes').where({ match_id: match.id })) as WriteRow[];
-  const writerEnd = (slot: number, endIndex: number): MatchEnd | undefined => {
-    const w = writes.find((r) => Number(r.slot) === slot && r.end_index === endIndex);
-    return w && { a: JSON.parse(w.a_json) as ArrowValue[], b: JSON.parse(w.b_json) as ArrowValue[] };
-  };
-  const ends = [...record.ends];
-  for (let i = 0; ; i += 1) {
-    const counted = ends[i];
-    if (counted?.by === 'judge') continue;
-    const { agreed } = matchCrossCheck(writerEnd(1, i), writerEnd(2, i));
-    if (!agreed) return;
-    if (counted && sameEnd(counted, agreed)) continue;
-    const next = [...ends];
-    next[i] = { a: [...agreed.a], b: [...agreed.b], by: 'writers' };
-    try {
-      matchState(match.format, { ends: next, shootOff: record.shootOff });
-    } catch (error) {
-      if (error instanceof ScoringError) return;
-      throw error;
-    }
-    const row = {
-      a_json: JSON.stringify(agreed.a),
-      b_json: JSON.stringify(agreed.b),
-      source: 'writers',
-      recorded_by: userId,
-      recorded_at: nowIso(),
-    };
-    await db('match_ends')
-      .insert({ match_id: match.id, end_index: i, ...row })
-      .onConflict(['match_id', 'end_index'])
-      .merge(row);
-    ends.splice(0, ends.length, ...next);
-  }
+/** Why a writer can no longer change an end, in words; null while they can. */
+async function closedToWriters(db: Db, matchId: number, endIndex: number): Promise<string | null> {
+  const n = endIndex + 1;
+  const stored = (await db('match_ends')
+    .where({ match_id: matchId, end_index: endIndex })
+    .first('source', 'signed_at')) as Pick<EndRow, 'source' | 'signed_at'> | undefined;
+  if (stored?.signed_at) return `The judge signed end ${n} of this match; ask the judge.`;
+  if (stored?.source === 'judge')
+    return `The judge settled end ${n} of this match; only the judge can change it now.`;
+  // A changed end would leave the match no longer level behind the shoot-off the judge recorded.
+  const shot = await db('match_shootoff_arrows').where({ match_id: matchId }).first('id');
+  if (shot) return 'The judge recorded the shoot-off of this match: its ends are closed; ask the judge.';
+  return null;
 }
 
 /** A writer's record of one end of a match (replacing their previous record of it). */
@@ -78,13 +40,11 @@ export async function recordMatchWrite(db: Db, args: MatchWriteArgs, userId: num
   requireOpen(match);
   await requireBothSides(db, match.id);
   const n = args.endIndex + 1;
-  const judged = (await db('match_ends')
-    .where({ match_id: match.id, end_index: args.endIndex, source: 'judge' })
-    .first('id')) as { id: number } | undefined;
-  if (judged) throw conflict(`The judge settled end ${n} of this match; only the judge can change it now.`);
+  const closed = await closedToWriters(db, match.id, args.endIndex);
+  if (closed) throw conflict(closed);
   const own = (await db('match_end_writes')
     .where({ match_id: match.id, slot })
-    .select('end_index', 'revision')) as Pick<WriteRow, 'end_index' | 'revision'>[];
+    .select('end_index', 'revision')) as { end_index: number; revision: number }[];
   if (args.endIndex > 0 && !own.some((w) => w.end_index === args.endIndex - 1))
     throw badRequest(`Write end ${n - 1} of this match before end ${n}.`);
   const previous = own.find((w) => w.end_index === args.endIndex);
@@ -99,5 +59,5 @@ export async function recordMatchWrite(db: Db, args: MatchWriteArgs, userId: num
     .insert({ match_id: match.id, end_index: args.endIndex, slot, ...row })
     .onConflict(['match_id', 'end_index', 'slot'])
     .merge(row);
-  await countAgreedEnds(db, match, userId);
+  await recountEnds(db, match, userId);
 }

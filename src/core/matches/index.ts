@@ -25,5 +25,7 @@ export type { FirstRoundMatch } from './seeding';
 export { finalPlaces } from './finalPlaces';
 export { matchCrossCheck } from './matchCrossCheck';
 export type { MatchCrossCheck } from './matchCrossCheck';
+export { countedEnds } from './countedEnds';
+export type { CountedEnd, EndCountedBy, EndOnRecord } from './countedEnds';
 export { MATCH_SECONDS_PER_ARROW } from './timing';
 export type { BracketArcher, FinalPlace } from './finalPlaces';

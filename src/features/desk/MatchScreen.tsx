@@ -271,6 +271,7 @@ function MatchCardPanel({
         card={card}
         format={bracket.format}
         onCorrect={open ? (i) => setDraft({ endIndex: i, a: [], b: [] }) : undefined}
+        onSign={open ? (i) => save({ kind: 'match.endSign', args: { ...target, endIndex: i } }) : undefined}
       />
       {current && <EndEntry match={match} target={target} draft={current} setDraft={setDraft} save={save} />}
       {!draft && shootOff && (

@@ -36,6 +36,7 @@ const STATUS_WORDS: Record<WriterEndStatus, string> = {
   judge: '✓ Settled by the judge',
   waiting: 'Waiting for the other writer',
   mismatch: '▲ The writers differ: sent to the judge',
+  stopped: 'Agreed: it counts once the ends before it count',
 };
 
 function YourEnds({ match, view }: { match: MatchDto; view: MatchPadView }) {
@@ -50,6 +51,7 @@ function YourEnds({ match, view }: { match: MatchDto; view: MatchPadView }) {
             {nameOf(match, 'b')} {e.b.join(' ')}
             <span className="block font-bold">
               {STATUS_WORDS[e.status]}
+              {e.signed && ' · signed by the judge'}
               {e.waiting && ' · ▲ waiting to sync'}
             </span>
           </li>
@@ -119,7 +121,8 @@ function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
   const [typed, setTyped] = useState<Draft | null>(null);
   const { match, format } = pad;
   const view = matchPadView(pad, rows ?? []);
-  const card = matchCard(match, format, []);
+  // The score from the ends that count with this phone's writes laid over: a changed end leaves it at once.
+  const card = matchCard({ ...match, ends: view.counted }, format, []);
   const ref = { eventId: pad.eventId, matchId: match.id };
   const store = (change: Parameters<typeof recordChange>[2]) =>
     saveLocal(async () => {

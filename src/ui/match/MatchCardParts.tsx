@@ -92,17 +92,24 @@ export function Scoreline({
   );
 }
 
+/** The judge's signature on one end, in words: signed, waiting to sync, or none. */
+const SIGNATURE_WORDS = { server: '✓ signed by the judge', waiting: '▲ signature waiting to sync' } as const;
+
 export function EndsTable({
   match,
   card,
   format,
   onCorrect,
+  onSign,
 }: {
   match: MatchDto;
   card: MatchCardView;
   format: MatchFormat;
   onCorrect?: ((endIndex: number) => void) | undefined;
+  /** The judge signs one end (a set in the set system) not signed yet. */
+  onSign?: ((endIndex: number) => void) | undefined;
 }) {
+  const word = format === 'sets' ? 'set' : 'end';
   if (card.ends.length === 0) return <p>No end recorded yet.</p>;
   return (
     <table className="w-full border-collapse text-left" data-testid="match-ends">
@@ -136,6 +143,20 @@ export function EndsTable({
               ))}
               <td className="px-1 py-1 align-top">
                 {end.waiting ? '▲ waiting to sync' : '✓ synced'}
+                {end.signature && (
+                  <span className="block font-bold" data-testid={`end-signature-${i + 1}`}>
+                    {SIGNATURE_WORDS[end.signature]}
+                  </span>
+                )}
+                {onSign && !end.signature && (
+                  <button
+                    type="button"
+                    className="mt-1 block min-h-11 min-w-11 rounded-lg border-2 border-ink px-2 font-bold"
+                    onClick={() => onSign(i)}
+                  >
+                    Sign {word} {i + 1}
+                  </button>
+                )}
                 {onCorrect && (
                   <button
                     type="button"

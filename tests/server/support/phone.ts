@@ -15,6 +15,7 @@ import type { ShootOffRecordArgs } from '../../../src/contract/results';
 import type {
   MatchCountersignArgs,
   MatchEndArgs,
+  MatchEndSignArgs,
   MatchShootOffArgs,
   MatchSignArgs,
   MatchWriteArgs,
@@ -95,6 +96,11 @@ export class Phone {
 
   matchSign(args: MatchSignArgs): Mutation {
     return this.next({ kind: 'match.sign', args });
+  }
+
+  /** A judge's signature on one set or end of a match. */
+  matchEndSign(args: MatchEndSignArgs): Mutation {
+    return this.next({ kind: 'match.endSign', args });
   }
 
   /** A change to this person's own practice log (`practice.session`, `practice.end`, `practice.delete`). */

@@ -705,6 +705,13 @@ export const ROUTES: RouteRule[] = [
     ok: 404,
   },
   {
+    method: 'post',
+    route: '/api/events/:eventId/matches/:matchId/ends/:endIndex/sign',
+    path: (f) => `${ev(f)}/matches/999999/ends/0/sign`,
+    allowed: JUDGE,
+    ok: 404,
+  },
+  {
     method: 'put',
     route: '/api/events/:eventId/matches/:matchId/shoot-off',
     path: (f) => `${ev(f)}/matches/999999/shoot-off`,
