@@ -26,4 +26,8 @@ export { finalPlaces } from './finalPlaces';
 export { matchCrossCheck } from './matchCrossCheck';
 export type { MatchCrossCheck } from './matchCrossCheck';
 export { MATCH_SECONDS_PER_ARROW } from './timing';
+export { endOrder, firstInEnd, nextArrow } from './shootingOrder';
+export type { EndSoFar } from './shootingOrder';
+export { ALTERNATE_FROM, alternates } from './alternation';
+export type { AlternateFrom } from './alternation';
 export type { BracketArcher, FinalPlace } from './finalPlaces';
