@@ -17,6 +17,7 @@ import { shootOffRecordArgsSchema } from './results';
 import {
   matchCountersignArgsSchema,
   matchEndArgsSchema,
+  matchFirstShooterArgsSchema,
   matchShootOffArgsSchema,
   matchSignArgsSchema,
   matchWriteArgsSchema,
@@ -96,6 +97,8 @@ export const mutationSchema = z.discriminatedUnion(
     // A match writer's end at the target and an archer's countersignature on the match card.
     z.object({ ...base, kind: z.literal('match.write'), args: matchWriteArgsSchema }),
     z.object({ ...base, kind: z.literal('match.countersign'), args: matchCountersignArgsSchema }),
+    // Who shoots first in an alternating match (a writer of the match or a judge).
+    z.object({ ...base, kind: z.literal('match.firstShooter'), args: matchFirstShooterArgsSchema }),
   ],
   { error: 'Unknown kind of change. This phone may need the newest version of Ringcall.' },
 );
@@ -104,7 +107,15 @@ export type MutationKind = Mutation['kind'];
 /** A change to an elimination match: applied through the match services, not the field batch. */
 export type MatchMutation = Extract<
   Mutation,
-  { kind: 'match.end' | 'match.shootoff' | 'match.sign' | 'match.write' | 'match.countersign' }
+  {
+    kind:
+      | 'match.end'
+      | 'match.shootoff'
+      | 'match.sign'
+      | 'match.write'
+      | 'match.countersign'
+      | 'match.firstShooter';
+  }
 >;
 /** A change to the person's own practice log: applied by the practice services, for that person only. */
 export type PracticeMutation = Extract<

@@ -67,9 +67,8 @@ export async function replayLog(db: Db): Promise<FieldState> {
       rulings.push(rulingRow(JSON.parse(m.args_json) as EndRuleArgs, by));
     } else if (
       // Signatures, shoot-off arrows, match cards and practice are records of their own, not replayed.
-      !['end.sign', 'card.sign', 'shootoff.record', 'match.end', 'match.shootoff', 'match.sign'].includes(
-        m.kind,
-      ) &&
+      !['end.sign', 'card.sign', 'shootoff.record'].includes(m.kind) &&
+      !m.kind.startsWith('match.') &&
       !m.kind.startsWith('practice.')
     ) {
       throw new Error(`The mutation log holds an applied change of unknown kind "${m.kind}".`);

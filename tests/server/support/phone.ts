@@ -15,6 +15,7 @@ import type { ShootOffRecordArgs } from '../../../src/contract/results';
 import type {
   MatchCountersignArgs,
   MatchEndArgs,
+  MatchFirstShooterArgs,
   MatchShootOffArgs,
   MatchSignArgs,
   MatchWriteArgs,
@@ -109,6 +110,11 @@ export class Phone {
 
   matchCountersign(args: MatchCountersignArgs): Mutation {
     return this.next({ kind: 'match.countersign', args });
+  }
+
+  /** Who shoots first in an alternating match (a writer of the match or a judge). */
+  matchFirstShooter(args: MatchFirstShooterArgs): Mutation {
+    return this.next({ kind: 'match.firstShooter', args });
   }
 
   private next(change: Pick<Mutation, 'kind' | 'args'>): Mutation {
