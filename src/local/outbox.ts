@@ -4,6 +4,7 @@ import type { ShootOffRecordArgs } from '../contract/results';
 import type {
   MatchCountersignArgs,
   MatchEndArgs,
+  MatchFirstShooterArgs,
   MatchShootOffArgs,
   MatchSignArgs,
   MatchWriteArgs,
@@ -55,7 +56,8 @@ export type NewChange =
   | { kind: 'practice.end'; args: PracticeEndDto }
   | { kind: 'practice.delete'; args: PracticeDeleteArgs }
   | { kind: 'match.write'; args: MatchWriteArgs }
-  | { kind: 'match.countersign'; args: MatchCountersignArgs };
+  | { kind: 'match.countersign'; args: MatchCountersignArgs }
+  | { kind: 'match.firstShooter'; args: MatchFirstShooterArgs };
 
 /** A match change's key: the match, then the end, the shoot-off or the signature. */
 export const matchKeyOf = (matchId: number, what: string) => `match:${matchId}:${what}`;
@@ -77,6 +79,8 @@ function subjectKey(change: NewChange): string {
       return matchKeyOf(change.args.matchId, `write:${change.args.endIndex}`);
     case 'match.countersign':
       return matchKeyOf(change.args.matchId, 'countersign');
+    case 'match.firstShooter':
+      return matchKeyOf(change.args.matchId, 'first-shooter');
     case 'match.end':
       return matchKeyOf(change.args.matchId, `end:${change.args.endIndex}`);
     case 'match.shootoff':

@@ -15,8 +15,10 @@ import {
   ScoringError,
   alternates,
   endOrder,
+  lastInOrder,
   matchState,
   nextArrow,
+  nextInOrder,
   type AlternateFrom,
   type ArrowValue,
   type MatchEnd,
@@ -140,6 +142,18 @@ describe('whose arrow is next (WA Book 3, alternate shooting, from memory)', () 
         const { a, b } = state.score;
         const asks = state.next === 'end' || state.next === 'shoot-off';
         expect(first).toBe(!asks ? null : a === b ? chosen : a < b ? 'a' : 'b');
+      }),
+    );
+  });
+
+  it('property: the last arrow entered in turn is the one an undo takes back', () => {
+    fc.assert(
+      fc.property(side, fc.integer({ min: 0, max: 6 }), (first, n) => {
+        const order = endOrder(first, 3);
+        const current = { a: [] as ArrowValue[], b: [] as ArrowValue[] };
+        for (let i = 0; i < n; i += 1) current[nextInOrder(order, current)!].push('9');
+        expect(lastInOrder(order, current)).toBe(n === 0 ? null : order[n - 1]);
+        expect(nextInOrder(order, current)).toBe(n === 6 ? null : order[n]);
       }),
     );
   });

@@ -26,7 +26,7 @@ export { finalPlaces } from './finalPlaces';
 export { matchCrossCheck } from './matchCrossCheck';
 export type { MatchCrossCheck } from './matchCrossCheck';
 export { MATCH_SECONDS_PER_ARROW } from './timing';
-export { endOrder, firstInEnd, nextArrow } from './shootingOrder';
+export { endOrder, firstInEnd, lastInOrder, nextArrow, nextInOrder, shootingOrder } from './shootingOrder';
 export type { EndSoFar } from './shootingOrder';
 export { ALTERNATE_FROM, alternates } from './alternation';
 export type { AlternateFrom } from './alternation';

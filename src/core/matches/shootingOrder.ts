@@ -38,12 +38,44 @@ export function endOrder(first: Side, arrowsEach: number): Side[] {
 export type EndSoFar = { a: readonly ArrowValue[]; b: readonly ArrowValue[] };
 
 /**
+ * The order of the arrows of the end a match shot alternately asks for next (the shoot-off once it
+ * asks for that), from its record (the complete ends so far) and the side chosen to shoot first
+ * in the first end; empty when it asks for no more arrows (decided, or waiting for the judge's
+ * word). Refuses a card the rules cannot produce.
+ */
+export function shootingOrder(format: MatchFormat, record: MatchRecord, chosen: Side): Side[] {
+  const state = matchState(format, record);
+  const each = state.next === 'end' ? MATCH_ARROWS_PER_END : state.next === 'shoot-off' ? 1 : 0;
+  return endOrder(firstInEnd(state.score, chosen), each);
+}
+
+/** Which places of the order the arrows entered so far fill (an arrow entered out of turn fills its side's next place). */
+function filled(order: readonly Side[], current: EndSoFar): boolean[] {
+  const seen = { a: 0, b: 0 };
+  return order.map((side) => {
+    seen[side] += 1;
+    return seen[side] <= current[side].length;
+  });
+}
+
+/** Whose arrow is next in this order: the first place not yet filled; null once every place is. */
+export function nextInOrder(order: readonly Side[], current: EndSoFar): Side | null {
+  const at = filled(order, current).indexOf(false);
+  return at === -1 ? null : order[at]!;
+}
+
+/** Whose arrow was entered last in this order (the one an undo takes back); null before the first. */
+export function lastInOrder(order: readonly Side[], current: EndSoFar): Side | null {
+  const at = filled(order, current).lastIndexOf(true);
+  return at === -1 ? null : order[at]!;
+}
+
+/**
  * Whose arrow is next in a match shot alternately, from its record (the complete ends before the
  * one being shot), the side chosen to shoot first in the first end, and the arrows entered so far
  * in the end being shot (the shoot-off once the match asks for it). Null when that end is complete
- * or the match asks for no more arrows (decided, or waiting for the judge's word). Arrows entered
- * out of turn are counted where they are: the next arrow is the first place in the order not yet
- * filled. Refuses a card the rules cannot produce and more arrows than the end has.
+ * or the match asks for no more arrows. Refuses a card the rules cannot produce and more arrows
+ * than the end has.
  */
 export function nextArrow(
   format: MatchFormat,
@@ -51,20 +83,14 @@ export function nextArrow(
   chosen: Side,
   current: EndSoFar,
 ): Side | null {
-  const state = matchState(format, record);
-  const each = state.next === 'end' ? MATCH_ARROWS_PER_END : state.next === 'shoot-off' ? 1 : 0;
-  if (each === 0) return null;
+  const order = shootingOrder(format, record, chosen);
+  const each = order.length / 2;
   for (const side of ['a', 'b'] as const) {
-    if (current[side].length > each)
+    if (each > 0 && current[side].length > each)
       throw new ScoringError(
         'invalid-match',
-        `${state.next === 'end' ? 'An end' : 'The shoot-off'} of a match has ${each} ${each === 1 ? 'arrow' : 'arrows'} a side, not ${current[side].length}.`,
+        `${each === 1 ? 'The shoot-off' : 'An end'} of a match has ${each} ${each === 1 ? 'arrow' : 'arrows'} a side, not ${current[side].length}.`,
       );
   }
-  const seen = { a: 0, b: 0 };
-  for (const side of endOrder(firstInEnd(state.score, chosen), each)) {
-    if (seen[side] >= current[side].length) return side;
-    seen[side] += 1;
-  }
-  return null;
+  return nextInOrder(order, current);
 }
