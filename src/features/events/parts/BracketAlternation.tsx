@@ -5,9 +5,9 @@ import { SelectField } from '../../../ui/SelectField';
 import { useSetBracketSettings } from '../api/setBracketSettings';
 
 const CHOICES: Record<AlternateFrom, string> = {
-  never: 'Never: both archers shoot each end at once',
-  'medal-matches': 'The medal matches (bronze and gold)',
-  'semi-finals': 'From the semi-finals (semi-finals, bronze and gold)',
+  never: 'Never',
+  'medal-matches': 'Bronze and gold matches',
+  'semi-finals': 'From the semi-finals on',
 };
 
 /**
@@ -20,7 +20,7 @@ export function BracketAlternation({ eventId, bracket }: { eventId: number; brac
     <div className="space-y-2">
       <SelectField
         label="Matches shot alternately"
-        hint={`One arrow each in turn, ${MATCH_SECONDS_PER_ARROW} s an arrow; the archer behind starts each end.`}
+        hint={`One arrow each in turn, ${MATCH_SECONDS_PER_ARROW} s an arrow; the archer behind starts each end. Otherwise both shoot each end at once.`}
         value={set.isPending ? set.variables.alternate : bracket.alternate}
         disabled={set.isPending}
         onChange={(e) => set.mutate({ bracketId: bracket.id, alternate: e.target.value as AlternateFrom })}
