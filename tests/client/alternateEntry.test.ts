@@ -60,6 +60,11 @@ describe('alternate entry', () => {
     expect(asksWhoShootsFirst(alternating, 'a', empty)).toBe(false);
     expect(asksWhoShootsFirst(matchDto(), null, empty)).toBe(false);
     expect(asksWhoShootsFirst(alternating, null, { ...empty, a: v('9') })).toBe(false);
+    // The other writer's arrows of end 1 reached the server: the server would refuse the choice.
+    const begun = matchDto({ alternate: true, writes: [{ slot: 2, endIndex: 0, a: v('9'), b: [] }] });
+    expect(asksWhoShootsFirst(begun, null, empty)).toBe(false);
+    const emptied = matchDto({ alternate: true, writes: [{ slot: 2, endIndex: 0, a: [], b: [] }] });
+    expect(asksWhoShootsFirst(emptied, null, empty)).toBe(true);
   });
 
   it('puts each value in turn from the archer behind, and undoes the last arrow in turn', () => {

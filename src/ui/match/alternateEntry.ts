@@ -36,9 +36,18 @@ export function alternateOrder(
   }
 }
 
-/** Whether to ask who shoots first: an alternating match, nobody chose, end 1 not begun. */
+/**
+ * Whether to ask who shoots first: an alternating match, nobody chose, end 1 not begun here nor at
+ * the server (which refuses the choice once end 1 has an arrow: the entry then goes on line by line).
+ */
 export const asksWhoShootsFirst = (match: MatchDto, first: Side | null, draft: Draft | null) =>
-  match.alternate && !first && !!draft && draft.endIndex === 0 && draft.a.length + draft.b.length === 0;
+  match.alternate &&
+  !first &&
+  !!draft &&
+  draft.endIndex === 0 &&
+  draft.a.length + draft.b.length === 0 &&
+  match.ends.length === 0 &&
+  !match.writes.some((w) => w.endIndex === 0 && w.a.length + w.b.length > 0);
 
 export function addInOrder(draft: Draft, values: readonly ArrowValue[], order: Side[] | null): Draft {
   if (!order) return addValues(draft, [...values]);
