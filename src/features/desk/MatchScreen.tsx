@@ -1,7 +1,7 @@
 import { useEffect, useRef, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useLiveQuery } from 'dexie-react-hooks';
-import { ARROW_VALUES, arrowPoints, nextInOrder, type MatchFormat, type Side } from '../../core';
+import { ARROW_VALUES, arrowPoints, type MatchFormat, type Side } from '../../core';
 import type { BracketDto, MatchDto, MatchShootOffArgs } from '../../contract/matches';
 import { useEventBrackets } from '../../api/eventBrackets';
 import { localDb, type OutboxRow } from '../../local/db';
@@ -69,7 +69,6 @@ function EndEntry({
   const side: Side = draft.a.length < ARROWS ? 'a' : 'b';
   const order = alternateOrder(match, format, card.ends.slice(0, draft.endIndex), first?.side ?? null);
   const chooseFirst = (s: Side) => save({ kind: 'match.firstShooter', args: { ...target, side: s } });
-  const empty = draft.a.length + draft.b.length === 0;
   if (asksWhoShootsFirst(match, first?.side ?? null, card.ends.length === 0 ? draft : null))
     return (
       <Panel id="end-entry" title={`End ${draft.endIndex + 1}`}>
@@ -80,13 +79,7 @@ function EndEntry({
     <Panel id="end-entry" title={`End ${draft.endIndex + 1}`}>
       <DraftLines match={match} draft={draft} per={ARROWS} />
       {order ? (
-        <NextArrow
-          match={match}
-          next={nextInOrder(order, draft)}
-          arrowsIn={`${draft.endIndex}:${draft.a.length + draft.b.length}`}
-          first={first}
-          onChoose={draft.endIndex === 0 && empty && card.ends.length === 0 ? chooseFirst : undefined}
-        />
+        <NextArrow match={match} order={order} draft={draft} first={first} onChoose={chooseFirst} />
       ) : (
         !complete && (
           <>

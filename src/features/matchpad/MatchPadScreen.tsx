@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { useLiveQuery } from 'dexie-react-hooks';
-import { ARROW_VALUES, nextInOrder, type ArrowValue } from '../../core';
+import { ARROW_VALUES, type ArrowValue } from '../../core';
 import type { MatchDto } from '../../contract/matches';
 import { RequireSignIn } from '../../account/RequireSignIn';
 import { localDb, matchPadKeyOf, type JoinedMatch } from '../../local/db';
@@ -143,7 +143,6 @@ function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
   );
   const order = current && alternateOrder(match, format, before, first?.side ?? null);
   const chooseFirst = (side: 'a' | 'b') => store({ kind: 'match.firstShooter', args: { ...ref, side } });
-  const endOneEmpty = current?.endIndex === 0 && current.a.length + current.b.length === 0;
   return (
     <div className="space-y-4">
       <p className="text-xl">
@@ -163,13 +162,7 @@ function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
           ) : (
             <>
               {order ? (
-                <NextArrow
-                  match={match}
-                  next={nextInOrder(order, current)}
-                  arrowsIn={`${current.endIndex}:${current.a.length + current.b.length}`}
-                  first={first}
-                  onChoose={endOneEmpty ? chooseFirst : undefined}
-                />
+                <NextArrow match={match} order={order} draft={current} first={first} onChoose={chooseFirst} />
               ) : (
                 <>
                   <p>

@@ -1,8 +1,8 @@
-import { other, type Side } from '../../core';
+import { nextInOrder, other, type Side } from '../../core';
 import type { MatchDto } from '../../contract/matches';
 import { Button } from '../Button';
 import { ArrowCountdown } from './ArrowCountdown';
-import { nameOf } from './MatchCardParts';
+import { nameOf, type Draft } from './MatchCardParts';
 
 /*
  * A match shot alternately, on the writers' pad and the judge's match card: before end 1, who
@@ -41,27 +41,29 @@ export function WhoShootsFirst({ match, onChoose }: { match: MatchDto; onChoose:
 }
 
 /**
- * Whose arrow is next (none once the end is complete), the arrow clock started again for each
- * arrow, and, until end 1 begins, who was chosen to start it with a key to change it.
+ * Whose arrow is next in the end being entered (none once it is complete), the arrow clock started
+ * again for each arrow, and, until end 1 begins, who was chosen to start it with a key to change it.
  */
 export function NextArrow({
   match,
-  next,
-  arrowsIn,
+  order,
+  draft,
   first,
   onChoose,
 }: {
   match: MatchDto;
-  next: Side | null;
-  /** How many arrows the end has so far: each one starts the next archer's time. */
-  arrowsIn: string;
+  /** The order of this end's arrows (core `shootingOrder`). */
+  order: Side[];
+  draft: Draft;
   first: { side: Side; waiting: boolean } | null;
-  /** Given only while the choice can still change (end 1 not begun). */
-  onChoose?: ((side: Side) => void) | undefined;
+  onChoose: (side: Side) => void;
 }) {
+  const arrowsIn = draft.a.length + draft.b.length;
+  const next = nextInOrder(order, draft);
+  const canChange = first && draft.endIndex === 0 && arrowsIn === 0 && match.ends.length === 0;
   return (
     <div className="space-y-2">
-      {first && onChoose && (
+      {canChange && (
         <div className="flex flex-wrap items-center gap-2">
           <p>
             {nameOf(match, first.side)} shoots first in end 1{first.waiting && ' (▲ waiting to sync)'}.
@@ -76,7 +78,7 @@ export function NextArrow({
           <p className="text-2xl font-bold" role="status" data-testid="next-arrow">
             Next arrow: {nameOf(match, next)}
           </p>
-          <ArrowCountdown restartOn={arrowsIn} />
+          <ArrowCountdown restartOn={`${draft.endIndex}:${arrowsIn}`} />
         </>
       )}
     </div>
