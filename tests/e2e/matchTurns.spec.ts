@@ -8,9 +8,9 @@ import { apiCall, qualificationWriters, setUpSmallEvent } from './support/smallE
 /*
  * Alternate shooting in the finals: the organizer sets the bracket's semi-finals and medal matches
  * to alternate; the upper line's archer joins the semi-final on the phone, is asked who shoots
- * first, picks the lower line's archer, and the pad shows whose arrow is next, changing with
- * every value entered, the arrow clock starting again for each arrow. The judge's match card
- * shows the same turn once the choice has synced.
+ * first, picks the lower line's archer with no signal, and the pad shows whose arrow is next,
+ * changing with every value entered, the arrow clock starting again for each arrow. The judge's
+ * match card shows the same turn once the choice has synced.
  */
 
 const ARCHERS = ['Mora Quint', 'Nell Ashby', 'Odo Ferris', 'Pim Harrow'];
@@ -111,10 +111,13 @@ test('an alternating semi-final: the writer picks who shoots first and the pad f
   await checkA11y(pad, 'match pad: who shoots first');
   await shot(pad, 'who-shoots-first');
 
+  // No signal at the target: the choice and the arrows wait in the outbox, the turns follow them.
+  await pad.context().setOffline(true);
   // The lower line's archer starts; the turn changes with every value entered.
   await ask.getByRole('button', { name: ARCHERS[3]! }).click();
   const next = pad.getByTestId('next-arrow');
   await expect(next).toHaveText(`Next arrow: ${ARCHERS[3]}`);
+  await expect(pad.getByText(`${ARCHERS[3]} shoots first in end 1 (▲ waiting to sync).`)).toBeVisible();
   await pad.getByRole('button', { name: /Start the arrow clock/ }).click();
   await expect(pad.getByTestId('arrow-clock')).toContainText('s left for this arrow');
   await tap(pad, '9');
@@ -138,6 +141,7 @@ test('an alternating semi-final: the writer picks who shoots first and the pad f
   // End 1 complete (Mora 30, Pim 26): the archer behind, Pim, starts end 2.
   await expect(pad.getByRole('heading', { name: 'End 2' })).toBeVisible();
   await expect(next).toHaveText(`Next arrow: ${ARCHERS[3]}`);
+  await pad.context().setOffline(false);
 
   // The judge's match card, once the choice reached the server: the same first shooter for end 1.
   await expect
