@@ -13,6 +13,7 @@ import * as m0013 from '../migrations/0013_matches';
 import * as m0014 from '../migrations/0014_practice_sync';
 import * as m0015 from '../migrations/0015_match_writers';
 import * as m0016 from '../migrations/0016_match_end_signatures';
+import * as m0017 from '../migrations/0017_alternate_shooting';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
 
@@ -35,6 +36,7 @@ const migrations: [string, Migration][] = [
   ['0014_practice_sync', m0014],
   ['0015_match_writers', m0015],
   ['0016_match_end_signatures', m0016],
+  ['0017_alternate_shooting', m0017],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {

@@ -1,6 +1,7 @@
 import { Router, type NextFunction, type Request, type Response } from 'express';
 import {
   MATCH_END_INDEX_MAX,
+  bracketSettingsSchema,
   createBracketSchema,
   matchEndSchema,
   matchScorerSchema,
@@ -26,11 +27,12 @@ import {
 } from '../services/matches/matchActions';
 import { matchJoinCodes } from '../services/matches/matchJoinCodes';
 import { matchPad, setMatchScorer } from '../services/matches/matchWriters';
+import { setBracketAlternation } from '../services/matches/shootingOrder';
 import { findResultsEvent, requireResultsViewer } from '../services/results/resultsEvent';
 
 /**
  * Eliminations: brackets are seen like the results (public once published); organizers create
- * them, place matches on targets and record withdrawals and no-shows; judges record the ends and
+ * them, set which matches alternate, place matches on targets and record withdrawals and no-shows; judges record the ends and
  * shoot-off arrows of a match and sign its ends and the match, which moves the bracket on.
  */
 export function matchRoutes(ctx: AppContext): Router {
@@ -85,6 +87,19 @@ export function matchRoutes(ctx: AppContext): Router {
       const eventId = Number(req.params.eventId);
       await createBracket(db, eventId, req.user!.id, req.body);
       res.status(201).json(await answer(eventId));
+    },
+  );
+
+  /** Which of the bracket's matches are shot alternately. */
+  router.patch(
+    '/events/:eventId/brackets/:bracketId',
+    ...organizer,
+    validateBody(bracketSettingsSchema),
+    async (req, res) => {
+      const eventId = Number(req.params.eventId);
+      const bracketId = idParam(req, 'bracketId', 'bracket');
+      await setBracketAlternation(db, eventId, bracketId, req.body.alternate, req.user!.id);
+      res.json(await answer(eventId));
     },
   );
 

@@ -1,9 +1,11 @@
 import { z } from 'zod';
 import {
+  ALTERNATE_FROM,
   MATCH_ARROWS_PER_END,
   MATCH_MAX_ENDS,
   MAX_BRACKET_ENTRANTS,
   MIN_BRACKET_ENTRANTS,
+  type AlternateFrom,
   type ArrowValue,
   type MatchFormat,
   type MatchNext,
@@ -56,6 +58,15 @@ const shootOffArrowSchema = z.object(shootOffArrowFields).refine(...oneMeasure);
 export const matchShootOffSchema = z.object({ a: shootOffArrowSchema, b: shootOffArrowSchema });
 export type MatchShootOffBody = z.infer<typeof matchShootOffSchema>;
 
+/** Which matches of a bracket are shot alternately (core `alternates`). */
+export const bracketSettingsSchema = z.object({
+  alternate: z.enum(ALTERNATE_FROM, {
+    error:
+      'Alternate must be "never", "medal-matches" (bronze and gold) or "semi-finals" (the semi-finals and both medal matches).',
+  }),
+});
+export type BracketSettings = z.infer<typeof bracketSettingsSchema>;
+
 export const matchTargetSchema = z.object({
   targetNumber: z.number().int().min(1, 'Target numbers start at 1.').max(999).nullable(),
 });
@@ -102,6 +113,10 @@ export type MatchDto = {
     shootOff: ShootOffOutcome | null;
     outlook: Record<Side, SideOutlook>;
   } | null;
+  /** Shot alternately (the bracket's setting): one arrow each in turn, the side behind first. */
+  alternate: boolean;
+  /** The side chosen to shoot first in the first end of an alternating match, once recorded. */
+  firstShooter: Side | null;
   /** Set once the judge signs, or by a bye, withdrawal or no-show: the bracket moves on. */
   winner: Side | null;
   decidedBy: DecidedBy | null;
@@ -116,6 +131,8 @@ export type BracketDto = {
   divisionName: string;
   sessionId: number;
   format: MatchFormat;
+  /** Which of its matches are shot alternately. */
+  alternate: AlternateFrom;
   entrants: number;
   size: number;
   rounds: number;
@@ -173,6 +190,10 @@ export type MatchWriteArgs = z.infer<typeof matchWriteArgsSchema>;
 
 export const matchCountersignArgsSchema = z.object(matchRef);
 export type MatchCountersignArgs = z.infer<typeof matchCountersignArgsSchema>;
+
+/** Who shoots first in the first end of an alternating match (sync kind `match.firstShooter`): a writer or a judge. */
+export const matchFirstShooterArgsSchema = z.object({ ...matchRef, side: sideSchema });
+export type MatchFirstShooterArgs = z.infer<typeof matchFirstShooterArgsSchema>;
 
 /** Joining a match's target with the match's join code. */
 export const matchJoinSchema = z.object({

@@ -18,6 +18,7 @@ import {
   matchCountersignArgsSchema,
   matchEndArgsSchema,
   matchEndSignArgsSchema,
+  matchFirstShooterArgsSchema,
   matchShootOffArgsSchema,
   matchSignArgsSchema,
   matchWriteArgsSchema,
@@ -98,6 +99,8 @@ export const mutationSchema = z.discriminatedUnion(
     // A match writer's end at the target and an archer's countersignature on the match card.
     z.object({ ...base, kind: z.literal('match.write'), args: matchWriteArgsSchema }),
     z.object({ ...base, kind: z.literal('match.countersign'), args: matchCountersignArgsSchema }),
+    // Who shoots first in an alternating match (a writer of the match or a judge).
+    z.object({ ...base, kind: z.literal('match.firstShooter'), args: matchFirstShooterArgsSchema }),
   ],
   { error: 'Unknown kind of change. This phone may need the newest version of Ringcall.' },
 );
@@ -107,7 +110,14 @@ export type MutationKind = Mutation['kind'];
 export type MatchMutation = Extract<
   Mutation,
   {
-    kind: 'match.end' | 'match.shootoff' | 'match.sign' | 'match.endSign' | 'match.write' | 'match.countersign';
+    kind:
+      | 'match.end'
+      | 'match.shootoff'
+      | 'match.sign'
+      | 'match.endSign'
+      | 'match.write'
+      | 'match.countersign'
+      | 'match.firstShooter';
   }
 >;
 /** A change to the person's own practice log: applied by the practice services, for that person only. */

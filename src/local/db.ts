@@ -1,6 +1,7 @@
 import type {
   MatchCountersignArgs,
   MatchEndArgs,
+  MatchFirstShooterArgs,
   MatchPadDto,
   MatchShootOffArgs,
   MatchSignArgs,
@@ -67,7 +68,8 @@ export type OutboxRow = {
     | PracticeEndDto
     | PracticeDeleteArgs
     | MatchWriteArgs
-    | MatchCountersignArgs;
+    | MatchCountersignArgs
+    | MatchFirstShooterArgs;
   at: string;
   /** The end this change is about (session:entry:end), for the pad's overlay; a card, a shoot-off arrow or a match has its own key. */
   endKey: string;

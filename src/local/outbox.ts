@@ -5,6 +5,7 @@ import type {
   MatchCountersignArgs,
   MatchEndArgs,
   MatchEndSignArgs,
+  MatchFirstShooterArgs,
   MatchShootOffArgs,
   MatchSignArgs,
   MatchWriteArgs,
@@ -57,7 +58,8 @@ export type NewChange =
   | { kind: 'practice.end'; args: PracticeEndDto }
   | { kind: 'practice.delete'; args: PracticeDeleteArgs }
   | { kind: 'match.write'; args: MatchWriteArgs }
-  | { kind: 'match.countersign'; args: MatchCountersignArgs };
+  | { kind: 'match.countersign'; args: MatchCountersignArgs }
+  | { kind: 'match.firstShooter'; args: MatchFirstShooterArgs };
 
 /** A match change's key: the match, then the end, the shoot-off or the signature. */
 export const matchKeyOf = (matchId: number, what: string) => `match:${matchId}:${what}`;
@@ -79,6 +81,8 @@ function subjectKey(change: NewChange): string {
       return matchKeyOf(change.args.matchId, `write:${change.args.endIndex}`);
     case 'match.countersign':
       return matchKeyOf(change.args.matchId, 'countersign');
+    case 'match.firstShooter':
+      return matchKeyOf(change.args.matchId, 'first-shooter');
     case 'match.end':
       return matchKeyOf(change.args.matchId, `end:${change.args.endIndex}`);
     case 'match.shootoff':

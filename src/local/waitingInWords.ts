@@ -8,6 +8,7 @@ function describeMatch(row: OutboxRow, match: string): string {
   if ('endIndex' in row.args) return `Match: ${match}, end ${row.args.endIndex + 1}`;
   if (row.kind === 'match.sign') return `Your signature on the match ${match}`;
   if (row.kind === 'match.countersign') return `Your countersignature on the match ${match}`;
+  if (row.kind === 'match.firstShooter') return `Match: ${match}, who shoots first`;
   return `Match: ${match}, shoot-off arrows`;
 }
 

@@ -34,6 +34,7 @@ describe('fieldBracketPages', () => {
     divisionName: 'Recurve',
     sessionId: 1,
     format: 'sets',
+    alternate: 'never',
     entrants: 8,
     size: 8,
     rounds: 3,

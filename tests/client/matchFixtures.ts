@@ -26,6 +26,8 @@ export function matchDto(extra: Partial<MatchDto> = {}, read = false): MatchDto 
     signedAt: null,
     writes: [],
     countersignedBy: [],
+    alternate: false,
+    firstShooter: null,
     ...extra,
   };
   if (!read) return m;

@@ -256,6 +256,7 @@ describe('the bracket PDF of a large bracket', () => {
       divisionName: 'Recurve Women',
       sessionId: 1,
       format: 'sets',
+      alternate: 'never',
       entrants: size,
       size,
       rounds,

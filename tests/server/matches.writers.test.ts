@@ -1,10 +1,16 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ArrowValue } from '../../src/core';
-import type { BracketDto, MatchDto, MatchPadDto } from '../../src/contract/matches';
+import type { MatchDto, MatchPadDto } from '../../src/contract/matches';
 import type { Mutation, MutationResult } from '../../src/contract/sync';
 import type { Field } from './support/fieldSetup';
-import { setUpMatchWriters, type MatchWritersField } from './support/matchWriters';
+import {
+  matchOf,
+  organizerBrackets,
+  reasonOf,
+  setUpMatchWriters,
+  type MatchWritersField,
+} from './support/matchWriters';
 import { makePerson, type TestPerson } from './support/people';
 import { Phone } from './support/phone';
 import { startTestServer, type TestServer } from './support/testServer';
@@ -27,11 +33,8 @@ let second: MatchDto;
 let codes: Map<number, string>;
 
 const v = (text: string) => text.split(' ') as ArrowValue[];
-const reasonOf = (r: MutationResult | undefined) => (r && 'reason' in r ? r.reason : undefined);
-const brackets = async (): Promise<BracketDto[]> =>
-  (await request(server.app).get(`/api/events/${field.eventId}/brackets`).set(field.organizer.auth)).body
-    .brackets as BracketDto[];
-const matchById = async (id: number) => (await brackets())[0]!.matches.find((m) => m.id === id)!;
+const brackets = () => organizerBrackets(server, field);
+const matchById = (id: number) => matchOf(server, field, id);
 const join = (person: TestPerson, code: unknown) =>
   request(server.app).post('/api/join/match').set(person.auth).send({ code });
 /** Pushes one change from a person's phone and answers its result. */

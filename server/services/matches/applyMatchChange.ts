@@ -7,15 +7,17 @@ import { countersignMatch } from './countersignMatch';
 import { signMatchEnd } from './endSignatures';
 import { recordMatchEnd, recordMatchShootOff, signMatch } from './matchActions';
 import { recordMatchWrite } from './matchWrites';
+import { recordFirstShooter } from './shootingOrder';
 
-/** A writer's end and an archer's countersignature: their own rules say who may (not the judge role). */
-const byWriterOrArcher = (m: MatchMutation) => m.kind === 'match.write' || m.kind === 'match.countersign';
+/** A writer's end, an archer's countersignature, who shoots first: their own rules say who may (not the judge role alone). */
+const byWriterOrArcher = (m: MatchMutation) =>
+  m.kind === 'match.write' || m.kind === 'match.countersign' || m.kind === 'match.firstShooter';
 
 /**
  * A match change from the phone's outbox: a judge's (`match.end`, `match.shootoff`, `match.endSign`,
- * `match.sign`), a writer's end (`match.write`) or an archer's countersignature
- * (`match.countersign`), applied through the same services as the match routes, inside the
- * push's transaction. The sync
+ * `match.sign`), a writer's end (`match.write`), an archer's countersignature (`match.countersign`) or
+ * who shoots first in an alternating match (`match.firstShooter`, a writer or a judge), applied
+ * through the same services as the match routes, inside the push's transaction. The sync
  * log answers a change pushed again, so it takes effect once. A refusal (not a judge of the event,
  * a match of another event, a card the rules cannot produce) comes back as its sentence, with
  * nothing stored: the phone shows it like any other refused change.
@@ -34,6 +36,8 @@ export async function applyMatchChange(trx: Db, m: MatchMutation, by: Author): P
         await recordMatchEnd(sp, eventId, matchId, endIndex, { a, b }, by.userId);
       } else if (m.kind === 'match.write') {
         await recordMatchWrite(sp, m.args, by.userId);
+      } else if (m.kind === 'match.firstShooter') {
+        await recordFirstShooter(sp, m.args, by.userId);
       } else if (m.kind === 'match.countersign') {
         await countersignMatch(sp, eventId, matchId, by.userId);
       } else if (m.kind === 'match.endSign') {

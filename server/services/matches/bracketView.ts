@@ -1,4 +1,11 @@
-import { finalPlaces, type BracketArcher, type MatchFormat, type Side } from '../../../src/core';
+import {
+  alternates,
+  finalPlaces,
+  type AlternateFrom,
+  type BracketArcher,
+  type MatchFormat,
+  type Side,
+} from '../../../src/core';
 import type { BracketDto, MatchDto, MatchSideDto } from '../../../src/contract/matches';
 import type { Db } from '../../db';
 import { loadRecords, readMatch, type MatchRow } from './matchRows';
@@ -10,6 +17,7 @@ type BracketRow = {
   division_name: string;
   session_id: number;
   format: MatchFormat;
+  alternate: AlternateFrom;
   entrants: number;
   size: number;
 };
@@ -40,7 +48,8 @@ async function sidesOf(db: Db, matchIds: number[]): Promise<Map<number, MatchDto
 }
 
 function matchDto(
-  m: MatchRow,
+  m: MatchRow & { first_shooter: Side | null },
+  alternate: boolean,
   format: MatchFormat,
   sides: MatchDto['sides'],
   record: Pick<MatchDto, 'ends' | 'shootOff'>,
@@ -67,6 +76,8 @@ function matchDto(
       shootOff: state.shootOff,
       outlook: state.outlook,
     },
+    alternate,
+    firstShooter: alternate ? m.first_shooter : null,
     winner: m.winner_side,
     decidedBy: m.decided_by,
     signedAt: m.signed_at,
@@ -120,6 +131,7 @@ export async function eventBrackets(db: Db, eventId: number): Promise<BracketDto
       'd.name as division_name',
       'b.session_id',
       'b.format',
+      'b.alternate',
       'b.entrants',
       'b.size',
     )) as BracketRow[];
@@ -128,7 +140,9 @@ export async function eventBrackets(db: Db, eventId: number): Promise<BracketDto
       'bracket_id',
       brackets.map((b) => b.id),
     )
-    .orderBy(['bracket_id', 'round', 'bronze', 'slot'])) as Omit<MatchRow, 'format' | 'size'>[];
+    .orderBy(['bracket_id', 'round', 'bronze', 'slot'])) as (Omit<MatchRow, 'format' | 'size'> & {
+    first_shooter: Side | null;
+  })[];
   const ids = matchRows.map((m) => m.id);
   const [sides, records, writers] = await Promise.all([
     sidesOf(db, ids),
@@ -142,6 +156,7 @@ export async function eventBrackets(db: Db, eventId: number): Promise<BracketDto
       .map((m) =>
         matchDto(
           { ...m, format: b.format, size: b.size },
+          alternates(b.alternate, m, rounds),
           b.format,
           sides.get(m.id) ?? {},
           records.get(m.id)!,
@@ -154,6 +169,7 @@ export async function eventBrackets(db: Db, eventId: number): Promise<BracketDto
       divisionName: b.division_name,
       sessionId: b.session_id,
       format: b.format,
+      alternate: b.alternate,
       entrants: b.entrants,
       size: b.size,
       rounds,

@@ -28,4 +28,8 @@ export type { MatchCrossCheck } from './matchCrossCheck';
 export { countedEnds } from './countedEnds';
 export type { CountedEnd, EndCountedBy, EndOnRecord } from './countedEnds';
 export { MATCH_SECONDS_PER_ARROW } from './timing';
+export { endOrder, firstInEnd, lastInOrder, nextArrow, nextInOrder, shootingOrder } from './shootingOrder';
+export type { EndSoFar } from './shootingOrder';
+export { ALTERNATE_FROM, alternates } from './alternation';
+export type { AlternateFrom } from './alternation';
 export type { BracketArcher, FinalPlace } from './finalPlaces';

@@ -1,7 +1,7 @@
 import { useEffect, useRef, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useLiveQuery } from 'dexie-react-hooks';
-import { ARROW_VALUES, arrowPoints, type Side } from '../../core';
+import { ARROW_VALUES, arrowPoints, type MatchFormat, type Side } from '../../core';
 import type { BracketDto, MatchDto, MatchShootOffArgs } from '../../contract/matches';
 import { useEventBrackets } from '../../api/eventBrackets';
 import { localDb, type OutboxRow } from '../../local/db';
@@ -19,6 +19,9 @@ import { RefusedNotice } from '../../ui/scorecard/RefusedNotice';
 import { JudgeOnly } from './JudgeOnly';
 import { WritersDiffer } from './WritersDiffer';
 import { ArrowCountdown } from '../../ui/match/ArrowCountdown';
+import { addInOrder, alternateOrder, asksWhoShootsFirst, undoInOrder } from '../../ui/match/alternateEntry';
+import { NextArrow, WhoShootsFirst } from '../../ui/match/ShootingOrder';
+import { chosenFirstShooter } from '../../local/firstShooter';
 import { matchCard, matchRowsOf, type MatchCardView } from '../../local/matchCard';
 import {
   addValues,
@@ -45,12 +48,18 @@ const ownMatchRows = (userId: number): Promise<OutboxRow[]> =>
 
 function EndEntry({
   match,
+  format,
+  card,
+  first,
   target,
   draft,
   setDraft,
   save,
 }: {
   match: MatchDto;
+  format: MatchFormat;
+  card: MatchCardView;
+  first: ReturnType<typeof chosenFirstShooter>;
   target: { eventId: number; matchId: number };
   draft: Draft;
   setDraft: (d: Draft | undefined) => void;
@@ -58,22 +67,34 @@ function EndEntry({
 }) {
   const complete = draft.a.length === ARROWS && draft.b.length === ARROWS;
   const side: Side = draft.a.length < ARROWS ? 'a' : 'b';
+  const order = alternateOrder(match, format, card.ends.slice(0, draft.endIndex), first?.side ?? null);
+  const chooseFirst = (s: Side) => save({ kind: 'match.firstShooter', args: { ...target, side: s } });
+  if (asksWhoShootsFirst(match, first?.side ?? null, card.ends.length === 0 ? draft : null))
+    return (
+      <Panel id="end-entry" title={`End ${draft.endIndex + 1}`}>
+        <WhoShootsFirst match={match} onChoose={chooseFirst} />
+      </Panel>
+    );
   return (
     <Panel id="end-entry" title={`End ${draft.endIndex + 1}`}>
       <DraftLines match={match} draft={draft} per={ARROWS} />
-      {!complete && (
-        <>
-          <p>
-            Arrows of <span className="font-bold">{nameOf(match, side)}</span>, highest first.
-          </p>
-          <ArrowCountdown key={`${draft.endIndex}:${draft.a.length + draft.b.length}`} />
-        </>
+      {order ? (
+        <NextArrow match={match} order={order} draft={draft} first={first} onChoose={chooseFirst} />
+      ) : (
+        !complete && (
+          <>
+            <p>
+              Arrows of <span className="font-bold">{nameOf(match, side)}</span>, highest first.
+            </p>
+            <ArrowCountdown key={`${draft.endIndex}:${draft.a.length + draft.b.length}`} />
+          </>
+        )
       )}
       <ArrowKeypad
         allowed={ARROW_VALUES}
         disabled={complete}
-        onValues={(values) => setDraft(addValues(draft, values))}
-        onUndo={() => setDraft(undoValue(draft))}
+        onValues={(values) => setDraft(addInOrder(draft, values, order))}
+        onUndo={() => setDraft(undoInOrder(draft, order))}
         canUndo={draft.a.length + draft.b.length > 0}
       />
       {complete && (
@@ -273,7 +294,18 @@ function MatchCardPanel({
         onCorrect={open ? (i) => setDraft({ endIndex: i, a: [], b: [] }) : undefined}
         onSign={open ? (i) => save({ kind: 'match.endSign', args: { ...target, endIndex: i } }) : undefined}
       />
-      {current && <EndEntry match={match} target={target} draft={current} setDraft={setDraft} save={save} />}
+      {current && (
+        <EndEntry
+          match={match}
+          format={bracket.format}
+          card={card}
+          first={chosenFirstShooter(match, mine)}
+          target={target}
+          draft={current}
+          setDraft={setDraft}
+          save={save}
+        />
+      )}
       {!draft && shootOff && (
         <ShootOffEntry
           key={`${card.shootOff.a?.value}:${card.shootOff.b?.value}`}

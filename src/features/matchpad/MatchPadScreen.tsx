@@ -5,6 +5,7 @@ import { ARROW_VALUES, type ArrowValue } from '../../core';
 import type { MatchDto } from '../../contract/matches';
 import { RequireSignIn } from '../../account/RequireSignIn';
 import { localDb, matchPadKeyOf, type JoinedMatch } from '../../local/db';
+import { chosenFirstShooter } from '../../local/firstShooter';
 import { matchCard } from '../../local/matchCard';
 import { matchPadView, type MatchPadView, type WriterEndStatus } from '../../local/matchPadView';
 import { recordChange } from '../../local/outbox';
@@ -14,15 +15,15 @@ import { countersignedLine } from '../../ui/bracketLabels';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { ArrowCountdown } from '../../ui/match/ArrowCountdown';
+import { addInOrder, alternateOrder, asksWhoShootsFirst, undoInOrder } from '../../ui/match/alternateEntry';
+import { NextArrow, WhoShootsFirst } from '../../ui/match/ShootingOrder';
 import {
-  addValues,
   ARROWS,
   DraftLines,
   EndsTable,
   nameOf,
   Panel,
   Scoreline,
-  undoValue,
   type Draft,
 } from '../../ui/match/MatchCardParts';
 import { ArrowKeypad } from '../../ui/scorecard/ArrowKeypad';
@@ -138,6 +139,13 @@ function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
   // The last tap's end until the stored view catches up: taps quicker than the database never build on an older end.
   const current = stored && typed && typed.endIndex >= stored.endIndex ? typedOrNext(typed) : stored;
   const next = current && current.a.length < ARROWS ? 'a' : 'b';
+  // Shot alternately: the order follows this writer's own ends before the one being written.
+  const first = chosenFirstShooter(match, rows ?? []);
+  const before = Array.from({ length: current?.endIndex ?? 0 }, (_, i) =>
+    typed?.endIndex === i ? typed : view.ends[i]!,
+  );
+  const order = current && alternateOrder(match, format, before, first?.side ?? null);
+  const chooseFirst = (side: 'a' | 'b') => store({ kind: 'match.firstShooter', args: { ...ref, side } });
   return (
     <div className="space-y-4">
       <p className="text-xl">
@@ -152,19 +160,39 @@ function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
       {current && (
         <Panel id="end-entry" title={`End ${current.endIndex + 1}`} testId="writer-entry">
           <DraftLines match={match} draft={current} per={ARROWS} />
-          <p>
-            Arrows of <span className="font-bold">{nameOf(match, next)}</span>, highest first.
-          </p>
-          <ArrowCountdown key={`${current.endIndex}:${current.a.length + current.b.length}`} />
-          <ArrowKeypad
-            allowed={ARROW_VALUES}
-            onValues={(values: ArrowValue[]) => write(addValues(current, values))}
-            onUndo={() => {
-              if (current.a.length + current.b.length > 0) write(undoValue(current));
-              else if (view.undoEnd !== null) write(undoValue(endOf(view.undoEnd)));
-            }}
-            canUndo={current.a.length + current.b.length > 0 || view.undoEnd !== null}
-          />
+          {asksWhoShootsFirst(match, first?.side ?? null, current) ? (
+            <WhoShootsFirst match={match} onChoose={chooseFirst} />
+          ) : (
+            <>
+              {order ? (
+                <NextArrow match={match} order={order} draft={current} first={first} onChoose={chooseFirst} />
+              ) : (
+                <>
+                  <p>
+                    Arrows of <span className="font-bold">{nameOf(match, next)}</span>, highest first.
+                  </p>
+                  <ArrowCountdown key={`${current.endIndex}:${current.a.length + current.b.length}`} />
+                </>
+              )}
+              <ArrowKeypad
+                allowed={ARROW_VALUES}
+                onValues={(values: ArrowValue[]) => write(addInOrder(current, values, order))}
+                onUndo={() => {
+                  if (current.a.length + current.b.length > 0) write(undoInOrder(current, order));
+                  else if (view.undoEnd !== null) {
+                    const previous = view.ends.slice(0, view.undoEnd);
+                    write(
+                      undoInOrder(
+                        endOf(view.undoEnd),
+                        alternateOrder(match, format, previous, first?.side ?? null),
+                      ),
+                    );
+                  }
+                }}
+                canUndo={current.a.length + current.b.length > 0 || view.undoEnd !== null}
+              />
+            </>
+          )}
         </Panel>
       )}
       <YourEnds match={match} view={view} />

@@ -3,10 +3,17 @@ import { MATCH_SECONDS_PER_ARROW } from '../../core';
 
 /**
  * A plain countdown of the time for one arrow, started by the judge and free to ignore: it only
- * shows the seconds left and never stops an entry (the judge rules on time, not the phone).
+ * shows the seconds left and never stops an entry (the judge rules on time, not the phone). Shot
+ * alternately, each arrow entered (`restartOn` changes) starts the next archer's time once the
+ * clock runs.
  */
-export function ArrowCountdown() {
+export function ArrowCountdown({ restartOn }: { restartOn?: string }) {
   const [left, setLeft] = useState<number>();
+  const [arrow, setArrow] = useState(restartOn);
+  if (arrow !== restartOn) {
+    setArrow(restartOn);
+    if (left !== undefined) setLeft(MATCH_SECONDS_PER_ARROW);
+  }
   useEffect(() => {
     if (left === undefined || left <= 0) return;
     const timer = setTimeout(() => setLeft(left - 1), 1000);

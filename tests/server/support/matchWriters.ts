@@ -2,6 +2,7 @@ import request from 'supertest';
 import { expect } from 'vitest';
 import { roundEndCount, getRound } from '../../../src/core';
 import type { MatchDto, MatchJoinCodeDto, BracketDto } from '../../../src/contract/matches';
+import type { MutationResult } from '../../../src/contract/sync';
 import { setUpField, writeAgreedEnds, type Field } from './fieldSetup';
 import { giveRole, makeEvent, makePerson, type TestPerson } from './people';
 import type { TestServer } from './testServer';
@@ -61,3 +62,18 @@ export async function setUpMatchWriters(server: TestServer): Promise<MatchWriter
   const codes = new Map((res.body.codes as MatchJoinCodeDto[]).map((c) => [c.matchId, c.code]));
   return { field, stranger, otherJudge, otherEventId, archers, first, second, codes };
 }
+
+/** The event's brackets as its organizer reads them. */
+export async function organizerBrackets(server: TestServer, field: Field): Promise<BracketDto[]> {
+  const res = await request(server.app)
+    .get(`/api/events/${field.eventId}/brackets`)
+    .set(field.organizer.auth);
+  return res.body.brackets as BracketDto[];
+}
+
+/** One match of the event's first bracket, as its organizer reads it. */
+export const matchOf = async (server: TestServer, field: Field, matchId: number): Promise<MatchDto> =>
+  (await organizerBrackets(server, field))[0]!.matches.find((m) => m.id === matchId)!;
+
+/** The reason a pushed change was refused with, if it was. */
+export const reasonOf = (r: MutationResult | undefined) => (r && 'reason' in r ? r.reason : undefined);

@@ -16,6 +16,7 @@ import type {
   MatchCountersignArgs,
   MatchEndArgs,
   MatchEndSignArgs,
+  MatchFirstShooterArgs,
   MatchShootOffArgs,
   MatchSignArgs,
   MatchWriteArgs,
@@ -115,6 +116,11 @@ export class Phone {
 
   matchCountersign(args: MatchCountersignArgs): Mutation {
     return this.next({ kind: 'match.countersign', args });
+  }
+
+  /** Who shoots first in an alternating match (a writer of the match or a judge). */
+  matchFirstShooter(args: MatchFirstShooterArgs): Mutation {
+    return this.next({ kind: 'match.firstShooter', args });
   }
 
   private next(change: Pick<Mutation, 'kind' | 'args'>): Mutation {

@@ -680,6 +680,15 @@ export const ROUTES: RouteRule[] = [
     // Past the role check: the fixture's archers have ends to shoot, so there is nothing to seed.
     ok: 409,
   },
+  // Which matches alternate: tests/server/matches.turns.test.ts.
+  {
+    method: 'patch',
+    route: '/api/events/:eventId/brackets/:bracketId',
+    path: (f) => `${ev(f)}/brackets/999999`,
+    body: () => ({ alternate: 'semi-finals' }),
+    allowed: ORGANIZER,
+    ok: 404,
+  },
   {
     method: 'patch',
     route: '/api/events/:eventId/matches/:matchId/target',

@@ -13,6 +13,7 @@ import { useCreateBracket } from '../api/createBracket';
 import { usePlaceMatch } from '../api/placeMatch';
 import { useRecordWalkover } from '../api/recordWalkover';
 import { useMatchJoinCodes } from '../api/matchJoinCodes';
+import { BracketAlternation } from './BracketAlternation';
 import { MatchScorers } from './MatchScorers';
 
 const SIZES = ['8', '16', '32', '64', 'everyone'] as const;
@@ -150,6 +151,7 @@ function BracketMatches({ eventId, bracket }: { eventId: number; bracket: Bracke
         {bracket.entrants} archers, bracket of {bracket.size},{' '}
         {bracket.format === 'sets' ? 'set system' : 'cumulative score'}.
       </p>
+      <BracketAlternation eventId={eventId} bracket={bracket} />
       {open.length === 0 ? (
         <p>No match is waiting to be shot: the next round opens as matches are signed.</p>
       ) : (
