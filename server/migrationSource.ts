@@ -12,6 +12,7 @@ import * as m0011 from '../migrations/0011_entry_classes';
 import * as m0013 from '../migrations/0013_matches';
 import * as m0014 from '../migrations/0014_practice_sync';
 import * as m0015 from '../migrations/0015_match_writers';
+import * as m0018 from '../migrations/0018_practice_tombstones';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
 
@@ -33,6 +34,7 @@ const migrations: [string, Migration][] = [
   ['0013_matches', m0013],
   ['0014_practice_sync', m0014],
   ['0015_match_writers', m0015],
+  ['0018_practice_tombstones', m0018],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {

@@ -323,6 +323,12 @@ function PastSessions() {
                   {item.tally.arrows > 0 && ` · ${item.tally.averagePerArrow.toFixed(2)} an arrow`}
                   {!item.session.finishedAt && ' · not finished'}
                 </span>
+                {item.session.revivedAt && (
+                  <span data-testid="practice-revived">
+                    Back after a deletion: one of your phones changed it after another deleted it, so nothing
+                    was lost.
+                  </span>
+                )}
               </Link>
               <Button
                 variant="danger"
