@@ -1,7 +1,8 @@
 import { useEffect, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { BOW_STYLES, ROUND_CATALOG, roundArrowCount } from '../../core';
-import { countedValues, practiceTally } from '../../core/practice';
+import { practiceTally } from '../../core/practice';
+import { partsTally } from '../../core/practice/progressParts';
 import { SHAFT_DIAMETER_MM, readShaftDiameter } from '../../core/shaft';
 import { PRACTICE_NOTE_MAX } from '../../core/practice/limits';
 import type { BowStyle, FaceId, Venue } from '../../core';
@@ -22,6 +23,7 @@ import { warmProgress } from './progress/loadProgress';
 import {
   deletePracticeSession,
   ownPractice,
+  ownSessionParts,
   restorePracticeSession,
   startPracticeSession,
   type DeletedPractice,
@@ -226,16 +228,10 @@ function StartPractice() {
 function PastSessions() {
   const [deleted, setDeleted] = useState<DeletedPractice>();
   const owner = usePhoneOwner();
+  // Each session's line from its progress parts: a year of practice is 300 rows, not 20,000 arrows.
   const sessions = useStored(
-    async () => {
-      const { sessions: rows, ends } = await ownPractice(owner);
-      return rows.map((session) => ({
-        session,
-        tally: practiceTally(
-          ends.filter((e) => e.sessionId === session.id).flatMap((e) => countedValues(e.arrows)),
-        ),
-      }));
-    },
+    async () =>
+      (await ownSessionParts(owner)).map(({ session, parts }) => ({ session, tally: partsTally(parts) })),
     `owner:${owner ?? 'none'}`,
   );
   // The person's own tournament cards, in the same history: read-only, kept for offline.

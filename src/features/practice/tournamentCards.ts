@@ -32,9 +32,12 @@ export async function refreshTournamentCards(owner: number | undefined, db = loc
   const { cards } = await apiRequest<TournamentCards>('/api/me/practice-cards').catch(() => ({
     cards: undefined,
   }));
-  // The phone may have changed hands while the answer travelled.
-  if (cards && phoneOwner() === owner)
-    await db.meta.put({ key: `${TOURNAMENT_CARDS_KEY}${owner}`, value: cards });
+  // The phone may have changed hands while the answer travelled. An unchanged answer is not
+  // written: the write would make the log and progress read and draw everything again.
+  if (!cards || phoneOwner() !== owner) return;
+  const key = `${TOURNAMENT_CARDS_KEY}${owner}`;
+  if (JSON.stringify((await db.meta.get(key))?.value) !== JSON.stringify(cards))
+    await db.meta.put({ key, value: cards });
 }
 
 export const tournamentTitle = (card: TournamentCard) => `${card.eventName}, ${card.sessionName}`;

@@ -1,0 +1,48 @@
+import 'fake-indexeddb/auto';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import type { TournamentCard } from '../../src/contract/myCards';
+import { LocalDb } from '../../src/local/db';
+import { claimPhone, ownerSettled, releasePhone } from '../../src/local/phoneOwner';
+import { TOURNAMENT_CARDS_KEY, refreshTournamentCards } from '../../src/features/practice/tournamentCards';
+
+/*
+ * The person's tournament cards kept on the phone for the log and progress: asked for when either
+ * opens, and written only when the answer differs, since a write makes both screens read and draw
+ * everything again (a year of practice, three charts).
+ */
+
+const answer = vi.hoisted(() => ({ cards: [] as unknown[] }));
+vi.mock('../../src/api/request', () => ({ apiRequest: async () => answer }));
+
+const card: TournamentCard = {
+  sessionId: 4,
+  entryId: 9,
+  eventName: 'Club Shoot',
+  sessionName: 'Saturday',
+  startedAt: '2026-11-28T09:00:00.000Z',
+  bowStyle: 'recurve',
+  final: true,
+  ends: [{ index: 0, distanceM: 70, faceId: 'full-122', values: ['10', '9', '9'] }],
+};
+
+afterEach(() => releasePhone());
+
+describe('refreshTournamentCards', () => {
+  it('keeps a new answer, and writes nothing when the answer is the copy kept', async () => {
+    claimPhone(7);
+    await ownerSettled();
+    const db = new LocalDb('tournament-cards-test');
+    answer.cards = [card];
+    await refreshTournamentCards(7, db);
+    expect((await db.meta.get(`${TOURNAMENT_CARDS_KEY}7`))?.value).toEqual([card]);
+
+    const put = vi.spyOn(db.meta, 'put');
+    await refreshTournamentCards(7, db);
+    expect(put).not.toHaveBeenCalled();
+    answer.cards = [{ ...card, final: false }];
+    await refreshTournamentCards(7, db);
+    expect(put).toHaveBeenCalledTimes(1);
+    expect((await db.meta.get(`${TOURNAMENT_CARDS_KEY}7`))?.value).toEqual([{ ...card, final: false }]);
+    await db.delete();
+  });
+});
