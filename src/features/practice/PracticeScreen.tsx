@@ -225,8 +225,12 @@ function StartPractice() {
   );
 }
 
+/** Lines of the log drawn at first, newest first. */
+const LOG_FIRST_LINES = 20;
+
 function PastSessions() {
   const [deleted, setDeleted] = useState<DeletedPractice>();
+  const [whole, setWhole] = useState(false);
   const owner = usePhoneOwner();
   // Each session's line from its progress parts: a year of practice is 300 rows, not 20,000 arrows.
   const sessions = useStored(
@@ -249,6 +253,9 @@ function PastSessions() {
     ...(sessions ?? []).map((s) => ({ ...s, at: s.session.startedAt, kind: 'practice' as const })),
     ...(cards ?? []).map((c) => ({ ...c, at: c.card.startedAt, kind: 'tournament' as const })),
   ].sort((a, b) => b.at.localeCompare(a.at));
+  // The newest first, the rest on request: a year is 300 lines, which also cost the tap that
+  // leaves the log (taking them down) far more than the screen it opens.
+  const shown = whole ? history : history.slice(0, LOG_FIRST_LINES);
   const remove = (id: string) => void deletePracticeSession(id).then((gone) => setDeleted(gone));
   const exportCsv = async () => {
     const own = await ownPractice(owner);
@@ -288,7 +295,7 @@ function PastSessions() {
         <p>No practice yet. Pick a round or free practice above: your first session will be listed here.</p>
       )}
       <ul className="space-y-2" data-testid="practice-sessions">
-        {history.map((item) =>
+        {shown.map((item) =>
           item.kind === 'tournament' ? (
             <li
               key={`${item.card.sessionId}:${item.card.entryId}`}
@@ -338,6 +345,11 @@ function PastSessions() {
           ),
         )}
       </ul>
+      {shown.length < history.length && (
+        <Button variant="secondary" className="w-full" onClick={() => setWhole(true)}>
+          Show the whole log ({history.length})
+        </Button>
+      )}
       {history.length > 0 && (
         <Link
           to="/practice/progress"
