@@ -1,7 +1,7 @@
 import 'fake-indexeddb/auto';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import type { TournamentCard } from '../../src/contract/myCards';
-import { LocalDb } from '../../src/local/db';
+import { LocalDb, NO_ACCOUNT } from '../../src/local/db';
 import { claimPhone, ownerSettled, releasePhone } from '../../src/local/phoneOwner';
 import { TOURNAMENT_CARDS_KEY, refreshTournamentCards } from '../../src/features/practice/tournamentCards';
 
@@ -12,7 +12,8 @@ import { TOURNAMENT_CARDS_KEY, refreshTournamentCards } from '../../src/features
  */
 
 const answer = vi.hoisted(() => ({ cards: [] as unknown[] }));
-vi.mock('../../src/api/request', () => ({ apiRequest: async () => answer }));
+const apiRequest = vi.hoisted(() => vi.fn(async () => answer));
+vi.mock('../../src/api/request', () => ({ apiRequest }));
 
 const card: TournamentCard = {
   sessionId: 4,
@@ -43,6 +44,15 @@ describe('refreshTournamentCards', () => {
     await refreshTournamentCards(7, db);
     expect(put).toHaveBeenCalledTimes(1);
     expect((await db.meta.get(`${TOURNAMENT_CARDS_KEY}7`))?.value).toEqual([{ ...card, final: false }]);
+    await db.delete();
+  });
+
+  it('asks nothing with no one signed in', async () => {
+    const db = new LocalDb('tournament-cards-none');
+    apiRequest.mockClear();
+    await refreshTournamentCards(NO_ACCOUNT, db);
+    expect(apiRequest).not.toHaveBeenCalled();
+    expect(await db.meta.count()).toBe(0);
     await db.delete();
   });
 });

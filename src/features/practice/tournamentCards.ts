@@ -26,7 +26,8 @@ export async function storedTournamentCards(
 
 /** Asks for the person's cards and keeps them; offline or signed out, the copy kept before stays. */
 export async function refreshTournamentCards(owner: number | undefined, db = localDb()): Promise<void> {
-  if (owner === undefined) return;
+  // No one signed in: there is no account to ask (and storedTournamentCards shows none).
+  if (owner === undefined || owner === NO_ACCOUNT) return;
   // The fetch wrapper loads with this call: the log's first load stays IndexedDB alone.
   const { apiRequest } = await import('../../api/request');
   const { cards } = await apiRequest<TournamentCards>('/api/me/practice-cards').catch(() => ({

@@ -3,9 +3,9 @@ export const loadProgressScreen = () => import('./ProgressScreen');
 export const loadProgressChart = () => import('./ProgressChart');
 
 /**
- * Fetches and runs the progress screen's and the chart's code while the practice log sits idle,
- * so the tap on "Progress over weeks" does not wait for them to be fetched and compiled. A failed
- * warm-up changes nothing: the tap loads them again.
+ * Fetches and runs the progress screen's and the chart's code while the practice log sits idle
+ * (a chart drawn once, unseen: warmChart), so the tap on "Progress over weeks" does not wait for
+ * them to be fetched and compiled. A failed warm-up changes nothing: the tap loads them again.
  */
 export function warmProgress(): () => void {
   let cancelled = false;
@@ -13,6 +13,9 @@ export function warmProgress(): () => void {
     if (cancelled) return;
     void loadProgressScreen()
       .then(() => (cancelled ? undefined : loadProgressChart()))
+      .then((chart) => {
+        if (!cancelled) chart?.warmChart();
+      })
       .catch(() => undefined);
   };
   if (typeof requestIdleCallback === 'function') {
