@@ -4,7 +4,9 @@
  * Chromium at 4× CPU throttling (`Emulation.setCPUThrottlingRate`), Pixel 7 viewport. Prints the
  * script time Chromium counts while drawing (`Performance.getMetrics` ScriptDuration; goal
  * ≤ 100 ms), the first time (1.5 s after the log shows: the progress screen's chunk fetched while
- * the log was idle, its code run for the first time) and again. Needs a built client (`npm run build`) and Debian's Chromium.
+ * the log was idle, its code run for the first time) and again. BENCH_PROFILE=<folder> writes
+ * CPU profiles of the first two visits; CLIENT_DIR=<folder> serves another build (the code before,
+ * side by side). Needs a built client (`npm run build`) and Debian's Chromium.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { cpus, loadavg } from 'node:os';
@@ -82,11 +84,9 @@ function yearOfPractice() {
   return { sessions, ends };
 }
 
-/** Script time (wall, throttled) and the main thread's CPU time (style, layout and paint too; unthrottled). */
-async function seconds(cdp: CDPSession): Promise<{ script: number; thread: number }> {
+async function scriptSeconds(cdp: CDPSession): Promise<number> {
   const { metrics } = await cdp.send('Performance.getMetrics');
-  const of = (name: string) => metrics.find((m) => m.name === name)?.value ?? 0;
-  return { script: of('ScriptDuration'), thread: of('ThreadTime') };
+  return metrics.find((m) => m.name === 'ScriptDuration')?.value ?? 0;
 }
 
 const browser = await chromium.launch({ executablePath: chromiumPath(), args: chromiumArgs });
@@ -126,7 +126,6 @@ try {
   await cdp.send('Emulation.setCPUThrottlingRate', { rate: THROTTLE });
   const scriptMs: number[] = [];
   const wallMs: number[] = [];
-  const threadMs: number[] = [];
   let charts = 0;
   for (let run = 0; run < RUNS; run += 1) {
     if (PROFILE_DIR && run < 2) {
@@ -134,7 +133,7 @@ try {
       await cdp.send('Profiler.setSamplingInterval', { interval: 100 });
       await cdp.send('Profiler.start');
     }
-    const before = await seconds(cdp);
+    const before = await scriptSeconds(cdp);
     const started = Date.now();
     // Clicked from inside the page: a Playwright locator's own search of the page (roles, names)
     // would count as the page's script time.
@@ -155,9 +154,7 @@ try {
       )
       .then((h) => h.jsonValue() as Promise<number>);
     wallMs.push(Date.now() - started);
-    const after = await seconds(cdp);
-    scriptMs.push((after.script - before.script) * 1000);
-    threadMs.push((after.thread - before.thread) * 1000);
+    scriptMs.push(((await scriptSeconds(cdp)) - before) * 1000);
     if (PROFILE_DIR && run < 2) {
       const { profile } = await cdp.send('Profiler.stop');
       mkdirSync(PROFILE_DIR, { recursive: true });
@@ -181,10 +178,6 @@ try {
   );
   console.log(
     `  script time drawing it (tap → every chart drawn): first ${scriptMs[0]!.toFixed(0)} ms (the screen's code run for the first time), then p50 ${percentile(warm, 50).toFixed(0)} ms, max ${Math.max(...warm).toFixed(0)} ms over ${warm.length} (goal ≤ 100 ms)`,
-  );
-  // CPU time is what the page itself used: far less moved by other work on the machine than script time.
-  console.log(
-    `  main thread CPU time (ThreadTime, not throttled, less sensitive to machine load): first ${threadMs[0]!.toFixed(0)} ms, then p50 ${percentile(threadMs.slice(1), 50).toFixed(0)} ms`,
   );
   console.log(
     `  wall time: first ${wallMs[0]} ms, then p50 ${percentile(warmWall, 50).toFixed(0)} ms; machine load (1-minute average, ${cpus().length} cores): ${loadavg()[0]!.toFixed(1)}`,
