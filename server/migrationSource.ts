@@ -14,6 +14,7 @@ import * as m0014 from '../migrations/0014_practice_sync';
 import * as m0015 from '../migrations/0015_match_writers';
 import * as m0016 from '../migrations/0016_match_end_signatures';
 import * as m0017 from '../migrations/0017_alternate_shooting';
+import * as m0018 from '../migrations/0018_practice_tombstones';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down?: (knex: Knex) => Promise<void> };
 
@@ -37,6 +38,7 @@ const migrations: [string, Migration][] = [
   ['0015_match_writers', m0015],
   ['0016_match_end_signatures', m0016],
   ['0017_alternate_shooting', m0017],
+  ['0018_practice_tombstones', m0018],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {

@@ -55,6 +55,12 @@ export const practiceSessionSchema = z.object({
 });
 export type PracticeSessionDto = z.infer<typeof practiceSessionSchema>;
 
+/**
+ * A setup as the server gives it back: with `revivedAt` when the session was deleted on one phone
+ * and another phone's later change brought it back (set by the server only; a phone never sends it).
+ */
+export type PulledPracticeSession = PracticeSessionDto & { revivedAt?: string };
+
 /** Where a plotted arrow hit, in mm from the centre of the sheet: well within any sheet. */
 const mm = z.number().min(-1000).max(1000);
 

@@ -29,7 +29,7 @@ import {
   practiceSessionSchema,
   type PracticeDeleteArgs,
   type PracticeEndDto,
-  type PracticeSessionDto,
+  type PulledPracticeSession,
 } from './practice';
 
 /**
@@ -270,7 +270,7 @@ export type ChangeDto =
   | { version: number; type: 'late-value'; record: LateDecisionDto }
   // The person's own practice (only ever pulled by that person): a session's setup, one end
   // (no arrows: taken back), a deleted session.
-  | { version: number; type: 'practice'; record: PracticeSessionDto }
+  | { version: number; type: 'practice'; record: PulledPracticeSession }
   | { version: number; type: 'practice-end'; record: PracticeEndDto }
   | { version: number; type: 'practice-del'; record: PracticeDeleteArgs };
 

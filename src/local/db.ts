@@ -116,6 +116,8 @@ export type PracticeSessionRow = {
    * these rather than every arrow. Absent on sessions stored before it was kept.
    */
   progress?: ProgressPart[];
+  /** Set by the server when the session was deleted on one phone and another's later change brought it back. */
+  revivedAt?: string;
 };
 
 /** One end of a practice session, arrows in the order they were entered or plotted. */

@@ -1,5 +1,5 @@
 import { Dexie } from 'dexie';
-import type { PracticeEndDto, PracticeSessionDto } from '../contract/practice';
+import type { PracticeEndDto, PracticeSessionDto, PulledPracticeSession } from '../contract/practice';
 import type { ChangeDto } from '../contract/sync';
 import { isPracticeChange } from '../contract/practiceChange';
 import { progressParts } from '../core/practice/progressParts';
@@ -12,9 +12,9 @@ import { clientIdFor, recordChangesInTransaction, type NewChange } from './outbo
  * before, so sending one again changes nothing; pulled practice lands in the same tables.
  */
 
-/** The session as the server keeps it: everything but the phone's owner and progress parts. */
+/** The session as the server keeps it: everything but the phone's owner, progress parts and the server's note. */
 export function practiceSessionDto(session: PracticeSessionRow): PracticeSessionDto {
-  const { ownerId: _owner, progress: _progress, ...dto } = session;
+  const { ownerId: _owner, progress: _progress, revivedAt: _revived, ...dto } = session;
   return dto;
 }
 
@@ -141,7 +141,7 @@ export async function applyPulledPractice(
         .toArray()
     ).map((r) => sessionOfKey(r.endKey)),
   );
-  const sessions = new Map<string, PracticeSessionDto>();
+  const sessions = new Map<string, PulledPracticeSession>();
   const ends = new Map<string, PracticeEndDto>();
   /** Sessions deleted on the server: whatever this phone holds of them goes first. */
   const wiped = new Set<string>();
@@ -179,8 +179,15 @@ export async function applyPulledPractice(
     const setup = sessions.get(id) ?? stored[i];
     if (!setup) return []; // an end whose setup comes in a later pull
     const own = allEnds.filter((e) => e.sessionId === id).sort((a, b) => a.index - b.index);
+    const { revivedAt } = setup;
     return [
-      { ...practiceSessionDto({ ownerId: userId, ...setup }), ownerId: userId, progress: progressParts(own) },
+      {
+        ...practiceSessionDto({ ownerId: userId, ...setup }),
+        ownerId: userId,
+        progress: progressParts(own),
+        // Brought back after a deletion (a change from a phone that had not heard of it): the log says so.
+        ...(revivedAt ? { revivedAt } : {}),
+      },
     ];
   });
   await db.practiceSessions.bulkPut(rows);

@@ -211,6 +211,46 @@ describe('practice between a person’s phones', () => {
     expect(await db.outbox.where('status').equals('pending').count()).toBe(0);
   });
 
+  it('lets an end kept offline win over a deletion on another phone: both phones end with the whole session, and the log says why it is back', async () => {
+    // A person of their own: what the other tests' phones pull is not mixed in.
+    const racer = await makePerson(server.db, 'Racing Archer');
+    await signIn(racer);
+    const first = freshDb();
+    const second = freshDb();
+    const id = await startPracticeSession({ ...free, plannedEnds: null }, first);
+    for (const value of ['10', '9', '9'] as const) await addPracticeArrow(id, { value }, first);
+    await syncOnce(first, racer.id, transportFor(racer));
+    await syncOnce(second, racer.id, transportFor(racer));
+
+    // The first phone, offline, keeps a second end while the second phone deletes the session.
+    for (const value of ['X', '8', '7'] as const) await addPracticeArrow(id, { value }, first);
+    await deletePracticeSession(id, second);
+    await syncOnce(second, racer.id, transportFor(racer));
+    expect(await ownPractice(racer.id, second)).toEqual({ sessions: [], ends: [] });
+
+    await syncOnce(first, racer.id, transportFor(racer));
+    await syncOnce(second, racer.id, transportFor(racer));
+    expect(await refusedPractice(first, racer.id)).toEqual([]);
+    for (const phone of [first, second]) {
+      const { sessions, ends } = await ownPractice(racer.id, phone);
+      expect(ends.map((e) => e.arrows.map((a) => a.value))).toEqual([
+        ['10', '9', '9'],
+        ['X', '8', '7'],
+      ]);
+      expect(sessions[0]!.progress).toEqual([{ distanceM: 18, faceId: 'full-40', arrows: 6, points: 53 }]);
+      expect(sessions[0]!.revivedAt).toEqual(expect.any(String));
+    }
+    // Synced again (a reload): nothing more is sent, the note is not sent back.
+    await syncOnce(first, racer.id, transportFor(racer));
+    expect(await first.outbox.where('status').equals('pending').count()).toBe(0);
+
+    // The second phone may delete it again: it goes from both.
+    await deletePracticeSession(id, second);
+    await syncOnce(second, racer.id, transportFor(racer));
+    await syncOnce(first, racer.id, transportFor(racer));
+    expect(await ownPractice(racer.id, first)).toEqual({ sessions: [], ends: [] });
+  });
+
   it('tells the person which practice their account refused, with its reason', async () => {
     const db = freshDb();
     // An end of a session the server does not hold (deleted on another phone, say).

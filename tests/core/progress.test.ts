@@ -4,7 +4,8 @@
 // by week and the "best session" are common practice in training logs, no published source.
 // Every expected value below is worked by hand in the comment beside it.
 import { describe, expect, it } from 'vitest';
-import type { PracticeArrow } from '../../src/core/practice';
+import { practiceTally, type PracticeArrow } from '../../src/core/practice';
+import { partsTally } from '../../src/core/practice/progressParts';
 import {
   practiceProgress,
   progressChoices,
@@ -180,5 +181,22 @@ describe('tournament cards in progress', () => {
     const [alone] = practiceProgress([practice]);
     expect(alone!.weeks[0]).not.toHaveProperty('tournaments');
     expect(alone!.best).not.toHaveProperty('tournament');
+  });
+});
+
+describe('partsTally (the log line of a session, from its parts)', () => {
+  it('adds arrows and points over every distance and face, and matches the tally of the arrows themselves', () => {
+    // 70 m: 9 + 8 + 7 = 24 over 3; 50 m: X (10) + M (0) = 10 over 2 → 34 over 5 = 6.8 an arrow.
+    const { parts } = session(
+      'p',
+      '2026-11-30T10:00:00.000Z',
+      'recurve',
+      [70, 'full-122', typed('9', '8', '7')],
+      [50, 'full-80', typed('X', 'M')],
+    );
+    expect(partsTally(parts)).toEqual({ arrows: 5, total: 34, averagePerArrow: 6.8 });
+    const { total, arrows, averagePerArrow } = practiceTally(['9', '8', '7', 'X', 'M']);
+    expect(partsTally(parts)).toEqual({ arrows, total, averagePerArrow });
+    expect(partsTally([])).toEqual({ arrows: 0, total: 0, averagePerArrow: 0 });
   });
 });

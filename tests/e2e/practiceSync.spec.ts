@@ -93,3 +93,56 @@ test('practice plotted with no account reaches the archer’s second phone once 
   await checkA11y(second, 'another person’s practice session by its address');
   await shot(second, 'not-found');
 });
+
+test('a session deleted on one phone while the other, offline, keeps an end comes back whole on both, and the log says why', async ({
+  browser,
+}) => {
+  // An archer of their own: the first test's session is not in this log.
+  const archer = demoArchers()[1]!;
+  const first = await signedInPhone(browser, archer.email);
+  await first.goto('/practice');
+  await first.getByLabel('Arrows per end').selectOption('3');
+  await first.getByLabel('Ends', { exact: true }).fill('3');
+  await first.getByLabel('Note (optional)').fill('Raced a deletion');
+  await first.getByRole('button', { name: 'Start free practice' }).click();
+  await expect(first.getByRole('heading', { name: /End 1 of 3/ })).toBeVisible();
+  const sessionId = new URL(first.url()).pathname.split('/').pop()!;
+  await first.getByRole('button', { name: 'Type values' }).click();
+  for (const value of ['10', '9', '9']) await first.getByRole('button', { name: `Arrow ${value}` }).click();
+  const endsOnServer = () =>
+    readDemoDb<{ n: number }>('select count(*) as n from practice_ends where session_id = ?', sessionId).n;
+  await expect.poll(endsOnServer, { timeout: 30_000 }).toBe(1);
+
+  const second = await signedInPhone(browser, archer.email);
+  await second.goto('/practice');
+  const log = second.getByTestId('practice-sessions');
+  await expect(log).toContainText('28 from 3 arrows', { timeout: 30_000 });
+
+  // The first phone loses signal and keeps a second end; the second phone deletes the session.
+  await first.context().setOffline(true);
+  for (const value of ['X', '8', '7']) await first.getByRole('button', { name: `Arrow ${value}` }).click();
+  await second.getByRole('button', { name: /^Delete / }).click();
+  await expect(log).not.toContainText('from 3 arrows');
+  await expect
+    .poll(
+      () =>
+        readDemoDb<{ deleted: string | null }>(
+          'select deleted_at as deleted from practice_sessions where id = ?',
+          sessionId,
+        ).deleted,
+      { timeout: 30_000 },
+    )
+    .not.toBeNull();
+
+  // Signal back: the first phone's end wins, and the whole session is on both phones.
+  await first.context().setOffline(false);
+  await expect.poll(endsOnServer, { timeout: 30_000 }).toBe(2);
+  for (const phone of [second, first]) {
+    await phone.goto('/practice');
+    const sessions = phone.getByTestId('practice-sessions');
+    await expect(sessions).toContainText('53 from 6 arrows', { timeout: 30_000 });
+    await expect(phone.getByTestId('practice-revived')).toContainText('Back after a deletion');
+  }
+  await checkA11y(second, 'practice log, a session back after a deletion');
+  await shot(second, 'back-after-deletion');
+});

@@ -49,3 +49,37 @@ test('with no signal, practice just recorded shows on the progress screen: chart
   await checkA11y(page, 'progress, filtered');
   await page.screenshot({ path: '.tmp/screens/progress-filtered.png', fullPage: true });
 });
+
+test('a long log draws its 20 newest sessions, the rest on request, each line from the session’s kept parts', async ({
+  page,
+}) => {
+  await page.goto('/practice');
+  await expect(page.getByText('No practice yet')).toBeVisible();
+  // 25 sessions as the phone keeps them, each with its parts (30 arrows, 270 points) and no ends:
+  // the log's line reads the parts, not the arrows.
+  await page.evaluate(`new Promise((resolve, reject) => {
+    const open = indexedDB.open('ringcall');
+    open.onsuccess = () => {
+      const tx = open.result.transaction('practiceSessions', 'readwrite');
+      for (let s = 0; s < 25; s += 1)
+        tx.objectStore('practiceSessions').put({
+          id: 'long-' + String(s).padStart(2, '0'), ownerId: 0,
+          startedAt: new Date(Date.UTC(2026, 0, 1 + s * 7, 17)).toISOString(),
+          bowStyle: 'recurve', venue: 'indoor', distanceM: 18, faceId: 'full-40', arrowsPerEnd: 3,
+          plannedEnds: 10, shaftDiameterMm: 5.5, finishedAt: '2026-01-01T18:00:00.000Z',
+          progress: [{ distanceM: 18, faceId: 'full-40', arrows: 30, points: 270 }],
+        });
+      tx.oncomplete = () => { open.result.close(); resolve(); };
+      tx.onerror = () => reject(tx.error);
+    };
+    open.onerror = () => reject(open.error);
+  })`);
+  await page.reload();
+  const lines = page.getByTestId('practice-sessions').getByRole('listitem');
+  await expect(lines).toHaveCount(20);
+  await expect(lines.first()).toContainText('270 from 30 arrows · 9.00 an arrow');
+  await checkA11y(page, 'a long practice log, newest 20');
+  await page.getByRole('button', { name: 'Show the whole log (25)' }).click();
+  await expect(lines).toHaveCount(25);
+  await expect(page.getByRole('button', { name: /Show the whole log/ })).toHaveCount(0);
+});

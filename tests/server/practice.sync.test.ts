@@ -93,8 +93,10 @@ describe('practice through the outbox', () => {
     const before = await phone.pull(0);
     const result = await phone.push([phone.practice({ kind: 'practice.delete', args: { sessionId: s.id } })]);
     expect(result.results[0]!.status).toBe('applied');
-    expect(await server.db('practice_sessions').where({ id: s.id })).toHaveLength(0);
-    expect(await server.db('practice_ends').where({ session_id: s.id })).toHaveLength(0);
+    // Kept as a tombstone (a later change from another phone brings it back), never pulled.
+    expect((await server.db('practice_sessions').where({ id: s.id }).first()).deleted_at).toEqual(
+      expect.any(String),
+    );
 
     const fromStart = practiceOf((await new Phone(server.app, archer).pull(0)).changes);
     const aboutIt = fromStart.filter((c) => JSON.stringify(c.record).includes(s.id));
@@ -146,6 +148,99 @@ describe('practice through the outbox', () => {
       phone.practice({ kind: 'practice.end', args: end(randomUUID(), 0, arrows('9')) }),
     ]);
     expect(reasonOf(results[0])).toMatch(/not on your account/);
+  });
+});
+
+describe('a change racing a deletion', () => {
+  /** A session on the account with two ends, pulled by a second phone of the person. */
+  const shared = async () => {
+    const first = new Phone(server.app, archer);
+    const second = new Phone(server.app, archer);
+    const s = session({ note: 'raced' });
+    await first.push([
+      first.practice({ kind: 'practice.session', args: s }),
+      first.practice({ kind: 'practice.end', args: end(s.id, 0, arrows('10', '9', '9')) }),
+      first.practice({ kind: 'practice.end', args: end(s.id, 1, arrows('8', '8', '7')) }),
+    ]);
+    return { first, second, s };
+  };
+  const aboutIt = (changes: ChangeDto[], id: string) =>
+    practiceOf(changes).filter((c) => JSON.stringify(c.record).includes(id));
+
+  it('lets an end from a phone that had not heard of the deletion win: the whole session comes back on every phone, with a note', async () => {
+    const { first, second, s } = await shared();
+    await second.push([second.practice({ kind: 'practice.delete', args: { sessionId: s.id } })]);
+    const afterDelete = (await second.pull(0)).cursor;
+
+    // The first phone was offline and kept a third end.
+    const third = first.practice({ kind: 'practice.end', args: end(s.id, 2, arrows('X', '10', '9')) });
+    expect((await first.push([third])).results[0]!.status).toBe('applied');
+    expect((await storedEnds(s.id)).map((e) => e.index)).toEqual([0, 1, 2]);
+    expect((await server.db('practice_sessions').where({ id: s.id }).first()).deleted_at).toBeNull();
+
+    // The deleting phone takes the whole session again, marked as brought back.
+    const back = aboutIt((await second.pull(afterDelete)).changes, s.id);
+    expect(back.map((c) => c.type)).toEqual(['practice', 'practice-end', 'practice-end', 'practice-end']);
+    expect(back[0]!.record).toEqual({ ...s, revivedAt: third.at });
+    // A phone pulling from the start sees the whole session and no deletion.
+    const fresh = aboutIt((await new Phone(server.app, archer).pull(0)).changes, s.id);
+    expect(fresh.map((c) => c.type).sort()).toEqual([
+      'practice',
+      'practice-end',
+      'practice-end',
+      'practice-end',
+    ]);
+
+    // Pushed again (a retry): a duplicate, nothing written twice.
+    const logBefore = await server.db('changes').where('practice_id', 'like', `${s.id}%`).count({ n: '*' });
+    expect((await first.push([third])).results[0]!.status).toBe('duplicate');
+    expect(await server.db('changes').where('practice_id', 'like', `${s.id}%`).count({ n: '*' })).toEqual(
+      logBefore,
+    );
+    // Recorded again under a new change (a reload): the end is still there once.
+    await first.push([first.practice({ kind: 'practice.end', args: end(s.id, 2, arrows('X', '10', '9')) })]);
+    expect((await storedEnds(s.id)).map((e) => e.arrows.length)).toEqual([3, 3, 3]);
+
+    // The deleting phone may delete it again: then it is gone from every pull.
+    await second.push([second.practice({ kind: 'practice.delete', args: { sessionId: s.id } })]);
+    const gone = aboutIt((await new Phone(server.app, archer).pull(0)).changes, s.id);
+    expect(gone.map((c) => c.type)).toEqual(['practice-del']);
+  });
+
+  it('brings back the earlier ends with a setup sent after the deletion (the session finished offline)', async () => {
+    const { first, second, s } = await shared();
+    await second.push([second.practice({ kind: 'practice.delete', args: { sessionId: s.id } })]);
+    const finished = { ...s, finishedAt: '2026-11-30T10:00:00.000Z' };
+    await first.push([first.practice({ kind: 'practice.session', args: finished })]);
+    const back = aboutIt((await new Phone(server.app, archer).pull(0)).changes, s.id);
+    expect(back.filter((c) => c.type === 'practice-end')).toHaveLength(2);
+    expect(back.find((c) => c.type === 'practice')!.record).toMatchObject({
+      finishedAt: finished.finishedAt,
+      revivedAt: expect.any(String),
+    });
+  });
+
+  it('brings a session back with no note when the phone that deleted it undoes the deletion', async () => {
+    const { second, s } = await shared();
+    await second.push([second.practice({ kind: 'practice.delete', args: { sessionId: s.id } })]);
+    await second.push([second.practice({ kind: 'practice.session', args: s })]);
+    const back = aboutIt((await new Phone(server.app, archer).pull(0)).changes, s.id);
+    expect(back.find((c) => c.type === 'practice')!.record).toEqual(s);
+    expect(back.filter((c) => c.type === 'practice-end')).toHaveLength(2);
+  });
+
+  it('lets no other account bring a deleted session back', async () => {
+    const { second, s } = await shared();
+    await second.push([second.practice({ kind: 'practice.delete', args: { sessionId: s.id } })]);
+    const intruder = new Phone(server.app, otherArcher);
+    const { results } = await intruder.push([
+      intruder.practice({ kind: 'practice.end', args: end(s.id, 2, arrows('M')) }),
+    ]);
+    expect(reasonOf(results[0])).toMatch(/belongs to another account/);
+    expect((await server.db('practice_sessions').where({ id: s.id }).first()).deleted_at).toEqual(
+      expect.any(String),
+    );
+    expect(await storedEnds(s.id)).toHaveLength(2);
   });
 });
 

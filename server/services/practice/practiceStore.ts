@@ -4,11 +4,21 @@ import type { Db } from '../../db';
 /** The key of a practice change in the `changes` log: the session's id, or `id:end` for one end. */
 export const practiceEndKey = (sessionId: string, index: number) => `${sessionId}:${index}`;
 
-/** The account a practice session on the server belongs to; undefined when it is not there. */
-export async function practiceOwner(db: Db, sessionId: string): Promise<number | undefined> {
-  const row = (await db('practice_sessions').where({ id: sessionId }).first('user_id')) as
-    { user_id: number } | undefined;
-  return row?.user_id;
+/** A practice session as the server holds it: its account, and whether it is a tombstone. */
+export type StoredPractice = {
+  user_id: number;
+  session_json: string;
+  deleted_at: string | null;
+  deleted_by_client: string | null;
+  revived_at: string | null;
+};
+
+/** The practice session on the server, deleted or not; undefined when it never reached it. */
+export async function storedPractice(db: Db, sessionId: string): Promise<StoredPractice | undefined> {
+  return (await db('practice_sessions')
+    .where({ id: sessionId })
+    .first('user_id', 'session_json', 'deleted_at', 'deleted_by_client', 'revived_at')) as
+    StoredPractice | undefined;
 }
 
 type PracticeChange = Omit<

@@ -117,7 +117,7 @@ export async function applyPushes(trx: Db, pushes: readonly Push[]): Promise<Out
         reason = isMatchMutation(m)
           ? await applyMatchChange(trx, m, by)
           : isPracticeMutation(m)
-            ? await applyPracticeChange(trx, m, by)
+            ? await applyPracticeChange(trx, m, by, push.request.clientId)
             : await applyMutation(batch, m, by, push.signingKeys);
         status = reason === null ? 'applied' : 'rejected';
       } catch (error) {

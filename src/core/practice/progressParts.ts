@@ -37,3 +37,18 @@ export function progressParts(
   }
   return parts;
 }
+
+/** A session's arrows, points and average per arrow over all its parts (0 with no arrows): the log's line. */
+export function partsTally(parts: readonly ProgressPart[]): {
+  arrows: number;
+  total: number;
+  averagePerArrow: number;
+} {
+  let arrows = 0;
+  let total = 0;
+  for (const part of parts) {
+    arrows += part.arrows;
+    total += part.points;
+  }
+  return { arrows, total, averagePerArrow: arrows === 0 ? 0 : total / arrows };
+}

@@ -2,11 +2,11 @@ import { lazy, Suspense } from 'react';
 import { useParams } from 'react-router-dom';
 import { PracticeScreen } from './PracticeScreen';
 import { PracticeSessionScreen } from './PracticeSessionScreen';
-import { loadProgressScreen } from './progress/loadProgress';
+import { progressScreenLoader } from './progress/loadProgress';
 
 // Progress has a chunk of its own, and the chart library one more after it: the log stays light
 // (the log warms them while idle: warmProgress).
-const ProgressScreen = lazy(async () => ({ default: (await loadProgressScreen()).ProgressScreen }));
+const ProgressScreen = lazy(progressScreenLoader);
 
 /**
  * /practice is the log, /practice/progress progress over weeks, /practice/<session id> one

@@ -1,7 +1,8 @@
 import { useEffect, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { BOW_STYLES, ROUND_CATALOG, roundArrowCount } from '../../core';
-import { countedValues, practiceTally } from '../../core/practice';
+import { practiceTally } from '../../core/practice';
+import { partsTally } from '../../core/practice/progressParts';
 import { SHAFT_DIAMETER_MM, readShaftDiameter } from '../../core/shaft';
 import { PRACTICE_NOTE_MAX } from '../../core/practice/limits';
 import type { BowStyle, FaceId, Venue } from '../../core';
@@ -22,6 +23,7 @@ import { warmProgress } from './progress/loadProgress';
 import {
   deletePracticeSession,
   ownPractice,
+  ownSessionParts,
   restorePracticeSession,
   startPracticeSession,
   type DeletedPractice,
@@ -223,19 +225,17 @@ function StartPractice() {
   );
 }
 
+/** Lines of the log drawn at first, newest first. */
+const LOG_FIRST_LINES = 20;
+
 function PastSessions() {
   const [deleted, setDeleted] = useState<DeletedPractice>();
+  const [whole, setWhole] = useState(false);
   const owner = usePhoneOwner();
+  // Each session's line from its progress parts: a year of practice is 300 rows, not 20,000 arrows.
   const sessions = useStored(
-    async () => {
-      const { sessions: rows, ends } = await ownPractice(owner);
-      return rows.map((session) => ({
-        session,
-        tally: practiceTally(
-          ends.filter((e) => e.sessionId === session.id).flatMap((e) => countedValues(e.arrows)),
-        ),
-      }));
-    },
+    async () =>
+      (await ownSessionParts(owner)).map(({ session, parts }) => ({ session, tally: partsTally(parts) })),
     `owner:${owner ?? 'none'}`,
   );
   // The person's own tournament cards, in the same history: read-only, kept for offline.
@@ -253,6 +253,9 @@ function PastSessions() {
     ...(sessions ?? []).map((s) => ({ ...s, at: s.session.startedAt, kind: 'practice' as const })),
     ...(cards ?? []).map((c) => ({ ...c, at: c.card.startedAt, kind: 'tournament' as const })),
   ].sort((a, b) => b.at.localeCompare(a.at));
+  // The newest first, the rest on request: a year is 300 lines, which also cost the tap that
+  // leaves the log (taking them down) far more than the screen it opens.
+  const shown = whole ? history : history.slice(0, LOG_FIRST_LINES);
   const remove = (id: string) => void deletePracticeSession(id).then((gone) => setDeleted(gone));
   const exportCsv = async () => {
     const own = await ownPractice(owner);
@@ -292,7 +295,7 @@ function PastSessions() {
         <p>No practice yet. Pick a round or free practice above: your first session will be listed here.</p>
       )}
       <ul className="space-y-2" data-testid="practice-sessions">
-        {history.map((item) =>
+        {shown.map((item) =>
           item.kind === 'tournament' ? (
             <li
               key={`${item.card.sessionId}:${item.card.entryId}`}
@@ -323,6 +326,12 @@ function PastSessions() {
                   {item.tally.arrows > 0 && ` · ${item.tally.averagePerArrow.toFixed(2)} an arrow`}
                   {!item.session.finishedAt && ' · not finished'}
                 </span>
+                {item.session.revivedAt && (
+                  <span data-testid="practice-revived">
+                    Back after a deletion: one of your phones changed it after another deleted it, so nothing
+                    was lost.
+                  </span>
+                )}
               </Link>
               <Button
                 variant="danger"
@@ -336,6 +345,11 @@ function PastSessions() {
           ),
         )}
       </ul>
+      {shown.length < history.length && (
+        <Button variant="secondary" className="w-full" onClick={() => setWhole(true)}>
+          Show the whole log ({history.length})
+        </Button>
+      )}
       {history.length > 0 && (
         <Link
           to="/practice/progress"

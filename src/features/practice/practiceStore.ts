@@ -8,7 +8,7 @@ import {
 import { phoneOwner } from '../../local/phoneOwner';
 import type { PracticeArrow } from '../../core/practice';
 import type { ProgressSession } from '../../core/practice/progress';
-import { progressParts } from '../../core/practice/progressParts';
+import { progressParts, type ProgressPart } from '../../core/practice/progressParts';
 import { endSetup, nextEndIndex } from './plan';
 import {
   practiceEndDto,
@@ -63,21 +63,33 @@ export async function ownPractice(
 }
 
 /**
- * What the progress screen needs of whoever uses the phone now: their sessions with progress
- * parts. Ends are read only for sessions stored before the parts were kept.
+ * The sessions of whoever uses the phone now, each with its progress parts (arrows and points
+ * per distance and face): what the log's list and progress show, without reading 20,000 arrows
+ * for a year of practice. Ends are read only for sessions stored before the parts were kept.
  */
-export async function ownProgress(owner: number | undefined, db = localDb()): Promise<ProgressSession[]> {
+export async function ownSessionParts(
+  owner: number | undefined,
+  db = localDb(),
+): Promise<{ session: PracticeSessionRow; parts: ProgressPart[] }[]> {
   const sessions = await db.practiceSessions
     .where('ownerId')
     .equals(owner ?? NO_ACCOUNT)
     .toArray();
   const older = sessions.filter((s) => !s.progress).map((s) => s.id);
   const ends = older.length === 0 ? [] : await db.practiceEnds.where('sessionId').anyOf(older).toArray();
-  return sessions.map((s) => ({
-    id: s.id,
-    startedAt: s.startedAt,
-    bowStyle: s.bowStyle,
-    parts: s.progress ?? progressParts(ends.filter((e) => e.sessionId === s.id)),
+  return sessions.map((session) => ({
+    session,
+    parts: session.progress ?? progressParts(ends.filter((e) => e.sessionId === session.id)),
+  }));
+}
+
+/** What the progress screen needs of whoever uses the phone now: their sessions' parts. */
+export async function ownProgress(owner: number | undefined, db = localDb()): Promise<ProgressSession[]> {
+  return (await ownSessionParts(owner, db)).map(({ session, parts }) => ({
+    id: session.id,
+    startedAt: session.startedAt,
+    bowStyle: session.bowStyle,
+    parts,
   }));
 }
 

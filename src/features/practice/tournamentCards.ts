@@ -25,15 +25,19 @@ export async function storedTournamentCards(
 
 /** Asks for the person's cards and keeps them; offline or signed out, the copy kept before stays. */
 export async function refreshTournamentCards(owner: number | undefined, db = localDb()): Promise<void> {
-  if (owner === undefined) return;
+  // No one signed in: there is no account to ask (and storedTournamentCards shows none).
+  if (owner === undefined || owner === NO_ACCOUNT) return;
   // The fetch wrapper loads with this call: the log's first load stays IndexedDB alone.
   const { apiRequest } = await import('../../api/request');
   const { cards } = await apiRequest<TournamentCards>('/api/me/practice-cards').catch(() => ({
     cards: undefined,
   }));
-  // The phone may have changed hands while the answer travelled.
-  if (cards && phoneOwner() === owner)
-    await db.meta.put({ key: tournamentCardsKey(owner), value: cards });
+  // The phone may have changed hands while the answer travelled. An unchanged answer is not
+  // written: the write would make the log and progress read and draw everything again.
+  if (!cards || phoneOwner() !== owner) return;
+  const key = tournamentCardsKey(owner);
+  if (JSON.stringify((await db.meta.get(key))?.value) !== JSON.stringify(cards))
+    await db.meta.put({ key, value: cards });
 }
 
 export const tournamentTitle = (card: TournamentCard) => `${card.eventName}, ${card.sessionName}`;

@@ -8,10 +8,10 @@ import { ownProgress } from '../practiceStore';
 import { storedTournamentCards, tournamentProgress, useFreshTournamentCards } from '../tournamentCards';
 import { useStored } from '../useStored';
 import { dayLabel, perArrow, weekLabel } from './progressData';
-import { loadProgressChart } from './loadProgress';
+import { progressChartLoader } from './loadProgress';
 
 // The chart library comes with the chart, after the screen and its table are on show.
-const ProgressChart = lazy(async () => ({ default: (await loadProgressChart()).ProgressChart }));
+const ProgressChart = lazy(progressChartLoader);
 
 /** Progress over weeks: the average per arrow by week, per distance and face, from this phone's log. */
 export function ProgressScreen() {

@@ -1,11 +1,50 @@
+import type { ComponentType } from 'react';
+import type * as ProgressScreenModule from './ProgressScreen';
+import type * as ProgressChartModule from './ProgressChart';
+
+type ScreenModule = typeof ProgressScreenModule;
+type ChartModule = typeof ProgressChartModule;
+let screenModule: ScreenModule | undefined;
+let chartModule: ChartModule | undefined;
+
 /** The progress screen's chunk, and the chart library's after it: one specifier each, so both loads share them. */
-export const loadProgressScreen = () => import('./ProgressScreen');
-export const loadProgressChart = () => import('./ProgressChart');
+export const loadProgressScreen = () => import('./ProgressScreen').then((m) => (screenModule = m));
+export const loadProgressChart = () => import('./ProgressChart').then((m) => (chartModule = m));
 
 /**
- * Fetches and runs the progress screen's and the chart's code while the practice log sits idle,
- * so the tap on "Progress over weeks" does not wait for them to be fetched and compiled. A failed
- * warm-up changes nothing: the tap loads them again.
+ * What React.lazy loads a component with. When its chunk came already (warmProgress), a thenable
+ * that answers at once: React draws the component without suspending (a promise answers a
+ * microtask later, and React would commit the fallback first, then draw again: on the first
+ * visit, twice for the screen and again for the charts).
+ */
+function loadedFirst<M, P>(
+  loaded: () => M | undefined,
+  load: () => Promise<M>,
+  pick: (m: M) => ComponentType<P>,
+): () => Promise<{ default: ComponentType<P> }> {
+  return () => {
+    const module = loaded();
+    if (!module) return load().then((m) => ({ default: pick(m) }));
+    const now = { default: pick(module) };
+    return { then: (answer: (value: typeof now) => void) => answer(now) } as Promise<typeof now>;
+  };
+}
+
+export const progressScreenLoader = loadedFirst(
+  () => screenModule,
+  loadProgressScreen,
+  (m) => m.ProgressScreen,
+);
+export const progressChartLoader = loadedFirst(
+  () => chartModule,
+  loadProgressChart,
+  (m) => m.ProgressChart,
+);
+
+/**
+ * Fetches and runs the progress screen's and the chart's code while the practice log sits idle
+ * (a chart drawn once, unseen: warmChart), so the tap on "Progress over weeks" does not wait for
+ * them to be fetched and compiled. A failed warm-up changes nothing: the tap loads them again.
  */
 export function warmProgress(): () => void {
   let cancelled = false;
@@ -13,6 +52,9 @@ export function warmProgress(): () => void {
     if (cancelled) return;
     void loadProgressScreen()
       .then(() => (cancelled ? undefined : loadProgressChart()))
+      .then((chart) => {
+        if (!cancelled) chart?.warmChart();
+      })
       .catch(() => undefined);
   };
   if (typeof requestIdleCallback === 'function') {
