@@ -1,11 +1,16 @@
-import type { ChangeDto, MutationResult, PullResponse, PushRequest, PushResponse } from '../contract/sync';
+import type {
+  ChangeDto,
+  EndRecordDto,
+  MutationResult,
+  PullResponse,
+  PushRequest,
+  PushResponse,
+} from '../contract/sync';
 import { isPracticeChange } from '../contract/practiceChange';
 import {
   cardKeyOf,
   endKeyOf,
-  recordKeyOf,
   type CardSignatureRow,
-  type EndRecordRow,
   type EndSignatureRow,
   type LocalDb,
   type OutboxRow,
@@ -13,6 +18,7 @@ import {
   type SettlementRow,
 } from './db';
 import { clientIdFor, toMutation } from './outbox';
+import { storeRecords } from './cardRecords';
 import type { DeviceKeyRequest } from '../contract/deviceKeys';
 import { ensureDeviceKeyRegistered, type KeyRegistration } from './deviceKey';
 
@@ -90,7 +96,7 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
     'rw',
     [
       db.outbox,
-      db.endRecords,
+      db.cardRecords,
       db.settlements,
       db.rulings,
       db.endSignatures,
@@ -204,7 +210,7 @@ async function applyChanges(db: LocalDb, changes: ChangeDto[]): Promise<void> {
   const rulings = new Map<number, RulingRow>();
   const signatures = new Map<number, EndSignatureRow>();
   const settlements = new Map<string, SettlementRow>();
-  const records = new Map<string, EndRecordRow>();
+  const records: EndRecordDto[] = [];
   for (const change of changes) {
     if (change.type === 'late-value' || isPracticeChange(change)) continue; // see applyLateDecisions, applyPulledPractice
     if (change.type === 'card-signature') {
@@ -217,21 +223,13 @@ async function applyChanges(db: LocalDb, changes: ChangeDto[]): Promise<void> {
     if (change.type === 'ruling') rulings.set(change.record.id, { ...change.record, endKey });
     else if (change.type === 'signature') signatures.set(change.record.id, { ...change.record, endKey });
     else if (change.type === 'settlement') settlements.set(endKey, { ...change.record, endKey });
-    else {
-      const key = recordKeyOf(r.sessionId, r.entryId, r.endIndex, change.record.slot);
-      const earlier = records.get(key);
-      if (!earlier || earlier.revision <= change.record.revision)
-        records.set(key, { ...change.record, key, endKey });
-    }
+    else records.push(change.record);
   }
-  // Changes arrive in order, but never let an older revision replace a newer one on the phone.
-  const stored = await db.endRecords.bulkGet([...records.keys()]);
-  const newer = [...records.values()].filter((r, i) => !stored[i] || stored[i].revision <= r.revision);
   await Promise.all([
     db.cardSignatures.bulkPut([...cards.values()]),
     db.rulings.bulkPut([...rulings.values()]),
     db.endSignatures.bulkPut([...signatures.values()]),
     db.settlements.bulkPut([...settlements.values()]),
-    db.endRecords.bulkPut(newer),
+    storeRecords(db.cardRecords, records),
   ]);
 }

@@ -69,7 +69,7 @@ describe('one round trip per sync', () => {
     expect(pushes.map((p) => p.cursor)).toEqual([0]);
     expect(pulls).toEqual([]);
     expect(report).toMatchObject({ pushed: 2, applied: 2, pulled: 1 });
-    expect((await db.endRecords.toArray()).map((r) => r.arrows)).toEqual([['9']]);
+    expect((await db.cardRecords.toArray()).flatMap((c) => c.records.map((r) => r.arrows))).toEqual([['9']]);
     expect((await db.meta.get('pullCursor:5'))?.value).toBe(4);
   });
 
@@ -83,7 +83,7 @@ describe('one round trip per sync', () => {
     const report = await syncOnce(db, 5, transport);
     expect(pulls).toEqual([4]);
     expect(report.pulled).toBe(2);
-    expect((await db.endRecords.toArray()).map((r) => r.revision)).toEqual([9]);
+    expect((await db.cardRecords.toArray()).flatMap((c) => c.records.map((r) => r.revision))).toEqual([9]);
   });
 
   it('pulls on its own from an older server that answers pushes without a pull', async () => {
