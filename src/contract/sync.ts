@@ -312,6 +312,9 @@ export type TargetPackage = {
   }[];
 };
 
+/** `GET /api/targets/:sessionId`: every target of a session with archers (judges and organizers). */
+export type SessionPackages = { targets: TargetPackage[] };
+
 /**
  * `GET /api/targets/:sessionId/:targetNumber/ends`: the server's own cross-check of a target,
  * derived with the same core `endView` the phones use.
