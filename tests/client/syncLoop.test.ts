@@ -4,6 +4,8 @@ import { LocalDb } from '../../src/local/db';
 import { recordChange } from '../../src/local/outbox';
 import { SyncLoop } from '../../src/local/syncLoop';
 import type { SyncTransport } from '../../src/local/syncEngine';
+// A round loads this with its first sync: loaded here, so no round of the faked clock waits on it.
+import '../../src/local/storePulled';
 import { ApiError } from '../../src/api/request';
 import type { PushRequest } from '../../src/contract/sync';
 
