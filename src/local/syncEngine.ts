@@ -42,7 +42,9 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
   const outcomes = new Map<number, MutationResult>();
   let pushed = 0;
   const changes: ChangeDto[] = [];
-  let cursor = ((await db.meta.get(cursorKey(userId)))?.value as number | undefined) ?? 0;
+  const storedCursor = async () => ((await db.meta.get(cursorKey(userId)))?.value as number | undefined) ?? 0;
+  const from = await storedCursor();
+  let cursor = from;
   /** Whether the last answer's pull left nothing waiting (so no separate pull is needed). */
   let pulledAll = false;
 
@@ -107,7 +109,8 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
       await db.outbox.bulkPut(answered);
       await storePulled(db, changes);
       await applyPulledPractice(db, userId, changes);
-      await db.meta.put({ key: cursorKey(userId), value: cursor });
+      // A cursor set back during this round (the judge desk asks for every end again) stays for the next.
+      if ((await storedCursor()) === from) await db.meta.put({ key: cursorKey(userId), value: cursor });
     },
   );
   return { pushed, applied, rejected, pulled: changes.length };

@@ -102,3 +102,25 @@ describe('one round trip per sync', () => {
     expect(pulls).toEqual([0]);
   });
 });
+
+describe('a pull cursor set back during a round', () => {
+  it('is kept for the next round, which pulls from there (the judge desk asks for every end again)', async () => {
+    const db = freshDb();
+    await db.meta.put({ key: 'pullCursor:5', value: 3 });
+    const pulls: number[] = [];
+    const transport: SyncTransport = {
+      push: async () => ({ results: [], lastSeq: 0 }),
+      pull: async (cursor) => {
+        pulls.push(cursor);
+        // The desk is prepared while this answer is on its way.
+        if (pulls.length === 1) await db.meta.put({ key: 'pullCursor:5', value: 0 });
+        return { changes: [otherWriters(9)], cursor: 9, hasMore: false };
+      },
+    };
+    await syncOnce(db, 5, transport);
+    expect((await db.meta.get('pullCursor:5'))?.value).toBe(0);
+    await syncOnce(db, 5, transport);
+    expect(pulls).toEqual([3, 0]);
+    expect((await db.meta.get('pullCursor:5'))?.value).toBe(9);
+  });
+});
