@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { PULL_LIMIT_DEFAULT, PULL_LIMIT_MAX } from './pullLimits';
 import { ARROW_FLAGS, TASKS, type ArrowFlag, type Task, type WriterSlot } from './fieldTerms';
 import type { ArrowValue, EndView, RoundDefinition } from '../core';
 import { arrowValueSchema } from './arrowValueSchema';
@@ -265,8 +266,7 @@ export type PracticeChangeDto = Extract<ChangeDto, { type: 'practice' | 'practic
 
 export type PullResponse = { changes: ChangeDto[]; cursor: number; hasMore: boolean };
 
-export const PULL_LIMIT_DEFAULT = 500;
-export const PULL_LIMIT_MAX = 2000;
+export { PULL_LIMIT_DEFAULT, PULL_LIMIT_MAX };
 
 const limitMessage = `limit must be a whole number from 1 to ${PULL_LIMIT_MAX}.`;
 
