@@ -168,6 +168,15 @@ const signIn = async (p: Page) => {
 };
 
 try {
+  // The phone syncs nothing before the tap: a judge's phone pulls the whole event as soon as it
+  // is signed in, and a pull already under way (or done) when the tap comes made the figure
+  // anything from ~1 to ~13 s. Held here, every sync request goes once the tap is made.
+  let releaseSync!: () => void;
+  const syncHeld = new Promise<void>((resolve) => (releaseSync = resolve));
+  await page.route('**/api/sync/**', async (route) => {
+    await syncHeld;
+    await route.continue().catch(() => undefined); // a request of a page since left
+  });
   await signIn(page);
   const deskUrl = `${base}/desk/${field.eventId}/${field.sessionId}`;
   await page.goto(deskUrl);
@@ -183,6 +192,8 @@ try {
     await cdp.send('Profiler.enable');
     await cdp.send('Profiler.start');
   }
+  releaseSync();
+  await page.unroute('**/api/sync/**');
   const coldMs = await page.evaluate<number>(
     `(${TAP_TO_LOADED})(${JSON.stringify(`Sign all ${readyEnds} ready ends`)})`,
   );
