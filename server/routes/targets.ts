@@ -4,10 +4,11 @@ import type { AppContext } from '../context';
 import { notFound } from '../http/httpError';
 import { idParam } from '../http/params';
 import { loadTargetPackage } from '../services/sync/targetPackage';
+import { loadSessionPackages } from '../services/sync/sessionPackages';
 import { leaveTarget, targetViewerTask } from '../services/sync/targetMembers';
 import { targetEndViews } from '../services/sync/targetEndViews';
 
-/** A joined target on the field: its package, the server's cross-check of its ends, and leaving it. */
+/** A session's targets for the judge desk; a joined target on the field: its package, the server's cross-check of its ends, and leaving it. */
 export function targetRoutes(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
@@ -19,6 +20,10 @@ export function targetRoutes(ctx: AppContext): Router {
     if (targetNumber > MAX_TARGET_NUMBER) throw notFound('That target does not exist.');
     return { sessionId, targetNumber };
   };
+
+  router.get('/targets/:sessionId', ctx.requireUser, async (req, res) => {
+    res.json(await loadSessionPackages(db, req.user!.id, idParam(req, 'sessionId', 'session')));
+  });
 
   router.get(base, ctx.requireUser, async (req, res) => {
     const { sessionId, targetNumber } = target(req);

@@ -6,7 +6,7 @@ import { eventKeys, eventPath } from './eventKeys';
 export const sessionPath = (eventId: number, sessionId: number, rest = '') =>
   eventPath(eventId, `/sessions/${sessionId}${rest}`);
 
-export const fetchSessionTargets = (eventId: number, sessionId: number) =>
+const fetchSessionTargets = (eventId: number, sessionId: number) =>
   apiRequest<TargetList>(sessionPath(eventId, sessionId, '/targets'));
 
 export const sessionTargetsQuery = (eventId: number, sessionId: number) =>

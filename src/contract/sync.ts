@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { PULL_LIMIT_DEFAULT, PULL_LIMIT_MAX } from './pullLimits';
 import { ARROW_FLAGS, TASKS, type ArrowFlag, type Task, type WriterSlot } from './fieldTerms';
 import type { ArrowValue, EndView, RoundDefinition } from '../core';
 import { arrowValueSchema } from './arrowValueSchema';
@@ -279,8 +280,7 @@ export type PracticeChangeDto = Extract<ChangeDto, { type: 'practice' | 'practic
 
 export type PullResponse = { changes: ChangeDto[]; cursor: number; hasMore: boolean };
 
-export const PULL_LIMIT_DEFAULT = 500;
-export const PULL_LIMIT_MAX = 2000;
+export { PULL_LIMIT_DEFAULT, PULL_LIMIT_MAX };
 
 const limitMessage = `limit must be a whole number from 1 to ${PULL_LIMIT_MAX}.`;
 
@@ -325,6 +325,9 @@ export type TargetPackage = {
     round: RoundDefinition;
   }[];
 };
+
+/** `GET /api/targets/:sessionId`: every target of a session with archers (judges and organizers). */
+export type SessionPackages = { targets: TargetPackage[] };
 
 /**
  * `GET /api/targets/:sessionId/:targetNumber/ends`: the server's own cross-check of a target,

@@ -1,10 +1,10 @@
-import type { ArrowFlag, EndSettleArgs, EndWriteArgs, WriterSlot } from '../contract/sync';
+import type { ArrowFlag, EndRecordDto, EndSettleArgs, EndWriteArgs, WriterSlot } from '../contract/sync';
 import type { EndRuleArgs, EndSignArgs } from '../contract/judging';
 import { rulingSteps, type EndFacts, type ValuesBefore } from '../core';
-import type { EndRecordRow, EndSignatureRow, OutboxRow, RulingRow, SettlementRow } from './db';
+import type { EndSignatureRow, OutboxRow, RulingRow, SettlementRow } from './db';
 
 export type SlotView = {
-  arrows: EndRecordRow['arrows'];
+  arrows: EndRecordDto['arrows'];
   flags: { index: number; flag: ArrowFlag }[];
   revision: number;
   /** True while this phone's change has not taken effect on the server (not sent, or held for a judge). */
@@ -40,7 +40,7 @@ export type JudgeRecords = { rulings?: RulingRow[]; signatures?: EndSignatureRow
  * session closed. Rejected changes are not laid over.
  */
 export function localEnd(
-  records: EndRecordRow[],
+  records: EndRecordDto[],
   settlement: SettlementRow | undefined,
   waiting: OutboxRow[],
   judged: JudgeRecords = {},

@@ -26,7 +26,7 @@ export async function forgetOthers(db: LocalDb, keep: number | undefined): Promi
       db.targets,
       db.outbox,
       db.meta,
-      db.endRecords,
+      db.cardRecords,
       db.settlements,
       db.rulings,
       db.endSignatures,
@@ -67,7 +67,7 @@ export async function forgetOthers(db: LocalDb, keep: number | undefined): Promi
         others.filter((r) => !isWaiting(r)).map((r): [string, number] => [r.clientId, r.seq]),
       );
       await Promise.all([
-        db.endRecords.clear(),
+        db.cardRecords.clear(),
         db.settlements.clear(),
         db.rulings.clear(),
         db.endSignatures.clear(),

@@ -1,5 +1,6 @@
 import { ApiError, apiRequest } from '../api/request';
 import type { DeviceKeyRequest } from '../contract/deviceKeys';
+import { PULL_LIMIT_MAX } from '../contract/pullLimits';
 import type { PullResponse, PushRequest, PushResponse } from '../contract/sync';
 import type { KeyRegistration } from './deviceKey';
 import type { SyncTransport } from './syncEngine';
@@ -8,7 +9,9 @@ import type { SyncTransport } from './syncEngine';
 export const httpTransport: SyncTransport = {
   push: (body: PushRequest) =>
     apiRequest<PushResponse>('/api/sync/push', { method: 'POST', body: JSON.stringify(body) }),
-  pull: (cursor: number) => apiRequest<PullResponse>(`/api/sync/pull?cursor=${cursor}`),
+  // The most a pull answers: a phone catching up (a judge's desk: a whole event) waits for fewer round trips.
+  pull: (cursor: number) =>
+    apiRequest<PullResponse>(`/api/sync/pull?cursor=${cursor}&limit=${PULL_LIMIT_MAX}`),
   registerKey: async (body: DeviceKeyRequest): Promise<KeyRegistration> => {
     try {
       await apiRequest<void>('/api/sync/device-key', { method: 'POST', body: JSON.stringify(body) });

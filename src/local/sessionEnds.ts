@@ -61,12 +61,19 @@ export async function loadSessionEnds(
     ...new Set(targets.flatMap((t) => t.archers.map((a) => `${cardKeyOf(sessionId, a.entryId)}:`))),
   ];
   // Many archers (the judge desk's whole session): one read of the session beats a range per archer.
+  const wholeSession = prefixes.length > WHOLE_SESSION_FROM;
   const byArcher = <T, K, I>(table: Table<T, K, I>) =>
-    prefixes.length > WHOLE_SESSION_FROM
+    wholeSession
       ? table.where('sessionId').equals(sessionId).toArray()
       : Promise.all(prefixes.map((p) => table.where('endKey').between(p, `${p}\uffff`).toArray())).then(
           (parts) => parts.flat(),
         );
+  // Writer records are kept one row per card (see CardRecordsRow).
+  const cardRecords = () =>
+    (wholeSession
+      ? db.cardRecords.where('sessionId').equals(sessionId).toArray()
+      : db.cardRecords.bulkGet(targets.flatMap((t) => t.archers.map((a) => cardKeyOf(sessionId, a.entryId))))
+    ).then((cards) => cards.flatMap((card) => card?.records ?? []));
   // Only unsynced and refused changes matter here; delivered ones are in the server's copies.
   const unsynced = (status: OutboxStatus) =>
     db.outbox
@@ -78,10 +85,10 @@ export async function loadSessionEnds(
       );
   const [records, settlements, unsent, heldHere, rejectedHere, rulings, signatures] = await db.transaction(
     'r',
-    [db.endRecords, db.settlements, db.outbox, db.rulings, db.endSignatures],
+    [db.cardRecords, db.settlements, db.outbox, db.rulings, db.endSignatures],
     () =>
       Promise.all([
-        byArcher(db.endRecords),
+        cardRecords(),
         byArcher(db.settlements),
         unsynced('pending'),
         unsynced('held'),
@@ -93,7 +100,7 @@ export async function loadSessionEnds(
   // Card signatures (session:entry:card) count as unsent but belong to no end.
   const ofEnds = (rows: OutboxRow[]) => rows.filter((r) => wanted.has(r.endKey));
   const [pending, held, rejected] = [ofEnds(unsent), ofEnds(heldHere), ofEnds(rejectedHere)];
-  const recordsByEnd = groupBy(records, (r) => r.endKey);
+  const recordsByEnd = groupBy(records, (r) => endKeyOf(r.sessionId, r.entryId, r.endIndex));
   const settlementByEnd = new Map(settlements.map((s) => [s.endKey, s]));
   const rulingsByEnd = groupBy(rulings, (r) => r.endKey);
   const signaturesByEnd = groupBy(signatures, (r) => r.endKey);

@@ -1,17 +1,5 @@
 import type { ChangeDto, MutationResult, PullResponse, PushRequest, PushResponse } from '../contract/sync';
-import { isPracticeChange } from '../contract/practiceChange';
-import {
-  cardKeyOf,
-  endKeyOf,
-  recordKeyOf,
-  type CardSignatureRow,
-  type EndRecordRow,
-  type EndSignatureRow,
-  type LocalDb,
-  type OutboxRow,
-  type RulingRow,
-  type SettlementRow,
-} from './db';
+import type { LocalDb, OutboxRow } from './db';
 import { clientIdFor, toMutation } from './outbox';
 import type { DeviceKeyRequest } from '../contract/deviceKeys';
 import { ensureDeviceKeyRegistered, type KeyRegistration } from './deviceKey';
@@ -29,7 +17,6 @@ export type SyncReport = { pushed: number; applied: number; rejected: number; pu
 
 const PUSH_BATCH = 200;
 
-
 /**
  * One round of sync for the signed-in person: push waiting changes in order, then pull what
  * changed on the server. Each push carries the pull cursor, and the server answers it with what
@@ -45,13 +32,19 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
   // phone hears of it from the push just after).
   if (transport.registerKey)
     await ensureDeviceKeyRegistered(db, clientId, transport.registerKey).catch(() => undefined);
-  // Loaded with the first sync, not with the pad: a writer's first paint does not wait for practice code.
-  const { applyPulledPractice, sendOlderPractice } = await import('./practiceSync');
+  // Loaded with the first sync, not with the pad: a writer's first paint does not wait for them.
+  const [{ applyPulledPractice, sendOlderPractice }, { storePulled }] = await Promise.all([
+    import('./practiceSync'),
+    import('./storePulled'),
+  ]);
   await sendOlderPractice(db, userId, clientId);
   const outcomes = new Map<number, MutationResult>();
   let pushed = 0;
   const changes: ChangeDto[] = [];
-  let cursor = ((await db.meta.get(pullCursorKey(userId)))?.value as number | undefined) ?? 0;
+  const storedCursor = async () =>
+    ((await db.meta.get(pullCursorKey(userId)))?.value as number | undefined) ?? 0;
+  const from = await storedCursor();
+  let cursor = from;
   /** Whether the last answer's pull left nothing waiting (so no separate pull is needed). */
   let pulledAll = false;
 
@@ -90,7 +83,7 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
     'rw',
     [
       db.outbox,
-      db.endRecords,
+      db.cardRecords,
       db.settlements,
       db.rulings,
       db.endSignatures,
@@ -114,10 +107,10 @@ export async function syncOnce(db: LocalDb, userId: number, transport: SyncTrans
         return [{ ...row, status: 'applied' as const }];
       });
       await db.outbox.bulkPut(answered);
-      await applyLateDecisions(db, changes);
-      await applyChanges(db, changes);
+      await storePulled(db, changes);
       await applyPulledPractice(db, userId, changes);
-      await db.meta.put({ key: pullCursorKey(userId), value: cursor });
+      // A cursor set back during this round (the judge desk asks for every end again) stays for the next.
+      if ((await storedCursor()) === from) await db.meta.put({ key: pullCursorKey(userId), value: cursor });
     },
   );
   return { pushed, applied, rejected, pulled: changes.length };
@@ -169,69 +162,4 @@ async function pushSplitting(
   if (first.expectedSeq !== undefined) return first;
   const second = await pushSplitting(transport, clientId, rows.slice(half));
   return { ...second, results: [...first.results, ...second.results] };
-}
-
-/**
- * A judge's decision on changes this phone sent after their session closed: accepted ones are
- * delivered (their effect comes as ordinary records), rejected ones are shown with the reason.
- */
-async function applyLateDecisions(db: LocalDb, changes: ChangeDto[]): Promise<void> {
-  const decisions = changes.flatMap((c) => (c.type === 'late-value' ? [c.record] : []));
-  if (decisions.length === 0) return;
-  const rows = await db.outbox
-    .where('id')
-    .anyOf(decisions.map((d) => d.mutationId))
-    .toArray();
-  const decided = rows.flatMap((row): OutboxRow[] => {
-    const d = decisions.find((x) => x.mutationId === row.id);
-    if (!d || row.status !== 'held') return [];
-    // A replaced value is no longer waiting: a later one of the same end from this phone speaks for it.
-    if (d.status !== 'rejected') return [{ ...row, status: 'applied' }];
-    return [
-      {
-        ...row,
-        status: 'rejected',
-        reason: `${d.decidedByName ?? 'A judge'} (judge) rejected this value: ${d.reason ?? ''}`,
-      },
-    ];
-  });
-  await db.outbox.bulkPut(decided);
-}
-
-/** Stores pulled changes; within one pull, a later change to the same record replaces an earlier one. */
-async function applyChanges(db: LocalDb, changes: ChangeDto[]): Promise<void> {
-  const cards = new Map<number, CardSignatureRow>();
-  const rulings = new Map<number, RulingRow>();
-  const signatures = new Map<number, EndSignatureRow>();
-  const settlements = new Map<string, SettlementRow>();
-  const records = new Map<string, EndRecordRow>();
-  for (const change of changes) {
-    if (change.type === 'late-value' || isPracticeChange(change)) continue; // see applyLateDecisions, applyPulledPractice
-    if (change.type === 'card-signature') {
-      const r = change.record;
-      cards.set(r.id, { ...r, cardKey: cardKeyOf(r.sessionId, r.entryId) });
-      continue;
-    }
-    const r = change.record;
-    const endKey = endKeyOf(r.sessionId, r.entryId, r.endIndex);
-    if (change.type === 'ruling') rulings.set(change.record.id, { ...change.record, endKey });
-    else if (change.type === 'signature') signatures.set(change.record.id, { ...change.record, endKey });
-    else if (change.type === 'settlement') settlements.set(endKey, { ...change.record, endKey });
-    else {
-      const key = recordKeyOf(r.sessionId, r.entryId, r.endIndex, change.record.slot);
-      const earlier = records.get(key);
-      if (!earlier || earlier.revision <= change.record.revision)
-        records.set(key, { ...change.record, key, endKey });
-    }
-  }
-  // Changes arrive in order, but never let an older revision replace a newer one on the phone.
-  const stored = await db.endRecords.bulkGet([...records.keys()]);
-  const newer = [...records.values()].filter((r, i) => !stored[i] || stored[i].revision <= r.revision);
-  await Promise.all([
-    db.cardSignatures.bulkPut([...cards.values()]),
-    db.rulings.bulkPut([...rulings.values()]),
-    db.endSignatures.bulkPut([...signatures.values()]),
-    db.settlements.bulkPut([...settlements.values()]),
-    db.endRecords.bulkPut(newer),
-  ]);
 }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { getRound, type ArrowValue } from '../../src/core';
-import { endKeyOf, type EndRecordRow, type JoinedTarget, type OutboxRow } from '../../src/local/db';
+import type { EndRecordDto } from '../../src/contract/sync';
+import { endKeyOf, type JoinedTarget, type OutboxRow } from '../../src/local/db';
 import { localEnd, type LocalEnd } from '../../src/local/endFacts';
 import { deskItemKey, deskItems, targetSummaries, withoutSigned } from '../../src/features/desk/deskItems';
 
@@ -16,9 +17,7 @@ const target = (targetNumber: number): JoinedTarget =>
     archers: [{ entryId: targetNumber * 10, position: 'A', name: `Archer ${targetNumber}A`, round }],
   }) as unknown as JoinedTarget;
 
-const record = (entryId: number, slot: 1 | 2, arrows: ArrowValue[], revision = 1): EndRecordRow => ({
-  key: `${endKeyOf(1, entryId, 0)}:${slot}`,
-  endKey: endKeyOf(1, entryId, 0),
+const record = (entryId: number, slot: 1 | 2, arrows: ArrowValue[], revision = 1): EndRecordDto => ({
   sessionId: 1,
   entryId,
   endIndex: 0,

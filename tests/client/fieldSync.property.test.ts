@@ -19,7 +19,7 @@ import {
   type PushResponse,
   type MutationResult,
 } from '../../src/contract/sync';
-import { LocalDb, endKeyOf, targetKeyOf, type JoinedTarget } from '../../src/local/db';
+import { LocalDb, cardKeyOf, endKeyOf, targetKeyOf, type JoinedTarget } from '../../src/local/db';
 import { recordChange } from '../../src/local/outbox';
 import { syncOnce, type SyncTransport } from '../../src/local/syncEngine';
 import { localEnd } from '../../src/local/endFacts';
@@ -33,6 +33,12 @@ import { makePerson, type TestPerson } from '../server/support/people';
 import { Phone } from '../server/support/phone';
 
 const RUNS = Number(process.env.FIELD_SYNC_RUNS ?? 1000);
+
+/** The server's copies of one end's writer records as a phone stored them (in its card's row). */
+const storedRecords = async (db: LocalDb, sessionId: number, entryId: number, endIndex: number) =>
+  ((await db.cardRecords.get(cardKeyOf(sessionId, entryId)))?.records ?? []).filter(
+    (r) => r.endIndex === endIndex,
+  );
 const ARCHERS = 2;
 const ENDS = 2;
 const VALUES = scoringValues('full-122', 'recurve', 'outdoor');
@@ -240,7 +246,7 @@ async function runHistory(actions: Action[]): Promise<void> {
         const p = phones.get('caller')!;
         const key = endKeyOf(sessionId, entryIds[a.archer]!, a.end);
         const local = localEnd(
-          await p.db.endRecords.where('endKey').equals(key).toArray(),
+          await storedRecords(p.db, sessionId, entryIds[a.archer]!, a.end),
           await p.db.settlements.get(key),
           await p.db.outbox.where('endKey').equals(key).toArray(),
         );
@@ -354,7 +360,7 @@ async function checkOutcome(
       for (let endIndex = 0; endIndex < ENDS; endIndex += 1) {
         const key = endKeyOf(sessionId, entryId, endIndex);
         const local = localEnd(
-          await p.db.endRecords.where('endKey').equals(key).toArray(),
+          await storedRecords(p.db, sessionId, entryId, endIndex),
           await p.db.settlements.get(key),
           [],
         );

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { endView, type ArrowValue } from '../../src/core';
-import type { EndRecordRow, RulingRow, SettlementRow } from '../../src/local/db';
+import type { EndRecordDto } from '../../src/contract/sync';
+import type { RulingRow, SettlementRow } from '../../src/local/db';
 import { localEnd } from '../../src/local/endFacts';
 import { openFlags } from '../../src/ui/scorecard/endFlags';
 import { feedKey, flushLoneOne } from '../../src/ui/scorecard/keyEntry';
@@ -10,9 +11,7 @@ import { startingValues } from '../../src/features/desk/deskItems';
 import { changesWords, summarizeWaiting, waitingWords } from '../../src/local/waitingSummary';
 
 const SIX: ArrowValue[] = ['10', '9', '9', '8', '7', '6'];
-const record = (slot: 1 | 2, arrows: ArrowValue[], flags: EndRecordRow['flags'] = []): EndRecordRow => ({
-  key: `1:7:0:${slot}`,
-  endKey: '1:7:0',
+const record = (slot: 1 | 2, arrows: ArrowValue[], flags: EndRecordDto['flags'] = []): EndRecordDto => ({
   sessionId: 1,
   entryId: 7,
   endIndex: 0,

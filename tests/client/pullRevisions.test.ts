@@ -42,7 +42,7 @@ function pages(...all: ChangeDto[][]): SyncTransport {
 }
 
 const storedArrows = async (db: LocalDb) =>
-  (await db.endRecords.toArray()).map((r) => [r.revision, r.arrows]);
+  (await db.cardRecords.toArray()).flatMap((c) => c.records.map((r) => [r.revision, r.arrows]));
 
 describe('pulled writer records', () => {
   it('keep the newest revision when one pull carries an older one after it', async () => {

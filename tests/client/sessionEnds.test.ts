@@ -1,6 +1,6 @@
 import 'fake-indexeddb/auto';
 import { afterEach, describe, expect, it } from 'vitest';
-import { LocalDb, endKeyOf, type JoinedTarget } from '../../src/local/db';
+import { LocalDb, cardKeyOf, endKeyOf, type JoinedTarget } from '../../src/local/db';
 import { loadSessionEnds, type EndCache } from '../../src/local/sessionEnds';
 import { recordChange } from '../../src/local/outbox';
 import { UNEVEN_ROUND as UNEVEN } from '../support/rounds';
@@ -36,18 +36,22 @@ const target: JoinedTarget = {
 
 describe('the ends the phone reads for a target', () => {
   it('are the core count of the round: a shorter last end is one of them', async () => {
-    await db.endRecords.put({
-      key: `${endKeyOf(1, 7, 1)}:1`,
-      endKey: endKeyOf(1, 7, 1),
+    await db.cardRecords.put({
+      cardKey: cardKeyOf(1, 7),
       sessionId: 1,
-      entryId: 7,
-      endIndex: 1,
-      slot: 1,
-      arrows: ['9', '9', '8', '7'],
-      flags: [],
-      revision: 1,
-      writtenBy: 5,
-      writtenAt: '2026-06-01T09:10:00.000Z',
+      records: [
+        {
+          sessionId: 1,
+          entryId: 7,
+          endIndex: 1,
+          slot: 1,
+          arrows: ['9', '9', '8', '7'],
+          flags: [],
+          revision: 1,
+          writtenBy: 5,
+          writtenAt: '2026-06-01T09:10:00.000Z',
+        },
+      ],
     });
     const { ends } = await loadSessionEnds(db, 1, 5, [target]);
     expect([...ends.keys()]).toEqual([endKeyOf(1, 7, 0), endKeyOf(1, 7, 1)]);

@@ -73,18 +73,22 @@ async function phoneUsedByTwo(db: LocalDb) {
   await recordChange(db, ORGANIZER, write(21, 0));
   await recordChange(db, ORGANIZER, write(21, 0));
   await recordChange(db, ARCHER, write(31, 4));
-  await db.endRecords.put({
-    key: '9:11:0:1',
-    endKey: '9:11:0',
+  await db.cardRecords.put({
+    cardKey: '9:11',
     sessionId: 9,
-    entryId: 11,
-    endIndex: 0,
-    slot: 1,
-    arrows: ['9'],
-    flags: [],
-    revision: 1,
-    writtenBy: ORGANIZER,
-    writtenAt: '2026-12-02T09:00:00.000Z',
+    records: [
+      {
+        sessionId: 9,
+        entryId: 11,
+        endIndex: 0,
+        slot: 1,
+        arrows: ['9'],
+        flags: [],
+        revision: 1,
+        writtenBy: ORGANIZER,
+        writtenAt: '2026-12-02T09:00:00.000Z',
+      },
+    ],
   });
   await db.rulings.put({
     id: 1,
@@ -125,7 +129,7 @@ describe('a phone shared by several people', () => {
       ]),
     );
     expect(outbox).toHaveLength(3);
-    expect(await db.endRecords.count()).toBe(0);
+    expect(await db.cardRecords.count()).toBe(0);
     expect(await db.rulings.count()).toBe(0);
     expect(await db.meta.where('key').startsWith('pullCursor:').count()).toBe(0);
 
@@ -181,7 +185,7 @@ describe('a phone shared by several people', () => {
     expect(owner.phoneOwner()).toBe(ARCHER);
     expect([...stored.keys()].sort()).toEqual(['ringcall.owner', 'ringcall.theme']);
     await owner.ownerSettled();
-    expect(await localDb().endRecords.count()).toBe(0);
+    expect(await localDb().cardRecords.count()).toBe(0);
     expect(await localDb().targets.where('userId').equals(ORGANIZER).count()).toBe(1);
 
     await owner.releasePhone();

@@ -46,18 +46,25 @@ const tap = (db: LocalDb, arrows: string[]) =>
     args: { sessionId: 1, entryId: 7, endIndex: 0, slot: 1, arrows, flags: [] },
   } as Parameters<typeof recordChange>[2]);
 
-/** Lets pending promise work (IndexedDB, the loop's round) finish without moving the clock. */
-const settle = () => new Promise((resolve) => setImmediate(resolve));
-async function advance(ms: number) {
+/**
+ * Moves the loop's clock, then lets a round it began finish without moving the clock again. Waited
+ * for in real time: a round loads modules (the engine's practice and pull code), which a count of
+ * IndexedDB's turns does not wait for.
+ */
+async function advance(loop: SyncLoop, ms: number) {
   await vi.advanceTimersByTimeAsync(ms);
-  for (let i = 0; i < 50; i += 1) await settle();
+  await vi.waitFor(
+    () => {
+      if (loop.getStatus().phase === 'syncing') throw new Error('The round is still running.');
+    },
+    { timeout: 5_000, interval: 2 },
+  );
 }
 
 async function startedLoop(db: LocalDb, transport: SyncTransport) {
   const loop = new SyncLoop(db, transport);
   loop.setUser(5);
-  await advance(0);
-  for (let i = 0; i < 500 && loop.getStatus().phase === 'syncing'; i += 1) await settle();
+  await advance(loop, 0);
   return loop;
 }
 
@@ -70,10 +77,10 @@ describe('the sync loop', () => {
     for (const arrows of [['X'], ['X', '9'], ['X', '9', '9']]) {
       await tap(db, arrows);
       loop.afterChange();
-      await advance(300);
+      await advance(loop, 300);
     }
     expect(pushes.length).toBe(before);
-    await advance(600);
+    await advance(loop, 600);
     expect(pushes.length).toBe(before + 1);
     expect(pushes.at(-1)!.mutations.map((m) => m.seq)).toEqual([1, 2, 3]);
   });
@@ -87,7 +94,7 @@ describe('the sync loop', () => {
     for (let i = 0; i < 10 && pushes.length === before; i += 1) {
       await tap(db, ['9']);
       loop.afterChange();
-      await advance(500);
+      await advance(loop, 500);
     }
     expect(pushes.length).toBe(before + 1);
     expect(pushes.at(-1)!.mutations.length).toBeLessThanOrEqual(9);
@@ -108,12 +115,12 @@ describe('the sync loop', () => {
     const loop = await startedLoop(db, transport);
     expect(loop.getStatus()).toMatchObject({ phase: 'offline', retryInMs: 3_000 });
     expect(calls).toBe(1);
-    await advance(2_900);
+    await advance(loop, 2_900);
     expect(calls).toBe(1);
-    await advance(200);
+    await advance(loop, 200);
     expect(calls).toBe(2);
     expect(loop.getStatus().retryInMs).toBe(6_000);
-    await advance(6_000);
+    await advance(loop, 6_000);
     expect(calls).toBe(3);
     expect(loop.getStatus().retryInMs).toBe(12_000);
   });
@@ -132,13 +139,13 @@ describe('the sync loop', () => {
     };
     const loop = await startedLoop(db, transport);
     expect(loop.getStatus().phase).toBe('signed-out');
-    await advance(10 * 60_000);
+    await advance(loop, 10 * 60_000);
     expect(pushes).toHaveLength(0);
     expect(await db.outbox.where('status').equals('pending').count()).toBe(1);
 
     signedIn = true;
     loop.setUser(5);
-    await advance(0);
+    await advance(loop, 0);
     expect(pushes).toHaveLength(1);
     expect(loop.getStatus().phase).toBe('idle');
     expect(await db.outbox.where('status').equals('applied').count()).toBe(1);

@@ -69,7 +69,7 @@ describe('one round trip per sync', () => {
     expect(pushes.map((p) => p.cursor)).toEqual([0]);
     expect(pulls).toEqual([]);
     expect(report).toMatchObject({ pushed: 2, applied: 2, pulled: 1 });
-    expect((await db.endRecords.toArray()).map((r) => r.arrows)).toEqual([['9']]);
+    expect((await db.cardRecords.toArray()).flatMap((c) => c.records.map((r) => r.arrows))).toEqual([['9']]);
     expect((await db.meta.get('pullCursor:5'))?.value).toBe(4);
   });
 
@@ -83,7 +83,7 @@ describe('one round trip per sync', () => {
     const report = await syncOnce(db, 5, transport);
     expect(pulls).toEqual([4]);
     expect(report.pulled).toBe(2);
-    expect((await db.endRecords.toArray()).map((r) => r.revision)).toEqual([9]);
+    expect((await db.cardRecords.toArray()).flatMap((c) => c.records.map((r) => r.revision))).toEqual([9]);
   });
 
   it('pulls on its own from an older server that answers pushes without a pull', async () => {
@@ -100,5 +100,27 @@ describe('one round trip per sync', () => {
     await syncOnce(db, 5, transport);
     expect(pushes).toEqual([]);
     expect(pulls).toEqual([0]);
+  });
+});
+
+describe('a pull cursor set back during a round', () => {
+  it('is kept for the next round, which pulls from there (the judge desk asks for every end again)', async () => {
+    const db = freshDb();
+    await db.meta.put({ key: 'pullCursor:5', value: 3 });
+    const pulls: number[] = [];
+    const transport: SyncTransport = {
+      push: async () => ({ results: [], lastSeq: 0 }),
+      pull: async (cursor) => {
+        pulls.push(cursor);
+        // The desk is prepared while this answer is on its way.
+        if (pulls.length === 1) await db.meta.put({ key: 'pullCursor:5', value: 0 });
+        return { changes: [otherWriters(9)], cursor: 9, hasMore: false };
+      },
+    };
+    await syncOnce(db, 5, transport);
+    expect((await db.meta.get('pullCursor:5'))?.value).toBe(0);
+    await syncOnce(db, 5, transport);
+    expect(pulls).toEqual([3, 0]);
+    expect((await db.meta.get('pullCursor:5'))?.value).toBe(9);
   });
 });

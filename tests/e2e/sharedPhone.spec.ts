@@ -57,7 +57,7 @@ async function organizerLooksAround(browser: Browser) {
   await expect
     .poll(async () => {
       const stored = await phoneStorage(page);
-      return stored.local.includes(banner.name) && stored.tables.endRecords!.length > 0;
+      return stored.local.includes(banner.name) && stored.tables.cardRecords!.length > 0;
     })
     .toBe(true);
   return page;
@@ -69,7 +69,7 @@ async function expectNothingOfTheOrganizer(page: Page) {
   const stored = await phoneStorage(page);
   for (const text of [DEMO_ORGANIZER.email, DEMO_ORGANIZER.name, banner.email, banner.name])
     expect(stored.local, `localStorage holds "${text}"`).not.toContain(text);
-  for (const table of ['endRecords', 'settlements', 'rulings', 'endSignatures', 'cardSignatures'])
+  for (const table of ['cardRecords', 'settlements', 'rulings', 'endSignatures', 'cardSignatures'])
     expect(stored.tables[table], table).toEqual([]);
   expect(JSON.stringify(stored.tables.targets)).not.toContain(banner.name);
   const organizerId = readDemoDb<{ id: number }>(

@@ -85,6 +85,17 @@ export async function leaveTarget(
     });
 }
 
+/** Whether the person judges or organizes the session's event; refuses a session that does not exist. */
+export async function isSessionStaff(db: Db, userId: number, sessionId: number): Promise<boolean> {
+  const session = await db('event_sessions').where({ id: sessionId }).first('event_id');
+  if (!session) throw notFound('That session does not exist.');
+  const role = await db('event_roles')
+    .where({ event_id: session.event_id, user_id: userId })
+    .whereIn('role', ['organizer', 'judge'])
+    .first('id');
+  return role !== undefined;
+}
+
 /**
  * Who may look at a target: its group, and the event's judges and organizers (who follow it
  * unless they joined with a task). Returns the task to show; refuses everyone else.
@@ -95,15 +106,10 @@ export async function targetViewerTask(
   sessionId: number,
   targetNumber: number,
 ): Promise<Task> {
-  const session = await db('event_sessions').where({ id: sessionId }).first('event_id');
-  if (!session) throw notFound('That session does not exist.');
+  const staff = await isSessionStaff(db, userId, sessionId);
   const member = await db('target_members')
     .where({ session_id: sessionId, target_number: targetNumber, user_id: userId })
     .first('task');
-  const staff = await db('event_roles')
-    .where({ event_id: session.event_id, user_id: userId })
-    .whereIn('role', ['organizer', 'judge'])
-    .first('id');
   if (!member && !staff) {
     throw forbidden(
       `Only the group of target ${targetNumber}, the judges and the organizers can see it. Join it with the code on the target sheet.`,

@@ -176,7 +176,7 @@ function OneTarget({
 
 function Desk({ eventId, sessionId, userId }: { eventId: number; sessionId: number; userId: number }) {
   const [targetFilter, setTargetFilter] = useState<number | 'all'>('all');
-  const prepare = usePrepareDesk(eventId, sessionId, userId);
+  const prepare = usePrepareDesk(sessionId, userId);
   const online = useOnline();
   const targets = useLiveQuery(
     async () =>

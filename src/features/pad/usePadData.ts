@@ -28,7 +28,7 @@ export function usePadData(
     // One read transaction per refresh: the next tap's write waits for every open one.
     return db.transaction(
       'r',
-      [db.targets, db.endRecords, db.settlements, db.outbox, db.rulings, db.endSignatures],
+      [db.targets, db.cardRecords, db.settlements, db.outbox, db.rulings, db.endSignatures],
       async () => {
         // Only the signed-in person's own target: a shared phone never shows another's pad.
         const target =

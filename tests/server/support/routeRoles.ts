@@ -352,6 +352,13 @@ export const ROUTES: RouteRule[] = [
   },
   {
     method: 'get',
+    route: '/api/targets/:sessionId',
+    path: (f) => `/api/targets/${f.sessionId}`,
+    allowed: STAFF,
+    ok: 200,
+  },
+  {
+    method: 'get',
     route: '/api/targets/:sessionId/:targetNumber',
     path: (f) => `/api/targets/${f.sessionId}/1`,
     allowed: STAFF,
