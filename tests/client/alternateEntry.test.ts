@@ -78,6 +78,20 @@ describe('alternate entry', () => {
     expect(addInOrder(draft, v('7 7 7 7 7'), order)).toEqual({ endIndex: 1, a: v('10 8 7'), b: v('9 7 7') });
   });
 
+  it('gives the shoot-off one arrow each, from the archer who started the match (the judge’s shoot-off entry shows it)', () => {
+    // Five sets won in turn, 5–5: level, so the archer who shot first in end 1 starts (core rule, from memory: see shootingOrder.test.ts).
+    const sets = [
+      { a: v('10 10 10'), b: v('9 9 9') },
+      { a: v('9 9 9'), b: v('10 10 10') },
+      { a: v('10 10 10'), b: v('9 9 9') },
+      { a: v('9 9 9'), b: v('10 10 10') },
+      { a: v('10 10 9'), b: v('10 10 9') },
+    ];
+    expect(alternateOrder(alternating, 'sets', sets, 'b')).toEqual(['b', 'a']);
+    expect(alternateOrder(alternating, 'sets', sets, 'a')).toEqual(['a', 'b']);
+    expect(alternateOrder(matchDto(), 'sets', sets, 'a')).toBeNull();
+  });
+
   it('fills line by line when the match does not alternate or nobody chose', () => {
     expect(alternateOrder(matchDto(), 'sets', [], 'a')).toBeNull();
     expect(alternateOrder(alternating, 'sets', [], null)).toBeNull();

@@ -119,11 +119,14 @@ function ShootOffEntry({
   card,
   target,
   save,
+  order,
 }: {
   match: MatchDto;
   card: MatchCardView;
   target: { eventId: number; matchId: number };
   save: Save;
+  /** The shoot-off's order when the match is shot alternately (the core's rule); null otherwise. */
+  order: Side[] | null;
 }) {
   const saved =
     card.shootOff.a && card.shootOff.b ? { a: [card.shootOff.a.value], b: [card.shootOff.b.value] } : null;
@@ -156,6 +159,11 @@ function ShootOffEntry({
       {card.state?.next === 'judge' && (
         <p className="font-bold">
           ▲ The arrows are level: measure them, or say which one is closer to the centre.
+        </p>
+      )}
+      {order && (
+        <p data-testid="shoot-off-first">
+          <span className="font-bold">{nameOf(match, order[0]!)}</span> shoots first.
         </p>
       )}
       <DraftLines match={match} draft={draft} per={1} />
@@ -313,6 +321,12 @@ function MatchCardPanel({
           card={card}
           target={target}
           save={save}
+          order={alternateOrder(
+            match,
+            bracket.format,
+            card.ends,
+            chosenFirstShooter(match, mine)?.side ?? null,
+          )}
         />
       )}
       {!draft && state?.winner && <MatchOver match={match} card={card} save={save} target={target} />}
