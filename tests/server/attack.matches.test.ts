@@ -222,6 +222,44 @@ describe('a judge beyond a ruling', () => {
   });
 });
 
+describe('the judge signing one end', () => {
+  const ref = () => ({ eventId: field.eventId, matchId: second.id });
+  const signPath = (endIndex: string, eventId = field.eventId, matchId = second.id) =>
+    `/api/events/${eventId}/matches/${matchId}/ends/${endIndex}/sign`;
+  const signatures = () => server.db('match_ends').where({ match_id: second.id }).whereNotNull('signed_at');
+
+  it('refuses end numbers in the address it cannot hold with a 400 in words, and people beyond the event', async () => {
+    for (const endIndex of ['-1', '5', '1.5', 'abc', '01', '1e0', '%00', '0x1', ' 0'])
+      expectRefused(
+        await request(server.app).post(signPath(endIndex)).set(field.judge.auth),
+        400,
+        /A match has ends/,
+      );
+    expect((await request(server.app).post(signPath('0'))).status).toBe(401);
+    for (const person of [m.archers.c, m.otherJudge, m.stranger])
+      expect((await request(server.app).post(signPath('0')).set(person.auth)).status).toBe(403);
+    // Through the other event's address, where this match does not exist.
+    expectRefused(
+      await request(server.app).post(signPath('0', m.otherEventId)).set(m.otherJudge.auth),
+      404,
+      /match/i,
+    );
+    expect(await signatures()).toHaveLength(0);
+  });
+
+  it('refuses end numbers and references it cannot read in the outbox, each on its own', async () => {
+    const judge = new Phone(server.app, field.judge);
+    const odd = (args: unknown): Mutation =>
+      ({ ...judge.matchEndSign({ ...ref(), endIndex: 0 }), args }) as Mutation;
+    const bad = [-1, 5, 1.5, '0', null, 1e308].map((endIndex) => odd({ ...ref(), endIndex }));
+    bad.push(odd({ eventId: m.otherEventId, matchId: second.id, endIndex: 0 }));
+    const res = await judge.push(bad);
+    expect(res.results.map((r) => r.status)).toEqual(bad.map(() => 'rejected'));
+    for (const r of res.results) expect(reasonOf(r)!.length).toBeGreaterThan(15);
+    expect(await signatures()).toHaveLength(0);
+  });
+});
+
 describe('guessing match codes', () => {
   it('counts wrong match codes with wrong target codes: the right code waits too', async () => {
     vi.useFakeTimers({ toFake: ['Date'] });

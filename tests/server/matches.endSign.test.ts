@@ -5,10 +5,12 @@ import type { BracketDto, MatchDto } from '../../src/contract/matches';
 import type { Mutation, MutationResult } from '../../src/contract/sync';
 import type { Field } from './support/fieldSetup';
 import { setUpMatchWriters, type MatchWritersField } from './support/matchWriters';
-import type { TestPerson } from './support/people';
+import { giveRole, makePerson, type TestPerson } from './support/people';
 import { Phone } from './support/phone';
 import { startTestServer, type TestServer } from './support/testServer';
 import { replayLog } from '../../server/services/sync/rebuildFromLog';
+import { signMatchEnd } from '../../server/services/matches/endSignatures';
+import { recordWalkover, signMatch } from '../../server/services/matches/matchActions';
 
 /*
  * How a match's ends are settled once two writers score it: the judge signs each set or end that
@@ -116,10 +118,23 @@ describe('the judge signs each set', () => {
     // Signed again through the route (the judge's phone uses the outbox; the route answers the brackets).
     const path = `/api/events/${field.eventId}/matches/${first.id}/ends/0/sign`;
     expect((await request(server.app).post(path).set(archers.a.auth)).status).toBe(403);
-    const res = await request(server.app).post(path).set(field.judge.auth);
-    expect(res.status).toBe(200);
-    const m = (res.body.brackets as BracketDto[])[0]!.matches.find((x) => x.id === first.id)!;
-    expect(m.ends[0]).toEqual({ ...corrected, by: 'judge', signed: true });
+    // Two judges of the event sign at once, both checks before either write: one signature is
+    // kept, by its signer; the other hears it is signed already.
+    const secondJudge = await makePerson(server.db, 'Second Judge');
+    await giveRole(server.db, field.eventId, secondJudge, 'judge');
+    const raced = await Promise.allSettled(
+      [field.judge, secondJudge].map((person) =>
+        signMatchEnd(server.db, field.eventId, first.id, 0, person.id),
+      ),
+    );
+    expect(raced.map((r) => r.status).sort()).toEqual(['fulfilled', 'rejected']);
+    const refused = raced.find((r) => r.status === 'rejected')!;
+    expect(String(refused.reason)).toContain('End 1 of this match is already signed.');
+    const signer = raced[0]!.status === 'fulfilled' ? field.judge : secondJudge;
+    const row = await server.db('match_ends').where({ match_id: first.id, end_index: 0 }).first();
+    expect(row.signed_by).toBe(signer.id);
+    expect(await server.db('audit_log').where({ action: 'match.endSign' })).toHaveLength(2);
+    expect((await matchById(first.id)).ends[0]).toEqual({ ...corrected, by: 'judge', signed: true });
     const twice = await request(server.app).post(path).set(field.judge.auth);
     expect(twice.status).toBe(409);
     expect(twice.body.error.message).toBe('End 1 of this match is already signed.');
@@ -218,6 +233,40 @@ describe('a counted set a writer changes afterwards', () => {
       'The judge recorded the shoot-off of this match: its ends are closed; ask the judge.',
     );
     expect((await matchById(second.id)).state!.winner).toBe('a');
+  });
+});
+
+describe('a decided match signed twice at once', () => {
+  it('keeps one decision: a second signature or a walkover racing it is refused and undone', async () => {
+    // The second match is decided by its shoot-off above and not signed yet.
+    const secondJudge = await makePerson(server.db, 'Racing Judge');
+    await giveRole(server.db, field.eventId, secondJudge, 'judge');
+    const raced = await Promise.allSettled([
+      signMatch(server.db, field.eventId, second.id, field.judge.id),
+      signMatch(server.db, field.eventId, second.id, secondJudge.id),
+      recordWalkover(
+        server.db,
+        field.eventId,
+        second.id,
+        { side: 'a', reason: 'withdrawal' },
+        field.organizer.id,
+      ),
+    ]);
+    // Whichever came first is kept; the others are refused in words (a 409), not a database failure.
+    expect(raced.filter((r) => r.status === 'fulfilled')).toHaveLength(1);
+    for (const r of raced.filter((x): x is PromiseRejectedResult => x.status === 'rejected'))
+      expect(r.reason).toMatchObject({ status: 409, message: expect.stringContaining('decided') });
+    const row = await server.db('matches').where({ id: second.id }).first();
+    const kept = raced.findIndex((r) => r.status === 'fulfilled');
+    expect(row).toMatchObject(
+      kept === 2
+        ? { winner_side: 'b', decided_by: 'withdrawal', signed_by: field.organizer.id }
+        : { winner_side: 'a', decided_by: 'shoot-off', signed_by: [field.judge, secondJudge][kept]!.id },
+    );
+    const decisions = await server.db('audit_log').whereIn('action', ['match.sign', 'match.walkover']);
+    expect(
+      decisions.filter((d: { details: string }) => d.details.includes(`"matchId":${second.id}`)),
+    ).toHaveLength(1);
   });
 });
 

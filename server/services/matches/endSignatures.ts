@@ -36,9 +36,13 @@ export async function signMatchEnd(
     throw conflict(
       `End ${n} of this match does not count yet: the two writers have not agreed on it (or on an end before it) and no judge has settled it.`,
     );
-  if (end.signed) throw conflict(`End ${n} of this match is already signed.`);
-  await db('match_ends')
+  const alreadySigned = () => conflict(`End ${n} of this match is already signed.`);
+  if (end.signed) throw alreadySigned();
+  // Only while still unsigned: a second judge's signature racing this one is refused, never written over it.
+  const signed = await db('match_ends')
     .where({ match_id: matchId, end_index: endIndex })
+    .whereNull('signed_at')
     .update({ signed_by: userId, signed_at: nowIso() });
+  if (signed === 0) throw alreadySigned();
   await audit(db, { userId, eventId, action: 'match.endSign', details: { matchId, endIndex } });
 }

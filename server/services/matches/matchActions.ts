@@ -87,6 +87,15 @@ export async function recordMatchShootOff(
   });
 }
 
+/**
+ * Stores a match's winner only while it has none: a second signature or walkover racing this one
+ * (both checked the match open before either wrote) is refused, and its transaction undone.
+ */
+async function decideOnce(trx: Db, matchId: number, decision: Record<string, unknown>): Promise<void> {
+  const decided = await trx('matches').where({ id: matchId }).whereNull('winner_side').update(decision);
+  if (decided === 0) throw conflict('This match was decided a moment ago; it cannot change any more.');
+}
+
 /** A judge signs a decided match (and its counted ends not signed yet): its winner is stored and the bracket moves on. */
 export async function signMatch(db: Db, eventId: number, matchId: number, userId: number): Promise<void> {
   const match = await openMatch(db, eventId, matchId);
@@ -101,13 +110,13 @@ export async function signMatch(db: Db, eventId: number, matchId: number, userId
     throw conflict(`This match is not decided yet: ${waiting}.`);
   }
   await db.transaction(async (trx) => {
-    await signCountedEnds(trx, matchId, state.ends.length, userId);
-    await trx('matches').where({ id: matchId }).update({
+    await decideOnce(trx, matchId, {
       winner_side: state.winner,
       decided_by: state.decidedBy,
       signed_by: userId,
       signed_at: nowIso(),
     });
+    await signCountedEnds(trx, matchId, state.ends.length, userId);
     await advance(trx, match, state.winner!);
     await audit(trx, { userId, eventId, action: 'match.sign', details: { matchId, winner: state.winner } });
   });
@@ -124,9 +133,12 @@ export async function recordWalkover(
   const match = await openMatch(db, eventId, matchId);
   const winner = other(body.side);
   await db.transaction(async (trx) => {
-    await trx('matches')
-      .where({ id: matchId })
-      .update({ winner_side: winner, decided_by: body.reason, signed_by: userId, signed_at: nowIso() });
+    await decideOnce(trx, matchId, {
+      winner_side: winner,
+      decided_by: body.reason,
+      signed_by: userId,
+      signed_at: nowIso(),
+    });
     await advance(trx, match, winner);
     await audit(trx, { userId, eventId, action: 'match.walkover', details: { matchId, ...body } });
   });
