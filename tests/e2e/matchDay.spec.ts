@@ -113,7 +113,7 @@ test('the organizer creates a bracket, the judge scores matches offline on the p
   await checkA11y(desk, 'judge: matches');
   await shot(desk, 'judge-matches');
   await desk.getByTestId(`desk-match-${semi1}`).click();
-  await expect(desk.getByRole('heading', { name: 'End 1' })).toBeVisible();
+  await expect(desk.getByRole('heading', { name: 'Set 1' })).toBeVisible();
   // The keys are big enough for a thumb.
   const key = await desk.getByRole('button', { name: 'Arrow 10', exact: true }).boundingBox();
   expect(key!.width).toBeGreaterThanOrEqual(44);

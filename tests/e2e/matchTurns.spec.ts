@@ -139,7 +139,7 @@ test('an alternating semi-final: the writer picks who shoots first and the pad f
   await expect(next).toHaveText(`Next arrow: ${ARCHERS[0]}`);
   await tap(pad, '10');
   // End 1 complete (Mora 30, Pim 26): the archer behind, Pim, starts end 2.
-  await expect(pad.getByRole('heading', { name: 'End 2' })).toBeVisible();
+  await expect(pad.getByRole('heading', { name: 'Set 2' })).toBeVisible();
   await expect(next).toHaveText(`Next arrow: ${ARCHERS[3]}`);
   await pad.context().setOffline(false);
 

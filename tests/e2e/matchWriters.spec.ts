@@ -111,7 +111,7 @@ test('two archers score their match on their phones, the judge settles a mismatc
     }
     await page.getByRole('button', { name: 'Join the match' }).click();
     await expect(page.getByRole('heading', { name: 'Match pad' })).toBeVisible();
-    await expect(page.getByRole('heading', { name: 'End 1' })).toBeVisible();
+    await expect(page.getByRole('heading', { name: 'Set 1' })).toBeVisible();
     // Scoring happens here: the range cautions are shown, deferring to the judges.
     await expect(page.getByRole('complementary', { name: 'Range safety' })).toContainText(
       "The event's judges and the governing body's rules always decide.",
@@ -128,6 +128,8 @@ test('two archers score their match on their phones, the judge settles a mismatc
   await tapEnd(padB, '10 10 10 9 9 9');
   for (const pad of pads) {
     await expect(pad.getByTestId('writer-end-1')).toContainText('Both writers agree', { timeout: 30_000 });
+    // In the set system each end is a set, as on the card's table.
+    await expect(pad.getByTestId('writer-end-1')).toContainText('Set 1: ');
     await expect(pad.getByTestId('score-a')).toContainText('2');
   }
   await shot(padA, 'pad-end-1-agreed');
@@ -158,7 +160,9 @@ test('two archers score their match on their phones, the judge settles a mismatc
   const signKey = await ends.getByRole('button', { name: 'Sign set 1' }).boundingBox();
   expect(signKey!.height).toBeGreaterThanOrEqual(44);
   await ends.getByRole('button', { name: 'Sign set 1' }).click();
-  await expect(desk.getByTestId('end-signature-1')).toContainText('✓ signed by the judge', { timeout: 30_000 });
+  await expect(desk.getByTestId('end-signature-1')).toContainText('✓ signed by the judge', {
+    timeout: 30_000,
+  });
   await expect(ends.getByRole('button', { name: 'Sign set 1' })).toHaveCount(0);
   await expect(ends.getByRole('button', { name: 'Sign set 2' })).toBeVisible();
   await checkA11y(desk, 'judge: set 1 signed');

@@ -21,6 +21,7 @@ import { WritersDiffer } from './WritersDiffer';
 import { ArrowCountdown } from '../../ui/match/ArrowCountdown';
 import { addInOrder, alternateOrder, asksWhoShootsFirst, undoInOrder } from '../../ui/match/alternateEntry';
 import { NextArrow, WhoShootsFirst } from '../../ui/match/ShootingOrder';
+import { endTitle } from '../../ui/match/endWord';
 import { chosenFirstShooter } from '../../local/firstShooter';
 import { matchCard, matchRowsOf, type MatchCardView } from '../../local/matchCard';
 import {
@@ -71,12 +72,12 @@ function EndEntry({
   const chooseFirst = (s: Side) => save({ kind: 'match.firstShooter', args: { ...target, side: s } });
   if (asksWhoShootsFirst(match, first?.side ?? null, card.ends.length === 0 ? draft : null))
     return (
-      <Panel id="end-entry" title={`End ${draft.endIndex + 1}`}>
+      <Panel id="end-entry" title={endTitle(format, draft.endIndex)}>
         <WhoShootsFirst match={match} onChoose={chooseFirst} />
       </Panel>
     );
   return (
-    <Panel id="end-entry" title={`End ${draft.endIndex + 1}`}>
+    <Panel id="end-entry" title={endTitle(format, draft.endIndex)}>
       <DraftLines match={match} draft={draft} per={ARROWS} />
       {order ? (
         <NextArrow match={match} order={order} draft={draft} first={first} onChoose={chooseFirst} />

@@ -1,7 +1,8 @@
 import { useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { useLiveQuery } from 'dexie-react-hooks';
-import { ARROW_VALUES, type ArrowValue } from '../../core';
+import { ARROW_VALUES, type ArrowValue, type MatchFormat } from '../../core';
+import { endTitle, endWord } from '../../ui/match/endWord';
 import type { MatchDto } from '../../contract/matches';
 import { RequireSignIn } from '../../account/RequireSignIn';
 import { localDb, matchPadKeyOf, type JoinedMatch } from '../../local/db';
@@ -40,15 +41,15 @@ const STATUS_WORDS: Record<WriterEndStatus, string> = {
   stopped: 'Agreed: it counts once the ends before it count',
 };
 
-function YourEnds({ match, view }: { match: MatchDto; view: MatchPadView }) {
+function YourEnds({ match, view, format }: { match: MatchDto; view: MatchPadView; format: MatchFormat }) {
   const written = view.ends.flatMap((e, i) => (e && i !== view.current ? [{ e, i }] : []));
   if (written.length === 0) return null;
   return (
-    <Panel id="your-ends" title="Your ends" testId="writer-ends">
+    <Panel id="your-ends" title={`Your ${endWord(format)}s`} testId="writer-ends">
       <ul className="space-y-2">
         {written.map(({ e, i }) => (
           <li key={i} data-testid={`writer-end-${i + 1}`} className="border-b border-line pb-1">
-            <span className="font-bold">End {i + 1}:</span> {nameOf(match, 'a')} {e.a.join(' ')} ·{' '}
+            <span className="font-bold">{endTitle(format, i)}:</span> {nameOf(match, 'a')} {e.a.join(' ')} ·{' '}
             {nameOf(match, 'b')} {e.b.join(' ')}
             <span className="block font-bold">
               {STATUS_WORDS[e.status]}
@@ -158,7 +159,7 @@ function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
       <Scoreline match={match} card={card} format={format} />
       <EndsTable match={match} card={card} format={format} />
       {current && (
-        <Panel id="end-entry" title={`End ${current.endIndex + 1}`} testId="writer-entry">
+        <Panel id="end-entry" title={endTitle(format, current.endIndex)} testId="writer-entry">
           <DraftLines match={match} draft={current} per={ARROWS} />
           {asksWhoShootsFirst(match, first?.side ?? null, current) ? (
             <WhoShootsFirst match={match} onChoose={chooseFirst} />
@@ -195,7 +196,7 @@ function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
           )}
         </Panel>
       )}
-      <YourEnds match={match} view={view} />
+      <YourEnds match={match} view={view} format={format} />
       {(match.state?.next === 'shoot-off' || match.state?.next === 'judge') && (
         <Notice tone="info">Shoot-off: one arrow each. The judge records it on the match card.</Notice>
       )}

@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import { arrowPoints, type ArrowValue, type MatchFormat, type Side } from '../../core';
+import { endWord } from './endWord';
 import type { MatchDto } from '../../contract/matches';
 import type { MatchCardView } from '../../local/matchCard';
 
@@ -109,7 +110,7 @@ export function EndsTable({
   /** The judge signs one end (a set in the set system) not signed yet. */
   onSign?: ((endIndex: number) => void) | undefined;
 }) {
-  const word = format === 'sets' ? 'set' : 'end';
+  const word = endWord(format);
   if (card.ends.length === 0) return <p>No end recorded yet.</p>;
   return (
     <table className="w-full border-collapse text-left" data-testid="match-ends">
@@ -162,7 +163,7 @@ export function EndsTable({
                     type="button"
                     className="mt-1 block min-h-11 min-w-11 rounded-lg border-2 border-ink px-2 font-bold"
                     onClick={() => onCorrect(i)}
-                    aria-label={`Correct end ${i + 1}`}
+                    aria-label={`Correct ${word} ${i + 1}`}
                   >
                     Correct
                   </button>
