@@ -32,10 +32,14 @@ async function send(path: string, init: RequestInit, token: string | undefined):
   }
 }
 
-/** Sends with the access token; on a 401 refreshes the sign-in once and tries again. */
+/**
+ * Sends with the access token; on a 401 refreshes the sign-in once and tries again. Sent with no
+ * token, the refresh has just answered already: a phone never signed in asks once, not twice.
+ */
 async function authorizedFetch(path: string, init: RequestInit): Promise<Response> {
-  let response = await send(path, init, await accessToken());
-  if (response.status === 401) {
+  const token = await accessToken();
+  let response = await send(path, init, token);
+  if (response.status === 401 && token) {
     forgetAccessToken();
     const session = await refreshSession();
     if (session) response = await send(path, init, session.accessToken);
