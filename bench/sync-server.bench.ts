@@ -181,8 +181,14 @@ async function pullAfterDays(days: number) {
   }
 }
 
-/** `SYNC_BENCH_PARTS=a,c` runs only those parts (each takes a minute or more on a busy machine). */
+/**
+ * `SYNC_BENCH_PARTS=a,c` runs only those parts (each takes a minute or more on a busy machine);
+ * `SYNC_BENCH_TRIPS=one` only this version's phones in (a).
+ */
 const parts = (process.env.SYNC_BENCH_PARTS ?? 'a,b,c').split(',');
+const tripsToRun = (['one', 'two'] as const).filter((t) =>
+  (process.env.SYNC_BENCH_TRIPS ?? 'one,two').includes(t),
+);
 const ms = (n: number) => `${n.toFixed(1)} ms`;
 const day = TARGETS * 4 * ENDS * 2;
 
@@ -201,7 +207,7 @@ try {
         `its CPU ${(bare.serverCpuMs / 1000).toFixed(2)} s (${((bare.serverCpuMs * 1000) / bare.pushes).toFixed(0)} µs per push)`,
     );
   }
-  for (const trips of parts.includes('a') ? (['one', 'two'] as const) : []) {
+  for (const trips of parts.includes('a') ? tripsToRun : []) {
     const run = await enterTheDay(trips);
     const rate = run.taps / run.seconds;
     console.log(

@@ -1,3 +1,4 @@
+import type { IncomingMessage, ServerResponse } from 'node:http';
 import express, { type Express } from 'express';
 import cookieParser from 'cookie-parser';
 import morgan from 'morgan';
@@ -25,7 +26,7 @@ import { staffRoutes } from './routes/staff';
 import { sessionTargetRoutes } from './routes/sessionTargets';
 import { printoutRoutes } from './routes/printouts';
 import { syncRoutes } from './routes/sync';
-import { syncLane } from './routes/syncLane';
+import { syncLane, type Lane } from './routes/syncLane';
 import { joinRoutes } from './routes/join';
 import { targetRoutes } from './routes/targets';
 import { wellKnownRoutes } from './routes/wellKnown';
@@ -73,16 +74,11 @@ export function createApp(deps: AppDeps): Express {
     linkAddress: deps.linkAddress,
     bcryptCost: deps.bcryptCost ?? BCRYPT_COST,
     requireUser: requireUser(deps.db, deps.secret),
-    requireFieldUser: requireUser(deps.db, deps.secret, { remember: true }),
   };
 
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', deps.trustProxy ?? false);
-  // The field lane first, before the app-wide middleware: nearly every request on a tournament
-  // day is a phone's push or pull, and each of its routes runs only what it needs (syncLane.ts).
-  // It is left out of the request log too: a line per phone every few seconds would bury the rest.
-  app.use('/api', syncLane(ctx));
   app.use(securityHeaders);
   app.use(compressAnswers);
   if (deps.logRequests) app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));
@@ -126,5 +122,23 @@ export function createApp(deps: AppDeps): Express {
 
   app.use(routeNotFound);
   app.use(errorHandler);
+  return withFieldLane(app, syncLane(ctx));
+}
+
+type Handle = (req: IncomingMessage, res: ServerResponse, next?: (err?: unknown) => void) => void;
+
+/**
+ * The field lane answers before Express: nearly every request on a tournament day is a phone's
+ * push or pull, and Express's routing, request set-up and body parser cost more than the lane's
+ * own work (syncLane.ts). It is left out of the request log too: a line per phone every few
+ * seconds would bury the rest. Express calls its `handle` for every request, whether the app is
+ * given to `http.createServer`, `app.listen` or a test's supertest, so the lane goes there.
+ */
+function withFieldLane(app: Express, lane: Lane): Express {
+  const express = app as Express & { handle: Handle };
+  const handle = express.handle.bind(app);
+  express.handle = (req, res, next) => {
+    if (!lane(req, res)) handle(req, res, next);
+  };
   return app;
 }

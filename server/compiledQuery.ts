@@ -1,12 +1,13 @@
 import type { Knex } from 'knex';
 import type { Db } from './db';
+import { runStatement } from './statementSeam';
 
 /** Values no real query here uses, so the compiled bindings show which value goes where. */
 const MARK = 1_000_000_007;
 
 /**
  * A query whose values are all numbers, built with Knex's builder once per dialect and then run
- * with new values through `raw`: building and compiling a query costs more than SQLite takes to
+ * with new values (statementSeam.ts): building and compiling a query costs more than SQLite takes to
  * answer a small indexed read, and the hottest reads (a pull's pages) run once per push.
  * `build` gets stand-in values and must use each of them as a binding (never inlined).
  */
@@ -27,11 +28,10 @@ export function compiledQuery<Row>(
       query = { sql, order };
       compiled.set(dialect, query);
     }
-    const result = (await db.raw(
+    return runStatement<Row>(
+      db,
       query.sql,
       query.order.map((i) => values[i]!),
-    )) as Row[] | { rows: Row[] };
-    // SQLite's driver answers a raw select with its rows, PostgreSQL's with a result holding them.
-    return Array.isArray(result) ? result : result.rows;
+    );
   };
 }

@@ -18,6 +18,4 @@ export type AppContext = {
   /** The server's key pair for signatures on ends and cards (public half at /.well-known/jwks.json). */
   signingKeys: SigningKeys;
   requireUser: RequestHandler;
-  /** requireUser for the sync push and pull: the person is remembered with the token (only their id is used). */
-  requireFieldUser: RequestHandler;
 };

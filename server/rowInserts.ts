@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type { Db } from './db';
+import { runStatement } from './statementSeam';
 
 /** The most rows one statement takes (a power of two; 128 rows of a dozen columns stay far under SQLite's 32,766 bindings). */
 const MAX_ROWS = 128;
@@ -7,7 +8,7 @@ const MAX_ROWS = 128;
 /** `on conflict (conflict) do update` of the `merge` columns (every inserted column when left out). */
 export type Upsert = { conflict: string[]; merge?: string[] };
 
-type Template = { head: string; tuple: string; tail: string; columns: string[] };
+type Template = { head: string; tuple: string; tail: string; columns: string[]; sqlOf: Map<number, string> };
 const templates = new Map<string, Template>();
 
 /**
@@ -35,6 +36,7 @@ function templateOf(db: Db, table: string, columns: string[], upsert: Upsert | u
       tuple: values[1]!,
       tail: sql.slice(values.index + values[0].length),
       columns: (bindings as number[]).slice(0, columns.length).map((i) => columns[i]!),
+      sqlOf: new Map(),
     };
     templates.set(key, template);
   }
@@ -46,7 +48,8 @@ function templateOf(db: Db, table: string, columns: string[], upsert: Upsert | u
  * a few fixed sizes, powers of two up to MAX_ROWS, so each statement is prepared once and then
  * reused (server/statementCache.ts). Knex's builder writes a multi-row insert for SQLite as a
  * compound `select … union all select …`, which costs more to prepare than to run, and every new
- * number of rows is a new statement to prepare. A column a row lacks is null, as with Knex.
+ * number of rows is a new statement to prepare. A column a row lacks is null, as with Knex. Run
+ * through statementSeam.ts.
  */
 export async function insertRows(
   db: Db,
@@ -57,15 +60,21 @@ export async function insertRows(
   if (rows.length === 0) return;
   const columns = [...new Set(rows.flatMap((row) => Object.keys(row)))].sort();
   const template = templateOf(db, table, columns, upsert);
+  const { columns: order, sqlOf } = template;
   for (let at = 0; at < rows.length;) {
     let size = MAX_ROWS;
     while (size > rows.length - at) size /= 2;
-    const part = rows.slice(at, at + size);
-    const sql = template.head + Array(size).fill(template.tuple).join(', ') + template.tail;
-    await db.raw(
-      sql,
-      part.flatMap((row) => template.columns.map((c) => (row as Record<string, Knex.Value>)[c] ?? null)),
-    );
+    let sql = sqlOf.get(size);
+    if (sql === undefined) {
+      sql = template.head + Array(size).fill(template.tuple).join(', ') + template.tail;
+      sqlOf.set(size, sql);
+    }
+    const values: Knex.Value[] = [];
+    for (let r = at; r < at + size; r += 1) {
+      const row = rows[r] as Record<string, Knex.Value>;
+      for (const column of order) values.push(row[column] ?? null);
+    }
+    await runStatement(db, sql, values);
     at += size;
   }
 }

@@ -30,39 +30,47 @@ export const routeNotFound: RequestHandler = (req, _res, next) => {
   next(notFound(`Nothing is at ${req.method} ${req.originalUrl.split('?')[0]}.`));
 };
 
-/** Turns every failure into `{error: {code, message}}` with a fitting status; hides internals on 5xx. */
-export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next) => {
-  let httpError: HttpError;
-  if (err instanceof HttpError) httpError = err;
-  else if (err instanceof Error && fromBodyParser(err as BodyParserError))
-    httpError = fromBodyParser(err as BodyParserError)!;
-  else if (err instanceof URIError)
-    // The router could not decode a %-escape in the address (`/api/photos/%zz`).
-    httpError = new HttpError(400, 'bad_address', 'The address has a broken %-escape. Check the link.');
-  else if (err instanceof Error && isClientStatus((err as BodyParserError).status)) {
+/**
+ * What a failure is answered with: its own status when it is the request's fault, else a 500
+ * whose details are only logged (`where`: the request's method and address).
+ */
+export function httpErrorOf(err: unknown, where: string): HttpError {
+  if (err instanceof HttpError) return err;
+  const parserError = err instanceof Error ? fromBodyParser(err as BodyParserError) : undefined;
+  if (parserError) return parserError;
+  // The router could not decode a %-escape in the address (`/api/photos/%zz`).
+  if (err instanceof URIError)
+    return new HttpError(400, 'bad_address', 'The address has a broken %-escape. Check the link.');
+  if (err instanceof Error && isClientStatus((err as BodyParserError).status)) {
     const status = (err as BodyParserError).status!;
     const message = (err as BodyParserError).expose ? err.message : 'The request could not be read.';
-    httpError = new HttpError(status, 'bad_request', message);
-  } else {
-    console.error(`Unexpected error on ${req.method} ${req.originalUrl}:`, err);
-    httpError = new HttpError(
-      500,
-      'internal',
-      'Something went wrong on the server. Try again; if it keeps happening, tell the organizer.',
-    );
+    return new HttpError(status, 'bad_request', message);
   }
+  console.error(`Unexpected error on ${where}:`, err);
+  return new HttpError(
+    500,
+    'internal',
+    'Something went wrong on the server. Try again; if it keeps happening, tell the organizer.',
+  );
+}
+
+/** The body of every failure: `{error: {code, message}}`, with the fields a 400 names. */
+export const errorBody = (httpError: HttpError): ApiErrorBody => ({
+  error: {
+    code: httpError.code,
+    message: httpError.message,
+    ...(httpError.fields ? { fields: httpError.fields } : {}),
+  },
+});
+
+/** Turns every failure into `{error: {code, message}}` with a fitting status; hides internals on 5xx. */
+export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next) => {
+  const httpError = httpErrorOf(err, `${req.method} ${req.originalUrl}`);
   // A failure in the middle of a streamed answer (a printout): the status is long sent, so the
   // connection is cut and the reader sees an incomplete file rather than a second answer.
   if (res.headersSent) {
     res.destroy();
     return;
   }
-  const body: ApiErrorBody = {
-    error: {
-      code: httpError.code,
-      message: httpError.message,
-      ...(httpError.fields ? { fields: httpError.fields } : {}),
-    },
-  };
-  res.status(httpError.status).json(body);
+  res.status(httpError.status).json(errorBody(httpError));
 };

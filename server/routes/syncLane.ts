@@ -1,72 +1,78 @@
-import express, { Router, type RequestHandler } from 'express';
-import {
-  PUSH_MAX_CHANGES,
-  pullQuerySchema,
-  pushRequestSchema,
-  type ReceivedPush,
-} from '../../src/contract/sync';
+import type { IncomingMessage, ServerResponse } from 'node:http';
+import { parse as parseQuery } from 'node:querystring';
+import { PUSH_MAX_CHANGES, pullQuerySchema, pushRequestSchema } from '../../src/contract/sync';
 import type { AppContext } from '../context';
+import { personOfHeader } from '../auth/requireUser';
 import { HttpError, badRequest } from '../http/httpError';
-import { checkBodyShape } from '../http/bodyShape';
-import { leanHeaders, sendJson } from '../http/leanJson';
-import { compressLargeAnswers } from '../http/compressAnswers';
-import { describeIssues, validateBody } from '../http/validate';
+import { bodyShapeProblem } from '../http/bodyShape';
+import { errorBody, httpErrorOf } from '../http/errorHandler';
+import { readJsonBody } from '../http/jsonBody';
+import { sendLeanJson } from '../http/leanJson';
+import { checkedBody } from '../http/validate';
 import { pullChanges } from '../services/sync/pullChanges';
 import { pushAndPull } from '../services/sync/pushAndPull';
 import { mailFinalCards } from '../services/judging/finalCard';
 
-/** More changes than one push takes: 413, which tells the phone to send its batch in halves. */
-const refuseLargeBatch: RequestHandler = (req, _res, next) => {
-  const changes = (req.body as { mutations?: unknown } | undefined)?.mutations;
-  next(
-    Array.isArray(changes) && changes.length > PUSH_MAX_CHANGES
-      ? new HttpError(413, 'too_large', `Send at most ${PUSH_MAX_CHANGES} changes at once.`)
-      : undefined,
-  );
-};
+/** The API's body limit (server/app.ts). */
+const BODY_LIMIT = 256 * 1024;
+
+/** Answers the request when it is the lane's (true), or leaves it to Express (false). */
+export type Lane = (req: IncomingMessage, res: ServerResponse) => boolean;
 
 /**
  * The field lane: the push and the pull, nearly every request of a tournament day (each phone
- * every few seconds). Mounted before the app-wide middleware, each route runs only what it needs:
- * the JSON answer's headers (leanJson.ts), the JSON body parser with the API's limit and shape
- * check, the person remembered with their token, the contract's schema. No cookie parser (a
- * phone signs in with its token), and answers are compressed only when large. A failure goes to
- * the app's error handler like any other (`{error: {code, message}}`).
+ * every few seconds), answered on Node's own request before Express (server/app.ts), running
+ * only what they need, in the order the app's middleware would: the JSON body with the API's
+ * limit and shape check, the person remembered with their token, the contract's schema; the
+ * JSON answer's headers (leanJson.ts), compressed only when large. No cookie parser (a phone
+ * signs in with its token), no request log. Every failure is answered like the app's error
+ * handler answers it (`{error: {code, message}}`, a 500 logged).
  */
-export function syncLane(ctx: AppContext): Router {
-  const router = Router();
+export function syncLane(ctx: AppContext): Lane {
   const { db } = ctx;
+  // Push and pull use only the person's id: kept with the token (personOfHeader's `remember`).
+  const personOf = personOfHeader(db, ctx.secret, { remember: true });
 
-  router.post(
-    '/sync/push',
-    leanHeaders,
-    compressLargeAnswers,
-    express.json({ limit: '256kb' }),
-    checkBodyShape,
-    ctx.requireFieldUser,
-    refuseLargeBatch,
-    validateBody(pushRequestSchema),
-    async (req, res) => {
-      const answer = await pushAndPull(db, req.user!.id, req.body as ReceivedPush, {
-        signingKeys: ctx.signingKeys,
-        // Mailed after the push is committed, without holding up its answer.
-        onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, ctx.linkAddress.url),
-      });
-      sendJson(res, answer);
-    },
-  );
+  const push = async (req: IncomingMessage) => {
+    const body = await readJsonBody(req, BODY_LIMIT);
+    const problem = bodyShapeProblem(body);
+    if (problem) throw badRequest(`The request was not accepted. ${problem}`);
+    const person = await personOf(req.headers.authorization);
+    // More changes than one push takes: 413, which tells the phone to send its batch in halves.
+    const changes = (body as { mutations?: unknown } | undefined)?.mutations;
+    if (Array.isArray(changes) && changes.length > PUSH_MAX_CHANGES)
+      throw new HttpError(413, 'too_large', `Send at most ${PUSH_MAX_CHANGES} changes at once.`);
+    return pushAndPull(db, person.id, checkedBody(pushRequestSchema, body), {
+      signingKeys: ctx.signingKeys,
+      // Mailed after the push is committed, without holding up its answer.
+      onFinalCards: (cards) => void mailFinalCards(db, ctx.mailer, cards, ctx.linkAddress.url),
+    });
+  };
 
-  router.get('/sync/pull', leanHeaders, compressLargeAnswers, ctx.requireFieldUser, async (req, res) => {
-    const query = pullQuerySchema.safeParse(req.query);
-    if (!query.success) {
-      const fields = describeIssues(query.error.issues);
-      throw badRequest(
-        `The request was not accepted. ${fields.map((f) => `${f.path}: ${f.message}`).join('; ')}`,
-        fields,
-      );
-    }
-    sendJson(res, await pullChanges(db, req.user!.id, query.data));
-  });
+  const pull = async (req: IncomingMessage, search: string) => {
+    const person = await personOf(req.headers.authorization);
+    // Express's own ("simple") query parser, so the contract reads the same values.
+    return pullChanges(db, person.id, checkedBody(pullQuerySchema, parseQuery(search)));
+  };
 
-  return router;
+  return (req, res) => {
+    const url = req.url ?? '';
+    const mark = url.indexOf('?');
+    const path = mark < 0 ? url : url.slice(0, mark);
+    const answer =
+      req.method === 'POST' && path === '/api/sync/push'
+        ? push(req)
+        : req.method === 'GET' && path === '/api/sync/pull'
+          ? pull(req, mark < 0 ? '' : url.slice(mark + 1))
+          : undefined;
+    if (!answer) return false;
+    answer.then(
+      (value) => sendLeanJson(req, res, value),
+      (error: unknown) => {
+        const httpError = httpErrorOf(error, `${req.method} ${url}`);
+        sendLeanJson(req, res, errorBody(httpError), httpError.status);
+      },
+    );
+    return true;
+  };
 }

@@ -1,6 +1,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import type { Database } from 'better-sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openDb, type Db } from '../../server/db';
 import { insertRows } from '../../server/rowInserts';
@@ -24,12 +25,21 @@ afterAll(async () => {
   rmSync(dir, { recursive: true, force: true });
 });
 
+/** The SQL each statement run during `work` was prepared from (they go straight to the driver: statementSeam.ts). */
 const statements = async (work: () => Promise<void>) => {
   const seen: string[] = [];
-  const listen = (q: { sql: string }) => seen.push(q.sql);
-  db.on('query', listen);
-  await work();
-  db.off('query', listen);
+  const conn = (await db.client.acquireConnection()) as Database;
+  await db.client.releaseConnection(conn);
+  const prepare = conn.prepare;
+  conn.prepare = ((sql: string) => {
+    seen.push(sql);
+    return prepare.call(conn, sql);
+  }) as Database['prepare'];
+  try {
+    await work();
+  } finally {
+    conn.prepare = prepare;
+  }
   return seen;
 };
 

@@ -1,5 +1,8 @@
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { gzipSync } from 'node:zlib';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import type { ArrowValue } from '../../src/core';
 import type { Mutation, PushResponse } from '../../src/contract/sync';
 import { COMPRESS_FROM_BYTES } from '../../server/http/compressAnswers';
@@ -9,8 +12,7 @@ import { setUpMixedField, type Field } from './support/fieldSetup';
 import { Phone } from './support/phone';
 
 /*
- * The field lane (server/routes/syncLane.ts): the push and the pull run before the app-wide
- * middleware, with the JSON answer's own headers, compression only for large answers, the
+ * The field lane (server/routes/syncLane.ts): the push and the pull are answered before Express, with the JSON answer's own headers, compression only for large answers, the
  * person remembered with their token — and still every refusal a role or a group asks for.
  */
 
@@ -136,5 +138,132 @@ describe('the field lane', () => {
     const refused = (await push(leaver, phone, [change(1)])).body as PushResponse;
     expect(refused.results[0]).toMatchObject({ status: 'rejected' });
     expect(refused.pull!.changes).toEqual([]);
+  });
+});
+
+/** Sends a push as raw bytes in pieces (chunked, no Content-Length) to the app on a real port. */
+async function streamPush(
+  person: TestPerson,
+  pieces: string[],
+  headers: Record<string, string> = {},
+): Promise<{ status: number; body: { error?: { code: string; message: string } } & Partial<PushResponse> }> {
+  const listener = http.createServer(server.app).listen(0, '127.0.0.1');
+  await new Promise((resolve) => listener.once('listening', resolve));
+  try {
+    return await new Promise((resolve, reject) => {
+      const req = http.request(
+        {
+          port: (listener.address() as AddressInfo).port,
+          host: '127.0.0.1',
+          method: 'POST',
+          path: '/api/sync/push',
+          headers: { 'Content-Type': 'application/json', ...person.auth, ...headers },
+        },
+        (res) => {
+          let text = '';
+          res.setEncoding('utf8');
+          res.on('data', (chunk: string) => (text += chunk));
+          res.on('end', () => resolve({ status: res.statusCode!, body: JSON.parse(text) }));
+        },
+      );
+      // The server may answer (413) and close before every piece is written.
+      req.on('error', reject);
+      for (const piece of pieces) req.write(piece);
+      req.end();
+    });
+  } finally {
+    listener.closeAllConnections();
+    await new Promise((resolve) => listener.close(resolve));
+  }
+}
+
+/** A push of these bytes with these headers, by the writer. */
+const rawPush = (headers: Record<string, string>, body: string | Buffer) =>
+  request(server.app).post('/api/sync/push').set(writer.auth).set(headers).send(body);
+
+describe('the field lane reads the body itself', () => {
+  it('takes a body that arrives in pieces', async () => {
+    const phone = new Phone(server.app, writer);
+    const text = JSON.stringify({ clientId: phone.clientId, mutations: [write(phone, 2, ['10'])] });
+    const res = await streamPush(writer, [text.slice(0, 10), text.slice(10, 50), text.slice(50)]);
+    expect(res.status).toBe(200);
+    expect(res.body.results![0]!.status).toBe('applied');
+  });
+
+  it('refuses with 413 a body that grows past 256 KB without saying its length, storing nothing', async () => {
+    const phone = new Phone(server.app, writer);
+    const before = await server.db('mutations').count({ n: '*' }).first();
+    const change = write(phone, 3, ['9']);
+    const head = `{"clientId":"${phone.clientId}","mutations":[${JSON.stringify(change)}],"pad":"`;
+    const res = await streamPush(writer, [head, 'x'.repeat(200 * 1024), 'x'.repeat(100 * 1024), '"}']);
+    expect(res.status).toBe(413);
+    expect(res.body.error).toEqual({
+      code: 'too_large',
+      message: 'The request is too large. Send fewer items at once.',
+    });
+    expect(await server.db('mutations').count({ n: '*' }).first()).toEqual(before);
+  });
+
+  it('refuses a compressed body or another charset with a readable 415', async () => {
+    const phone = new Phone(server.app, writer);
+    const body = JSON.stringify({ clientId: phone.clientId, mutations: [write(phone, 4, ['9'])] });
+    const zipped = await rawPush(
+      { 'Content-Type': 'application/json', 'Content-Encoding': 'gzip' },
+      gzipSync(body),
+    );
+    expect(zipped.status).toBe(415);
+    expect(zipped.body.error.message).toBe('The request uses an encoding the server does not read.');
+    const latin = await rawPush({ 'Content-Type': 'application/json; charset=iso-8859-1' }, body);
+    expect(latin.status).toBe(415);
+  });
+
+  it('reads a body of another type as no body: a 400 that names what is missing', async () => {
+    const res = await rawPush(
+      { 'Content-Type': 'text/plain' },
+      '{"clientId":"phone-text-plain","mutations":[]}',
+    );
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/^The request was not accepted\. clientId: /);
+  });
+
+  it('refuses a JSON value that is not an object as not JSON, like the API’s parser', async () => {
+    const res = await rawPush({ 'Content-Type': 'application/json' }, '"a string"');
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('bad_json');
+  });
+
+  it('answers the pull’s bad query with the contract’s words', async () => {
+    const res = await request(server.app).get('/api/sync/pull?cursor=-1').set(writer.auth);
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(
+      /^The request was not accepted\. cursor: cursor must be a whole number/,
+    );
+  });
+
+  it('leaves every other request to Express: another method on the push’s address is a 404', async () => {
+    const res = await request(server.app).get('/api/sync/push').set(writer.auth);
+    expect(res.status).toBe(404);
+    expect(res.body.error.code).toBe('not_found');
+    const key = await request(server.app).post('/api/sync/device-key').set(writer.auth).send({});
+    expect(key.status).toBe(400);
+  });
+
+  it('answers a server failure with a 500 in words, logged, and not a word of the cause', async () => {
+    const logged = vi.spyOn(console, 'error').mockImplementation(() => undefined);
+    try {
+      const phone = new Phone(server.app, writer);
+      await server.db.schema.renameTable('sync_clients', 'sync_clients_away');
+      const res = await push(writer, phone, [write(phone, 5, ['8'])]);
+      expect(res.status).toBe(500);
+      expect(res.body.error.code).toBe('internal');
+      expect(JSON.stringify(res.body)).not.toMatch(/sync_clients/);
+      expect(logged).toHaveBeenCalledWith(
+        expect.stringMatching(/^Unexpected error on POST \/api\/sync\/push/),
+        expect.anything(),
+      );
+    } finally {
+      await server.db.schema.renameTable('sync_clients_away', 'sync_clients');
+      logged.mockRestore();
+    }
   });
 });

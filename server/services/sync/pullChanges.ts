@@ -44,7 +44,9 @@ export async function pullMany(db: Db, asks: readonly PullAsk[]): Promise<PullRe
         'eventId' in part
           ? eventPage(db, [part.eventId, cursor, top, limit + 1])
           : 'userId' in part
-            ? userPage(db, [part.userId, cursor, top, limit + 1])
+            ? part.last > cursor
+              ? userPage(db, [part.userId, cursor, top, limit + 1])
+              : Promise.resolve([])
             : targetPage(db, [part.sessionId, part.targetNumber, cursor, top, limit + 1]);
       pages.set(key, rows);
     }
@@ -72,9 +74,7 @@ export async function pullMany(db: Db, asks: readonly PullAsk[]): Promise<PullRe
 
 /** A part of the log one index reads: an event's changes, or a target group's. */
 type Part = { key: string } & (
-  | { eventId: number }
-  | { userId: number }
-  | { sessionId: number; targetNumber: number }
+  { eventId: number } | { userId: number; last: number } | { sessionId: number; targetNumber: number }
 );
 
 /** One page of a part after a cursor, up to `top`, at most `limit` rows, by the part's index. */
@@ -98,7 +98,7 @@ const targetPage = compiledQuery<ChangeRow>(5, (db, [sessionId, targetNumber, ..
 
 /** What each person may see: the events they judge or organize, and the target groups they are in. */
 async function visibleParts(db: Db, userIds: number[]): Promise<Map<number, Part[]>> {
-  const [events, targets] = await Promise.all([
+  const [events, targets, practice] = await Promise.all([
     db('event_roles')
       .whereIn('user_id', userIds)
       .whereIn('role', ['organizer', 'judge'])
@@ -108,6 +108,12 @@ async function visibleParts(db: Db, userIds: number[]): Promise<Map<number, Part
       .select('user_id', 'session_id', 'target_number') as Promise<
       { user_id: number; session_id: number; target_number: number }[]
     >,
+    // Most people have no practice in the log: their practice page is not read at all.
+    db('changes')
+      .whereIn('user_id', userIds)
+      .groupBy('user_id')
+      .select('user_id')
+      .max({ last: 'version' }) as Promise<{ user_id: number; last: number }[]>,
   ]);
   const parts = new Map<number, Part[]>();
   const add = (userId: number, part: Part) => {
@@ -123,6 +129,6 @@ async function visibleParts(db: Db, userIds: number[]): Promise<Map<number, Part
       targetNumber: t.target_number,
     });
   // The person's own practice (migration 0014): only ever in their own pull.
-  for (const userId of userIds) add(userId, { key: `u${userId}`, userId });
+  for (const p of practice) add(p.user_id, { key: `u${p.user_id}`, userId: p.user_id, last: p.last });
   return parts;
 }
