@@ -4,10 +4,10 @@ import { getFace, type BowStyle } from '../../../core';
 import { practiceProgress, progressChoices, type ProgressSeries } from '../../../core/practice/progress';
 import { usePhoneOwner } from '../../../local/phoneOwner';
 import { BOW_STYLE_LABELS } from '../plan';
-import { ownProgress } from '../practiceStore';
-import { storedTournamentCards, tournamentProgress, useFreshTournamentCards } from '../tournamentCards';
-import { useStored } from '../useStored';
-import { dayLabel, perArrow, weekLabel } from './progressData';
+import { progressSessions } from '../practiceStore';
+import { useOwnSessionParts, useStoredTournamentCards } from '../storedPractice';
+import { tournamentProgress, useFreshTournamentCards } from '../tournamentCards';
+import { CHART_HEIGHT, dayLabel, perArrow, weekLabel } from './progressData';
 import { progressChartLoader } from './loadProgress';
 
 // The chart library comes with the chart, after the screen and its table are on show.
@@ -17,15 +17,18 @@ const ProgressChart = lazy(progressChartLoader);
 export function ProgressScreen() {
   const owner = usePhoneOwner();
   // Practice and the person's own tournament cards (marked as such), all read from the phone.
-  const sessions = useStored(
-    async () => [...(await ownProgress(owner)), ...tournamentProgress(await storedTournamentCards(owner))],
-    `owner:${owner ?? 'none'}`,
+  // The same reads as the log's (shared): drawn from the log's answers at once when opened from it.
+  const own = useOwnSessionParts(owner);
+  const cards = useStoredTournamentCards(owner);
+  const sessions = useMemo(
+    () => own && cards && [...progressSessions(own), ...tournamentProgress(cards)],
+    [own, cards],
   );
   useFreshTournamentCards(owner);
   const [bowStyle, setBowStyle] = useState<BowStyle>();
   const [distanceM, setDistanceM] = useState<number>();
 
-  // Worked out again only when the log or a filter changes (a year is 20,000 arrows).
+  // Worked out again only when the log or a filter changes.
   const choices = useMemo(() => (sessions ? progressChoices(sessions) : undefined), [sessions]);
   const series = useMemo(
     () => (sessions ? practiceProgress(sessions, { bowStyle, distanceM }) : undefined),
@@ -136,7 +139,7 @@ function SeriesView({ series }: { series: ProgressSeries }) {
         Best session: {perArrow(best.averagePerArrow)} an arrow on {dayLabel(best.startedAt)} ({best.arrows}{' '}
         arrows{best.tournament && `, tournament: ${best.tournament}`}), ringed on the chart.
       </p>
-      <Suspense fallback={<div style={{ height: 220 }} />}>
+      <Suspense fallback={<div style={{ height: CHART_HEIGHT }} />}>
         <ProgressChart series={series} />
       </Suspense>
       <details onToggle={(e) => setOpen(e.currentTarget.open)}>
