@@ -19,7 +19,7 @@ import { SafetyNote } from '../../ui/SafetyNote';
 import { BOW_STYLE_LABELS, sessionTitle } from './plan';
 import { useStored } from './useStored';
 import { practiceCsv } from './practiceCsv';
-import { warmProgress } from './progress/loadProgress';
+import { warmProgress, warmProgressView } from './progress/loadProgress';
 import {
   deletePracticeSession,
   ownPractice,
@@ -245,6 +245,7 @@ function PastSessions() {
     () => storedCards?.map((card) => ({ card, tally: practiceTally(card.ends.flatMap((e) => e.values)) })),
     [storedCards],
   );
+  useEffect(() => (own && storedCards ? warmProgressView(own, storedCards) : undefined), [own, storedCards]);
   useFreshTournamentCards(owner);
   const refused = useStored(() => refusedPractice(localDb(), owner), `refused-practice:${owner ?? 'none'}`);
   const history = [
