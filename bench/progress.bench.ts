@@ -1,7 +1,8 @@
 /**
  * The progress screen over a year of practice: 300 sessions, 20,000 arrows written into the
- * page's IndexedDB, then the screen drawn (tap on "Progress over weeks" → every chart drawn) in
- * Chromium at 4× CPU throttling (`Emulation.setCPUThrottlingRate`), Pixel 7 viewport. Prints the
+ * page's IndexedDB, then the screen drawn (tap on "Progress over weeks" → every chart on screen
+ * drawn; those below it are drawn when scrolled near, tests/e2e/progress.spec.ts) in Chromium at
+ * 4× CPU throttling (`Emulation.setCPUThrottlingRate`), Pixel 7 viewport. Prints the
  * script time Chromium counts while drawing (`Performance.getMetrics` ScriptDuration; goal
  * ≤ 100 ms), the first time (1.5 s after the log shows: the progress screen's chunk fetched while
  * the log was idle, its code run for the first time) and again. BENCH_PROFILE=<folder> writes
@@ -142,12 +143,16 @@ try {
       .waitForFunction(
         () => {
           // No DOM types in this file (and the page's CSP forbids a string to evaluate here).
-          const doc = (
-            globalThis as unknown as { document: { querySelectorAll(s: string): { length: number } } }
-          ).document;
-          const all = doc.querySelectorAll('[data-testid="progress-chart"]').length;
-          const drawn = doc.querySelectorAll('[data-testid="progress-chart"][data-drawn]').length;
-          return all > 0 && drawn === all ? all : false;
+          type Chart = { dataset: Record<string, string | undefined>; getBoundingClientRect(): { top: number } };
+          const page = globalThis as unknown as {
+            innerHeight: number;
+            document: { querySelectorAll(s: string): Iterable<Chart> };
+          };
+          // The charts on screen: those below it are drawn when scrolled near (ProgressChart).
+          const shown = [...page.document.querySelectorAll('[data-testid="progress-chart"]')].filter(
+            (c) => c.getBoundingClientRect().top < page.innerHeight,
+          );
+          return shown.length > 0 && shown.every((c) => c.dataset['drawn'] !== undefined) ? shown.length : false;
         },
         undefined,
         { polling: 50, timeout: 120_000 },
@@ -174,10 +179,10 @@ try {
   const warm = scriptMs.slice(1);
   const warmWall = wallMs.slice(1);
   console.log(
-    `progress screen, ${SESSIONS} sessions, ${stored} arrows in IndexedDB, ${charts} charts, CPU ${THROTTLE}× slower, Pixel 7 viewport:`,
+    `progress screen, ${SESSIONS} sessions, ${stored} arrows in IndexedDB, ${charts} chart(s) on screen, CPU ${THROTTLE}× slower, Pixel 7 viewport:`,
   );
   console.log(
-    `  script time drawing it (tap → every chart drawn): first ${scriptMs[0]!.toFixed(0)} ms (the screen's code run for the first time), then p50 ${percentile(warm, 50).toFixed(0)} ms, max ${Math.max(...warm).toFixed(0)} ms over ${warm.length} (goal ≤ 100 ms)`,
+    `  script time drawing it (tap → the charts on screen drawn): first ${scriptMs[0]!.toFixed(0)} ms (the screen's code run for the first time), then p50 ${percentile(warm, 50).toFixed(0)} ms, max ${Math.max(...warm).toFixed(0)} ms over ${warm.length} (goal ≤ 100 ms)`,
   );
   console.log(
     `  wall time: first ${wallMs[0]} ms, then p50 ${percentile(warmWall, 50).toFixed(0)} ms; machine load (1-minute average, ${cpus().length} cores): ${loadavg()[0]!.toFixed(1)}`,

@@ -7,8 +7,9 @@ import {
   addPracticeArrow,
   deletePracticeSession,
   ownPractice,
-  ownProgress,
+  ownSessionParts,
   practiceEnds,
+  progressSessions,
   restorePracticeSession,
   startPracticeSession,
   undoPracticeArrow,
@@ -49,7 +50,7 @@ describe('practice on the phone', () => {
     expect(session?.progress).toEqual([{ distanceM: 18, faceId: 'full-40', arrows: 5, points: 46 }]);
     // A session stored before the parts were kept is worked out from its ends.
     await db.practiceSessions.update(id, { progress: undefined });
-    expect((await ownProgress(undefined, db))[0]?.parts).toEqual([
+    expect(progressSessions(await ownSessionParts(undefined, db))[0]?.parts).toEqual([
       { distanceM: 18, faceId: 'full-40', arrows: 5, points: 46 },
     ]);
     expect(nextEndIndex(session!, await practiceEnds(id, db))).toBe(1);

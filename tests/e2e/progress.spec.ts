@@ -83,3 +83,41 @@ test('a long log draws its 20 newest sessions, the rest on request, each line fr
   await expect(lines).toHaveCount(25);
   await expect(page.getByRole('button', { name: /Show the whole log/ })).toHaveCount(0);
 });
+
+test('charts below the screen are drawn when scrolled near, the one on screen at once', async ({ page }) => {
+  await page.goto('/practice');
+  await expect(page.getByText('No practice yet')).toBeVisible();
+  // Three distances, one session each (30 arrows, 270 points): three series, three charts.
+  await page.evaluate(`new Promise((resolve, reject) => {
+    const open = indexedDB.open('ringcall');
+    open.onsuccess = () => {
+      const tx = open.result.transaction('practiceSessions', 'readwrite');
+      [[18, 'full-40'], [30, 'full-80'], [70, 'full-122']].forEach(([distanceM, faceId], s) =>
+        tx.objectStore('practiceSessions').put({
+          id: 'far-' + s, ownerId: 0, startedAt: new Date(Date.UTC(2026, 0, 5 + s * 7, 17)).toISOString(),
+          bowStyle: 'recurve', venue: 'outdoor', distanceM, faceId, arrowsPerEnd: 6,
+          plannedEnds: 5, shaftDiameterMm: 5.5, finishedAt: '2026-02-01T18:00:00.000Z',
+          progress: [{ distanceM, faceId, arrows: 30, points: 270 }],
+        }));
+      tx.oncomplete = () => { open.result.close(); resolve(); };
+      tx.onerror = () => reject(tx.error);
+    };
+    open.onerror = () => reject(open.error);
+  })`);
+  // Opened at its top (a tap on the log's link keeps the log's scroll).
+  await page.goto('/practice/progress');
+  const charts = page.getByTestId('progress-chart');
+  await expect(charts).toHaveCount(3);
+  await expect(charts.first()).toHaveAttribute('data-drawn', '1');
+  // The last is far below a phone's screen: not drawn yet, its place kept.
+  const last = charts.last();
+  await expect(last).not.toBeInViewport();
+  await expect(last).not.toHaveAttribute('data-drawn');
+  expect((await last.boundingBox())?.height).toBe(220);
+  await expect(page.getByRole('heading', { level: 2, name: /70 m/ })).toBeAttached();
+  await last.scrollIntoViewIfNeeded();
+  await expect(last).toHaveAttribute('data-drawn', '1');
+  await expect(last.locator('canvas')).toHaveCount(1);
+  await checkA11y(page, 'progress, three distances scrolled down');
+  await page.screenshot({ path: '.tmp/screens/progress-scrolled.png' });
+});

@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { BOW_STYLES, ROUND_CATALOG, roundArrowCount } from '../../core';
 import { practiceTally } from '../../core/practice';
@@ -19,17 +19,17 @@ import { SafetyNote } from '../../ui/SafetyNote';
 import { BOW_STYLE_LABELS, sessionTitle } from './plan';
 import { useStored } from './useStored';
 import { practiceCsv } from './practiceCsv';
-import { warmProgress } from './progress/loadProgress';
+import { warmProgress, warmProgressView } from './progress/loadProgress';
 import {
   deletePracticeSession,
   ownPractice,
-  ownSessionParts,
   restorePracticeSession,
   startPracticeSession,
   type DeletedPractice,
   type NewPracticeSession,
 } from './practiceStore';
-import { storedTournamentCards, tournamentTitle, useFreshTournamentCards } from './tournamentCards';
+import { useOwnSessionParts, useStoredTournamentCards } from './storedPractice';
+import { tournamentTitle, useFreshTournamentCards } from './tournamentCards';
 
 const BOW_KEY = 'ringcall.practiceBowStyle';
 const SHAFT_KEY = 'ringcall.practiceShaftMm';
@@ -233,22 +233,21 @@ function PastSessions() {
   const [whole, setWhole] = useState(false);
   const owner = usePhoneOwner();
   // Each session's line from its progress parts: a year of practice is 300 rows, not 20,000 arrows.
-  const sessions = useStored(
-    async () =>
-      (await ownSessionParts(owner)).map(({ session, parts }) => ({ session, tally: partsTally(parts) })),
-    `owner:${owner ?? 'none'}`,
+  // The reads progress shares (its screen opens from them at once).
+  const own = useOwnSessionParts(owner);
+  const sessions = useMemo(
+    () => own?.map(({ session, parts }) => ({ session, tally: partsTally(parts) })),
+    [own],
   );
   // The person's own tournament cards, in the same history: read-only, kept for offline.
-  const cards = useStored(
-    async () =>
-      (await storedTournamentCards(owner)).map((card) => ({
-        card,
-        tally: practiceTally(card.ends.flatMap((e) => e.values)),
-      })),
-    `owner:${owner ?? 'none'}`,
+  const storedCards = useStoredTournamentCards(owner);
+  const cards = useMemo(
+    () => storedCards?.map((card) => ({ card, tally: practiceTally(card.ends.flatMap((e) => e.values)) })),
+    [storedCards],
   );
+  useEffect(() => (own && storedCards ? warmProgressView(own, storedCards) : undefined), [own, storedCards]);
   useFreshTournamentCards(owner);
-  const refused = useStored(() => refusedPractice(localDb(), owner), `owner:${owner ?? 'none'}`);
+  const refused = useStored(() => refusedPractice(localDb(), owner), `refused-practice:${owner ?? 'none'}`);
   const history = [
     ...(sessions ?? []).map((s) => ({ ...s, at: s.session.startedAt, kind: 'practice' as const })),
     ...(cards ?? []).map((c) => ({ ...c, at: c.card.startedAt, kind: 'tournament' as const })),

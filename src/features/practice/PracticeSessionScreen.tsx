@@ -37,7 +37,7 @@ export function PracticeSessionScreen({ sessionId }: { sessionId: string }) {
     // Another person's practice on a shared phone is not theirs to see.
     const session = found?.ownerId === owner ? found : undefined;
     return { session, ends: session ? await practiceEnds(sessionId) : [] };
-  }, `${sessionId}:${owner}`);
+  }, `practice-session:${sessionId}:${owner}`);
   if (!data) return <p>Opening…</p>;
   if (!data.session)
     return (

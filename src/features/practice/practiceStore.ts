@@ -83,15 +83,16 @@ export async function ownSessionParts(
   }));
 }
 
-/** What the progress screen needs of whoever uses the phone now: their sessions' parts. */
-export async function ownProgress(owner: number | undefined, db = localDb()): Promise<ProgressSession[]> {
-  return (await ownSessionParts(owner, db)).map(({ session, parts }) => ({
+/** What the progress screen needs of the sessions ownSessionParts read: their parts. */
+export const progressSessions = (
+  own: readonly { session: PracticeSessionRow; parts: ProgressPart[] }[],
+): ProgressSession[] =>
+  own.map(({ session, parts }) => ({
     id: session.id,
     startedAt: session.startedAt,
     bowStyle: session.bowStyle,
     parts,
   }));
-}
 
 export async function practiceEnds(sessionId: string, db = localDb()): Promise<PracticeEndRow[]> {
   const ends = await db.practiceEnds.where('sessionId').equals(sessionId).toArray();

@@ -2,7 +2,7 @@ import { useEffect, useRef } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import type { ProgressSeries } from '../../../core/practice/progress';
-import { perArrow, weeklyLine } from './progressData';
+import { CHART_HEIGHT, perArrow, weeklyLine } from './progressData';
 
 const shortDay = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
 const dayOf = (seconds: number) => shortDay.format(new Date(seconds * 1000));
@@ -22,7 +22,7 @@ function drawChart(el: HTMLElement, series: ProgressSeries): uPlot {
   return new uPlot(
     {
       width: Math.max(240, el.clientWidth),
-      height: 220,
+      height: CHART_HEIGHT,
       legend: { show: false },
       cursor: { show: false },
       scales: {
@@ -94,19 +94,40 @@ export function warmChart(): void {
   setTimeout(() => plot.destroy(), 0);
 }
 
+/** How near the screen's edge a chart below it is drawn: before the archer scrolls to it. */
+const DRAW_AHEAD = '300px';
+
 /**
  * The weekly average per arrow of one distance and face on a time axis, drawn with uPlot (this file is the only
  * one that imports it, loaded after the progress screen). The best session is a larger ring on
- * its week. Hidden from screen readers: the table beside it holds the same figures.
+ * its week. Hidden from screen readers: the table beside it holds the same figures. Drawn when
+ * it comes near the screen: on a phone the first chart shows, the others wait for a scroll
+ * (each chart's canvases at the phone's pixel ratio were most of the tap's cost).
  */
 export function ProgressChart({ series }: { series: ProgressSeries }) {
   const box = useRef<HTMLDivElement>(null);
   useEffect(() => {
     const el = box.current;
     if (!el) return;
-    const plot = drawChart(el, series);
-    el.dataset['drawn'] = String(series.weeks.length);
-    return () => plot.destroy();
+    let plot: uPlot | undefined;
+    const draw = () => {
+      plot = drawChart(el, series);
+      el.dataset['drawn'] = String(series.weeks.length);
+    };
+    const near = new IntersectionObserver(
+      (entries) => {
+        if (!entries.some((e) => e.isIntersecting)) return;
+        near.disconnect();
+        draw();
+      },
+      { rootMargin: `${DRAW_AHEAD} 0px` },
+    );
+    near.observe(el);
+    return () => {
+      near.disconnect();
+      plot?.destroy();
+      delete el.dataset['drawn'];
+    };
   }, [series]);
   return (
     <div
@@ -114,6 +135,8 @@ export function ProgressChart({ series }: { series: ProgressSeries }) {
       aria-hidden="true"
       data-testid="progress-chart"
       title={`Average per arrow by week; best session ${perArrow(series.best.averagePerArrow)}`}
+      // The chart's height before it is drawn: the page does not jump when it is.
+      style={{ minHeight: CHART_HEIGHT }}
       className="w-full overflow-hidden"
     />
   );

@@ -1,14 +1,17 @@
-import { lazy, Suspense, useMemo, useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { getFace, type BowStyle } from '../../../core';
-import { practiceProgress, progressChoices, type ProgressSeries } from '../../../core/practice/progress';
+import type { ProgressSeries } from '../../../core/practice/progress';
 import { usePhoneOwner } from '../../../local/phoneOwner';
 import { BOW_STYLE_LABELS } from '../plan';
-import { ownProgress } from '../practiceStore';
-import { storedTournamentCards, tournamentProgress, useFreshTournamentCards } from '../tournamentCards';
-import { useStored } from '../useStored';
-import { dayLabel, perArrow, weekLabel } from './progressData';
+import { useOwnSessionParts, useStoredTournamentCards } from '../storedPractice';
+import { useFreshTournamentCards } from '../tournamentCards';
+import { CHART_HEIGHT, dayLabel, perArrow, weekLabel } from './progressData';
 import { progressChartLoader } from './loadProgress';
+import { progressView } from './progressView';
+
+// The log works progress out while idle (warmProgressView): with this chunk, not before.
+export { progressView };
 
 // The chart library comes with the chart, after the screen and its table are on show.
 const ProgressChart = lazy(progressChartLoader);
@@ -16,21 +19,18 @@ const ProgressChart = lazy(progressChartLoader);
 /** Progress over weeks: the average per arrow by week, per distance and face, from this phone's log. */
 export function ProgressScreen() {
   const owner = usePhoneOwner();
-  // Practice and the person's own tournament cards (marked as such), all read from the phone.
-  const sessions = useStored(
-    async () => [...(await ownProgress(owner)), ...tournamentProgress(await storedTournamentCards(owner))],
-    `owner:${owner ?? 'none'}`,
-  );
+  // Practice and the person's own tournament cards (marked as such), all read from the phone:
+  // the log's reads (shared), so opened from the log it draws from its answers at once.
+  const own = useOwnSessionParts(owner);
+  const cards = useStoredTournamentCards(owner);
   useFreshTournamentCards(owner);
   const [bowStyle, setBowStyle] = useState<BowStyle>();
   const [distanceM, setDistanceM] = useState<number>();
-
-  // Worked out again only when the log or a filter changes (a year is 20,000 arrows).
-  const choices = useMemo(() => (sessions ? progressChoices(sessions) : undefined), [sessions]);
-  const series = useMemo(
-    () => (sessions ? practiceProgress(sessions, { bowStyle, distanceM }) : undefined),
-    [sessions, bowStyle, distanceM],
-  );
+  // Worked out once per answer and filter, usually while the log sat idle (progressView).
+  const view = own && cards ? progressView(own, cards, { bowStyle, distanceM }) : undefined;
+  const sessions = view?.sessions;
+  const choices = view?.choices;
+  const series = view?.series;
 
   return (
     <div className="space-y-6">
@@ -136,7 +136,7 @@ function SeriesView({ series }: { series: ProgressSeries }) {
         Best session: {perArrow(best.averagePerArrow)} an arrow on {dayLabel(best.startedAt)} ({best.arrows}{' '}
         arrows{best.tournament && `, tournament: ${best.tournament}`}), ringed on the chart.
       </p>
-      <Suspense fallback={<div style={{ height: 220 }} />}>
+      <Suspense fallback={<div style={{ height: CHART_HEIGHT }} />}>
         <ProgressChart series={series} />
       </Suspense>
       <details onToggle={(e) => setOpen(e.currentTarget.open)}>

@@ -41,6 +41,16 @@ export const progressChartLoader = loadedFirst(
   (m) => m.ProgressChart,
 );
 
+/** Runs `run` when the page is idle (or after 1.5 s without requestIdleCallback); the answer cancels it. */
+function whenIdle(run: () => void): () => void {
+  if (typeof requestIdleCallback === 'function') {
+    const handle = requestIdleCallback(run, { timeout: 4000 });
+    return () => cancelIdleCallback(handle);
+  }
+  const timer = setTimeout(run, 1500);
+  return () => clearTimeout(timer);
+}
+
 /**
  * Fetches and runs the progress screen's and the chart's code while the practice log sits idle
  * (a chart drawn once, unseen: warmChart), so the tap on "Progress over weeks" does not wait for
@@ -48,25 +58,38 @@ export const progressChartLoader = loadedFirst(
  */
 export function warmProgress(): () => void {
   let cancelled = false;
-  const run = () => {
-    if (cancelled) return;
+  const stop = whenIdle(() => {
     void loadProgressScreen()
       .then(() => (cancelled ? undefined : loadProgressChart()))
       .then((chart) => {
         if (!cancelled) chart?.warmChart();
       })
       .catch(() => undefined);
-  };
-  if (typeof requestIdleCallback === 'function') {
-    const handle = requestIdleCallback(run, { timeout: 4000 });
-    return () => {
-      cancelled = true;
-      cancelIdleCallback(handle);
-    };
-  }
-  const timer = setTimeout(run, 1500);
+  });
   return () => {
     cancelled = true;
-    clearTimeout(timer);
+    stop();
+  };
+}
+
+/**
+ * Works out, while the log sits idle, what progress shows of the log's answers (progressView,
+ * kept for the screen): the tap on "Progress over weeks" finds it done. Again for each new answer.
+ */
+export function warmProgressView(
+  own: Parameters<ScreenModule['progressView']>[0],
+  cards: Parameters<ScreenModule['progressView']>[1],
+): () => void {
+  let cancelled = false;
+  const stop = whenIdle(() => {
+    void loadProgressScreen()
+      .then((screen) => {
+        if (!cancelled) screen.progressView(own, cards, {});
+      })
+      .catch(() => undefined);
+  });
+  return () => {
+    cancelled = true;
+    stop();
   };
 }

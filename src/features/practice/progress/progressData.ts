@@ -18,6 +18,9 @@ export const dayLabel = (iso: string): string => localDay.format(new Date(iso));
 
 export const perArrow = (n: number) => n.toFixed(2);
 
+/** A chart's height (CSS pixels), also kept by its place before it is drawn. */
+export const CHART_HEIGHT = 220;
+
 const WEEK_SECONDS = 7 * 24 * 60 * 60;
 const secondsOf = (weekStart: string) => Date.parse(`${weekStart}T00:00:00Z`) / 1000;
 
