@@ -53,7 +53,7 @@ test("a tap draws again only the tapped archer's values and tab: not the keys, t
 }) => {
   const { code } = demoTarget(TARGET);
   const pad = await signedInPhone(browser, demoArchers()[30]!.email);
-  await joinTarget(pad, code, /Writer 1/, TARGET);
+  await joinTarget(pad, code, /Writer 2/, TARGET);
   await pad.getByRole('tab').first().click();
   await pad.getByRole('button', { name: 'Arrow 10', exact: true }).click();
   // Stored, and the pad has read it back: the first tap's own re-reads are over.
