@@ -1,4 +1,5 @@
 import type { Dexie, Table } from 'dexie';
+import { afterNextPaint } from './afterPaint';
 import { announceWrites } from './dexieMutations';
 
 export type QuickWrite = { table: Table; type: 'add' | 'put'; value: object };
@@ -8,7 +9,7 @@ export type QuickWrite = { table: Table; type: 'add' | 'put'; value: object };
  * Dexie's transactions commit only after each result has come back to the page, and on a busy
  * phone that return trip waits behind the frame the tap itself paints. Live queries are then told
  * of the change the way Dexie tells them of its own writes (dexieMutations.ts), so screens and
- * other tabs refresh.
+ * other tabs refresh: after the next paint, so their re-reads never hold up the tap's own frame.
  *
  * A failed write (an `add` whose key exists: ConstraintError) undoes the whole transaction.
  * The database must be opened with Dexie's live-query cache off (`cache: 'disabled'`, see LocalDb):
@@ -45,7 +46,7 @@ export function writeAtOnce(db: Dexie, writes: QuickWrite[]): Promise<void> {
   }
   tx.commit();
   return done.then(() => {
-    // In the next task: the caller learns of the commit first; the screens' refresh follows.
-    setTimeout(() => announceWrites(db, writes), 0);
+    // The caller learns of the commit first; the screens' refresh follows the next frame.
+    afterNextPaint(() => announceWrites(db, writes));
   });
 }

@@ -1,7 +1,8 @@
+import { memo } from 'react';
 import { flagWords, type MarkedArrow } from '../../ui/scorecard/endFlags';
 
 /** The incidents of an end that wait for a judge, in words, on every phone of the target. */
-export function FlagNotes({ flags }: { flags: readonly MarkedArrow[] }) {
+export const FlagNotes = memo(function FlagNotes({ flags }: { flags: readonly MarkedArrow[] }) {
   if (flags.length === 0) return null;
   return (
     <p
@@ -13,4 +14,4 @@ export function FlagNotes({ flags }: { flags: readonly MarkedArrow[] }) {
       judge has seen them.
     </p>
   );
-}
+});

@@ -21,6 +21,17 @@ import { TaskNotice } from './TaskNotice';
 import { usePadData } from './usePadData';
 import { WriterPad } from './WriterPad';
 
+/**
+ * Parts of the pad a tap does not change: the re-read after each tap hands them the same props
+ * (usePadData keeps the target's identity), so they are not drawn again.
+ */
+const SteadySafetyNote = memo(SafetyNote);
+const SteadySyncLine = memo(SyncLine);
+const SteadyRejections = memo(Rejections);
+const SteadyHeldForJudge = memo(HeldForJudge);
+const SteadyTaskNotice = memo(TaskNotice);
+const SteadyLeaveTask = memo(LeaveTask);
+
 /** The most ends any archer of the target shoots (the pad steps through all of them). */
 const endCountOf = (target: JoinedTarget) =>
   Math.max(...target.archers.map((a) => endsOfRound(a.round).length));
@@ -136,10 +147,10 @@ function Pad({
           <span className="text-xl font-normal">· {TASK_LABELS[target.task]}</span>
         </h1>
       </header>
-      <TaskNotice target={target} unsent={unsent} />
-      <SafetyNote compact />
-      <Rejections rows={rejected} target={target} />
-      <HeldForJudge rows={held} target={target} />
+      <SteadyTaskNotice target={target} unsent={unsent} />
+      <SteadySafetyNote compact />
+      <SteadyRejections rows={rejected} target={target} />
+      <SteadyHeldForJudge rows={held} target={target} />
 
       <nav aria-label="Ends" className="flex items-center gap-2">
         <button
@@ -195,8 +206,8 @@ function Pad({
         <CallerView target={target} ends={ends} endIndex={endIndex} />
       )}
       {slot && <CardsToSignLink target={target} slot={slot} ends={ends} />}
-      <SyncLine />
-      <LeaveTask target={target} unsent={unsent} />
+      <SteadySyncLine />
+      <SteadyLeaveTask target={target} unsent={unsent} />
     </div>
   );
 }

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { memo, useMemo, useState } from 'react';
 import {
   cardTotals,
   endsOfRound,
@@ -13,6 +13,7 @@ import type { LocalEnd } from '../../local/endFacts';
 import { messageOf } from '../../api/request';
 import { recordChange } from '../../local/outbox';
 import { syncLoop } from '../../local/syncLoop';
+import { afterNextPaint } from '../../local/afterPaint';
 import { Notice } from '../../ui/Notice';
 import { RulingHistory } from '../../ui/scorecard/RulingHistory';
 import { ArrowKeypad } from '../../ui/scorecard/ArrowKeypad';
@@ -22,6 +23,7 @@ import { FLAG_LABELS, openFlags } from '../../ui/scorecard/endFlags';
 import { endLabel } from '../../ui/scorecard/endStateLabel';
 import { FlagNotes } from './FlagNotes';
 import { padEndView } from './padEndView';
+import { useSteadyCallback } from './useSteadyCallback';
 
 type Props = {
   target: JoinedTarget;
@@ -50,6 +52,15 @@ export function countedValues(
   return view?.arrows && view.decidedBy !== 'writers' ? view.arrows : own;
 }
 
+/**
+ * Drawn again only when their own props change: a tap changes this writer's values, not the keys,
+ * the judge's history or the other card (a tap's frame draws only what the tap changed).
+ */
+const SteadyKeypad = memo(ArrowKeypad);
+const SteadyRulingHistory = memo(RulingHistory);
+
+const sameValues = (a: object, b: object) => JSON.stringify(a) === JSON.stringify(b);
+
 function withoutKey<T>(record: Record<string, T>, key: string): Record<string, T> {
   const { [key]: _dropped, ...rest } = record;
   return rest;
@@ -58,7 +69,8 @@ function withoutKey<T>(record: Record<string, T>, key: string): Record<string, T
 /** The writer's pad for one archer's end: keys, the end so far, totals, and the other card. */
 export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherIndex }: Props) {
   const archer = target.archers[archerIndex]!;
-  const roundEnds = endsOfRound(archer.round);
+  // Kept between taps (the target keeps its identity, see usePadData), so the keys' values do too.
+  const roundEnds = useMemo(() => endsOfRound(archer.round), [archer.round]);
   const endInfo = roundEnds[endIndex];
   const key = endKeyOf(target.session.id, archer.entryId, endIndex);
   const local = ends.get(key);
@@ -72,7 +84,7 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
   // Once the store has caught up, show the store again (so a refused change visibly reverts).
   if (typed[key] && JSON.stringify(typed[key]) === JSON.stringify(stored)) setTyped(withoutKey(typed, key));
   const theirs = local?.slots[other(slot)];
-  const view = local ? padEndView(local) : undefined;
+  const view = useMemo(() => (local ? padEndView(local) : undefined), [local]);
   const [undo, setUndo] = useState<Record<string, EditableEnd[]>>({});
   const [selected, setSelected] = useState<number>();
   const [notice, setNotice] = useState<{ tone: 'info' | 'error'; text: string }>();
@@ -82,9 +94,15 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
     sessionClosed: target.session.closed,
   });
 
-  const rules = endInfo
-    ? rulesForEnd(archer.round, endInfo, archer.bowStyle, { allowPartial: true })
-    : undefined;
+  const rules = useMemo(
+    () => (endInfo ? rulesForEnd(archer.round, endInfo, archer.bowStyle, { allowPartial: true }) : undefined),
+    [archer.round, archer.bowStyle, endInfo],
+  );
+  const flags = useMemo(() => openFlags(local), [local]);
+  const differing = useMemo(
+    () => new Set(view?.check.arrows.filter((a) => !a.same).map((a) => a.index) ?? []),
+    [view],
+  );
 
   /** Stores what this writer's card now says for the end; resolves once it is on the phone. */
   const store = async (value: EditableEnd): Promise<boolean> => {
@@ -123,10 +141,11 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
     performance.measure('ringcall:tap-to-commit', { start: started });
     // The short buzz says the value is stored on the phone, not only that a key was touched.
     navigator.vibrate?.(10);
-    syncLoop().afterChange();
+    // A sync (its request, its writes, the screens' re-reads) never starts inside the tap's frame.
+    afterNextPaint(syncLoop().afterChange);
   };
 
-  const onValues = (values: ArrowValue[]) => {
+  const onValues = useSteadyCallback((values: ArrowValue[]) => {
     if (!rules || lock) return;
     const room = rules.arrowsPerEnd - mine.arrows.length;
     if (room < values.length) {
@@ -148,16 +167,16 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
       );
       if (nextIndex >= 0) onArcherIndex(nextIndex);
     }
-  };
+  });
 
-  const onUndo = () => {
+  const onUndo = useSteadyCallback(() => {
     const stack = undo[key] ?? [];
     const previous = stack[stack.length - 1];
     if (!previous) return;
     setUndo((u) => ({ ...u, [key]: stack.slice(0, -1) }));
     setTyped((t) => ({ ...t, [key]: previous }));
-    void store(previous).then((stored) => stored && syncLoop().afterChange());
-  };
+    void store(previous).then((stored) => stored && afterNextPaint(syncLoop().afterChange));
+  });
 
   // The archer's card as this writer keeps it, with what a judge or the caller decided instead.
   const counted = roundEnds.map((e) => {
@@ -171,7 +190,6 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
 
   if (!endInfo || !rules) return <Notice tone="info">This archer's round has no end {endIndex + 1}.</Notice>;
   const endTotal = totals.ends[endIndex]?.total;
-  const differing = new Set(view?.check.arrows.filter((a) => !a.same).map((a) => a.index) ?? []);
   const label = endLabel(view);
 
   return (
@@ -192,8 +210,8 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
           slots={rules.arrowsPerEnd}
         />
       )}
-      {local && <RulingHistory steps={local.rulings} />}
-      <FlagNotes flags={openFlags(local)} />
+      {local && <SteadyRulingHistory steps={local.rulings} />}
+      <FlagNotes flags={flags} />
       <EndArrows
         label="Your values for this end"
         arrows={mine.arrows}
@@ -249,7 +267,7 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
       {lock ? (
         <Notice tone="info">{LOCK_WORDS[lock]}</Notice>
       ) : (
-        <ArrowKeypad
+        <SteadyKeypad
           allowed={rules.allowed}
           onValues={onValues}
           onUndo={onUndo}
@@ -265,13 +283,17 @@ export function WriterPad({ target, slot, ends, endIndex, archerIndex, onArcherI
         decidedBy={view?.decidedBy}
         agreed={view?.arrows}
         arrowsPerEnd={rules.arrowsPerEnd}
-        differing={differing}
+        differing={[...differing]}
       />
     </section>
   );
 }
 
-function OtherCard({
+/**
+ * The other writer's card: drawn again only when it, or what the two cards say together, changes
+ * (a re-read after a tap builds equal values anew, so they are compared by value).
+ */
+const OtherCard = memo(function OtherCard({
   slot,
   theirs,
   theirFlags,
@@ -288,7 +310,7 @@ function OtherCard({
   state: string | undefined;
   agreed: ArrowValue[] | undefined;
   arrowsPerEnd: number;
-  differing: Set<number>;
+  differing: readonly number[];
 }) {
   return (
     <section
@@ -306,12 +328,12 @@ function OtherCard({
             arrows={theirs}
             flags={theirFlags}
             slots={arrowsPerEnd}
-            differing={state === 'mismatch' ? differing : undefined}
+            differing={state === 'mismatch' ? new Set(differing) : undefined}
           />
           {state === 'agreed' && <p>✓ Both cards agree.</p>}
           {state === 'mismatch' && (
             <p className="font-bold text-brick">
-              ≠ The cards differ at arrow {[...differing].map((i) => i + 1).join(', ')}. The caller settles it
+              ≠ The cards differ at arrow {differing.map((i) => i + 1).join(', ')}. The caller settles it
               before arrows are pulled.
             </p>
           )}
@@ -325,4 +347,4 @@ function OtherCard({
       )}
     </section>
   );
-}
+}, sameValues);

@@ -23,6 +23,16 @@ export function usePadData(
 ): PadData | null | undefined {
   // Each tap reads every end again; the ends it did not change come back as the same objects.
   const [cache] = useState<EndCache>(() => new Map());
+  // What reads the same as last time comes back as the same object, so the parts of the pad
+  // that show only it are not drawn again after a tap (they are memoized on their props).
+  const [same] = useState(() => new Map<string, { json: string; value: unknown }>());
+  const steady = <T,>(name: string, value: T): T => {
+    const json = JSON.stringify(value);
+    const last = same.get(name);
+    if (last?.json === json) return last.value as T;
+    same.set(name, { json, value });
+    return value;
+  };
   return useLiveQuery(() => {
     const db = localDb();
     // One read transaction per refresh: the next tap's write waits for every open one.
@@ -46,7 +56,13 @@ export function usePadData(
         const entryIds = new Set(target.archers.map((a) => a.entryId));
         const onTarget = (rows: OutboxRow[]) =>
           rows.filter((r) => 'entryId' in r.args && entryIds.has(r.args.entryId));
-        return { target, ends, rejected: onTarget(rejected), held: onTarget(held), unsent };
+        return {
+          target: steady('target', target),
+          ends,
+          rejected: steady('rejected', onTarget(rejected)),
+          held: steady('held', onTarget(held)),
+          unsent,
+        };
       },
     );
   }, [sessionId, targetNumber, userId]);
