@@ -57,6 +57,11 @@ describe('the public results pages', () => {
     expect(dexie.map(([name, chain]) => `${name} via ${chain.join(' → ')}`)).toEqual([]);
   });
 
+  it('leave the new-version prompt (and the service worker registration) until after the first paint', () => {
+    const reached = packagesReached(PUBLIC_FIRST_LOAD);
+    expect(reached.get('virtual:pwa-register/react')).toBeUndefined();
+  });
+
   it('are walked far enough to see the packages they do load', () => {
     // A walker that stopped early would pass the check above without looking.
     const reached = packagesReached(PUBLIC_FIRST_LOAD);
