@@ -4,6 +4,7 @@ import tailwindcss from '@tailwindcss/vite';
 import { VitePWA } from 'vite-plugin-pwa';
 import pkg from './package.json' with { type: 'json' };
 import { precompress } from './scripts/precompress';
+import { firstLoadChunkOf } from './scripts/firstLoadChunks';
 
 export default defineConfig({
   define: {
@@ -62,6 +63,11 @@ export default defineConfig({
     modulePreload: { polyfill: false },
     sourcemap: false,
     chunkSizeWarningLimit: 600,
+    rolldownOptions: {
+      // Fewer, larger chunks in the pad's first load (scripts/firstLoadChunks.ts). A group's modules
+      // only: taking their imports too would pull React into it, and the entry would load the group.
+      output: { codeSplitting: { groups: [{ name: firstLoadChunkOf(), includeDependenciesRecursively: false }] } },
+    },
   },
   server: {
     proxy: {

@@ -2,7 +2,8 @@
  * Standings for a large field: card totals for 1,000 archers with 72 random arrows each on the
  * 70 m round, then the ranking with a cut. Prints median times; asserts nothing.
  */
-import { ARROW_VALUES, cardTotals, getRound, rankArchers } from '../src/core';
+import { ARROW_VALUES, cardTotals, getRound } from '../src/core';
+import { rankArchers } from '../src/core/ranking';
 import type { ArrowValue } from '../src/core';
 
 const ARCHERS = 1_000;

@@ -37,6 +37,8 @@ const shell = closure([entryKey]);
 
 /** Loaded by `lazyScreen` together with every screen that reads server data (the query cache). */
 const SERVER_DATA = 'src/app/ServerData.tsx';
+/** The new-version prompt, loaded after the first paint of every page (src/app/Frame.tsx). */
+const UPDATE_PROMPT = 'src/app/pwa/UpdatePrompt.tsx';
 /** The frame with the sync loop; src/app/router.tsx loads it for every route but PUBLIC_SCREENS. */
 const APP_LAYOUT = 'src/app/AppLayout.tsx';
 /** Screens under the light frame, without the app layout (keep in step with src/app/router.tsx). */
@@ -58,7 +60,7 @@ const queryLibrary = [...closure([SERVER_DATA], new Set(shell))].filter(
 export function routeSizes(): { route: string; br: number; gz: number }[] {
   const rows = [{ route: '(app shell)', ...wire(shell) }];
   const screens = (manifest[entryKey!]!.dynamicImports ?? []).filter(
-    (k) => k.startsWith('src/') && k !== SERVER_DATA && k !== APP_LAYOUT,
+    (k) => k.startsWith('src/') && ![SERVER_DATA, APP_LAYOUT, UPDATE_PROMPT].includes(k),
   );
   for (const key of screens) {
     const files = closure([key], new Set(PUBLIC_SCREENS.includes(key) ? shell : layout));

@@ -1,8 +1,11 @@
-import type { ReactNode } from 'react';
+import { Suspense, lazy, type ReactNode } from 'react';
 import { Link, Outlet } from 'react-router-dom';
 import { ThemeToggle } from '../ui/ThemeToggle';
 import { RingMark } from '../ui/RingMark';
-import { UpdatePrompt } from './pwa/UpdatePrompt';
+
+// Nothing to show before a new version has downloaded: its code (and the service worker's
+// registration) comes after the first paint, out of every page's first load.
+const UpdatePrompt = lazy(async () => ({ default: (await import('./pwa/UpdatePrompt')).UpdatePrompt }));
 
 /** Ringcall's page frame: the header with the mark and the theme, the update prompt, the screen. */
 export function Frame({ status }: { status?: ReactNode }) {
@@ -20,7 +23,9 @@ export function Frame({ status }: { status?: ReactNode }) {
           </div>
         </div>
       </header>
-      <UpdatePrompt />
+      <Suspense fallback={null}>
+        <UpdatePrompt />
+      </Suspense>
       <main className="mx-auto w-full max-w-3xl flex-1 px-4 py-5">
         <Outlet />
       </main>

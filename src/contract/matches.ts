@@ -1,19 +1,21 @@
 import { z } from 'zod';
+import type {
+  AlternateFrom,
+  ArrowValue,
+  MatchFormat,
+  MatchNext,
+  Pair,
+  ShootOffOutcome,
+  Side,
+  SideOutlook,
+} from '../core';
 import {
   ALTERNATE_FROM,
   MATCH_ARROWS_PER_END,
   MATCH_MAX_ENDS,
   MAX_BRACKET_ENTRANTS,
   MIN_BRACKET_ENTRANTS,
-  type AlternateFrom,
-  type ArrowValue,
-  type MatchFormat,
-  type MatchNext,
-  type Pair,
-  type ShootOffOutcome,
-  type Side,
-  type SideOutlook,
-} from '../core';
+} from '../core/matches';
 import { arrowValueSchema } from './arrowValueSchema';
 import { emailSchema } from './auth';
 import { joinCodeSchema } from './joinCode';

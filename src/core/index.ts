@@ -49,14 +49,13 @@ export type { WriterLock } from './endLock';
 export { cardTotals } from './card';
 export type { CardEnd, CardTotals, DistanceTally, Tally } from './card';
 
-// Plotting (./plotting) and practice (./practice) are imported from their own files: through this
-// index their code would join the chunk every screen shares, the pad's too, though only the
-// practice screens use them.
+// Plotting (./plotting) and practice (./practice) are imported from their own files, and so are the
+// values of ranking (./ranking) and matches (./matches): through this index their code would join
+// the chunk every screen shares, the pad's too, though only results, the desk and matches use them.
 
 export { crossCheck } from './crossCheck';
 export type { CrossCheck, CrossCheckArrow, CrossCheckStatus } from './crossCheck';
 
-export { rankArchers, rankTeams } from './ranking';
 export type { Placing, RankInput, RankOptions, ShootOffArrow, TeamMemberInput, TeamResult } from './ranking';
 
 export { canonicalJson } from './canonicalJson';
@@ -65,4 +64,4 @@ export { cleanText } from './cleanText';
 export { endView, rulingSteps, settlementApplies } from './endState';
 export type { EndFacts, EndState, EndView, Settlement, ValuesBefore, WriterRecord } from './endState';
 
-export * from './matches';
+export type * from './matches';

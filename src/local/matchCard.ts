@@ -1,11 +1,5 @@
-import {
-  matchState,
-  ScoringError,
-  type MatchFormat,
-  type MatchState,
-  type ShootOffArrow,
-  type Side,
-} from '../core';
+import { ScoringError, type MatchFormat, type MatchState, type ShootOffArrow, type Side } from '../core';
+import { matchState } from '../core/matches';
 import type { MatchDto, MatchEndArgs, MatchEndSignArgs, MatchShootOffArgs } from '../contract/matches';
 import type { OutboxRow } from './db';
 

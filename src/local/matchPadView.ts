@@ -1,12 +1,5 @@
-import {
-  MATCH_ARROWS_PER_END,
-  MATCH_MAX_ENDS,
-  countedEnds,
-  matchCrossCheck,
-  type ArrowValue,
-  type EndOnRecord,
-  type MatchEnd,
-} from '../core';
+import type { ArrowValue, EndOnRecord, MatchEnd } from '../core';
+import { MATCH_ARROWS_PER_END, MATCH_MAX_ENDS, countedEnds, matchCrossCheck } from '../core/matches';
 import type { MatchEndDto, MatchPadDto, MatchWriteArgs } from '../contract/matches';
 import type { OutboxRow } from './db';
 

@@ -34,9 +34,8 @@ function resolveFile(from: string, specifier: string): string | undefined {
 }
 
 /** The packages reached from `roots` through static imports, each with the chain of files that reaches it. */
-function packagesReached(roots: string[]): Map<string, string[]> {
+function packagesReached(roots: string[], seen = new Set<string>()): Map<string, string[]> {
   const packages = new Map<string, string[]>();
-  const seen = new Set<string>();
   const visit = (file: string, chain: string[]) => {
     if (seen.has(file)) return;
     seen.add(file);
@@ -56,6 +55,11 @@ describe('the public results pages', () => {
     const reached = packagesReached(PUBLIC_FIRST_LOAD);
     const dexie = [...reached].filter(([name]) => name.startsWith('dexie'));
     expect(dexie.map(([name, chain]) => `${name} via ${chain.join(' → ')}`)).toEqual([]);
+  });
+
+  it('leave the new-version prompt (and the service worker registration) until after the first paint', () => {
+    const reached = packagesReached(PUBLIC_FIRST_LOAD);
+    expect(reached.get('virtual:pwa-register/react')).toBeUndefined();
   });
 
   it('are walked far enough to see the packages they do load', () => {
@@ -88,5 +92,25 @@ describe('the pad', () => {
     const reached = packagesReached(PAD_FIRST_LOAD);
     expect(reached.has('dexie')).toBe(true);
     expect(reached.has('react-router-dom')).toBe(true);
+  });
+});
+
+/**
+ * The values of ranking and matches come from their own files, not the core's index: through the
+ * index every screen reaching the index (the pad too) loaded them (~2 KiB gzip of the pad's first load).
+ */
+describe("the pad's first load", () => {
+  it('reaches no ranking or match rules of the core', () => {
+    const files = new Set<string>();
+    packagesReached(PAD_FIRST_LOAD, files);
+    const rules = [...files].filter((f) => /src\/core\/(matches\/|ranking\.ts)/.test(f));
+    expect(rules).toEqual([]);
+  });
+
+  it('is walked into the core', () => {
+    const files = new Set<string>();
+    packagesReached(PAD_FIRST_LOAD, files);
+    expect(files.has('src/core/index.ts')).toBe(true);
+    expect(files.has('src/core/rounds.ts')).toBe(true);
   });
 });

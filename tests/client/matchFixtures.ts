@@ -1,4 +1,5 @@
-import { matchState, type ArrowValue } from '../../src/core';
+import type { ArrowValue } from '../../src/core';
+import { matchState } from '../../src/core/matches';
 import type { MatchDto } from '../../src/contract/matches';
 
 /** Match fixtures shared by the client tests of match cards, pads and bracket labels. */

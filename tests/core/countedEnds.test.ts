@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { countedEnds, matchState, type ArrowValue, type EndOnRecord, type MatchEnd } from '../../src/core';
+import type { ArrowValue, EndOnRecord, MatchEnd } from '../../src/core';
+import { countedEnds, matchState } from '../../src/core/matches';
 
 /*
  * Which ends of a match count, in order (Ringcall's rule for two writers at a match's target, not a

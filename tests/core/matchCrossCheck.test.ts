@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { matchCrossCheck, type ArrowValue, type MatchEnd } from '../../src/core';
+import type { ArrowValue, MatchEnd } from '../../src/core';
+import { matchCrossCheck } from '../../src/core/matches';
 
 /*
  * Two writers at a match's target, compared like a qualification end (the cross-check is common

@@ -9,7 +9,8 @@
 //   cannot be caught is from memory too.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ScoringError, matchState } from '../../src/core';
+import { ScoringError } from '../../src/core';
+import { matchState } from '../../src/core/matches';
 import type { ArrowValue, MatchEnd, MatchRecord, ShootOffArrow } from '../../src/core';
 import { arrowValue } from './arbitraries';
 

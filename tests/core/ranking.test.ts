@@ -13,7 +13,8 @@
 // when there are no eliminations: common practice.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ScoringError, cardTotals, getRound, rankArchers } from '../../src/core';
+import { ScoringError, cardTotals, getRound } from '../../src/core';
+import { rankArchers } from '../../src/core/ranking';
 import type { ArrowValue, RankInput, ShootOffArrow } from '../../src/core';
 import { arrowValue } from './arbitraries';
 

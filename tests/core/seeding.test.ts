@@ -7,7 +7,8 @@
 // Final places after the medals ordered by the round lost, then the qualification rank: the
 // organizer's brief (the rule book may let archers of one round share a place; from memory).
 import { describe, expect, it } from 'vitest';
-import { ScoringError, bracketRounds, bracketSize, finalPlaces, firstRound, seedLines } from '../../src/core';
+import { ScoringError } from '../../src/core';
+import { bracketRounds, bracketSize, finalPlaces, firstRound, seedLines } from '../../src/core/matches';
 
 const pairs = (entrants: number) => firstRound(entrants).map((m) => [m.a, m.b]);
 

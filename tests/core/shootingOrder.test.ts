@@ -13,18 +13,20 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
   ScoringError,
-  alternates,
-  endOrder,
-  lastInOrder,
-  matchState,
-  nextArrow,
-  nextInOrder,
   type AlternateFrom,
   type ArrowValue,
   type MatchEnd,
   type MatchFormat,
   type Side,
 } from '../../src/core';
+import {
+  alternates,
+  endOrder,
+  lastInOrder,
+  matchState,
+  nextArrow,
+  nextInOrder,
+} from '../../src/core/matches';
 import { arrowValue } from './arbitraries';
 
 const v = (text: string) => (text ? (text.split(' ') as ArrowValue[]) : []);

@@ -3,7 +3,8 @@
 // apply to teams too; from memory). A club short of a full team has no team: common practice.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ScoringError, rankTeams } from '../../src/core';
+import { ScoringError } from '../../src/core';
+import { rankTeams } from '../../src/core/ranking';
 
 const archer = (id: string, club: string, total: number, tens = 0, xs = 0, inTeam?: boolean) => ({
   id,

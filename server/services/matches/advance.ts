@@ -1,4 +1,5 @@
-import { other, type Side } from '../../../src/core';
+import type { Side } from '../../../src/core';
+import { other } from '../../../src/core/matches';
 import type { Db } from '../../db';
 import type { MatchRow } from './matchRows';
 

@@ -1,11 +1,5 @@
-import {
-  alternates,
-  finalPlaces,
-  type AlternateFrom,
-  type BracketArcher,
-  type MatchFormat,
-  type Side,
-} from '../../../src/core';
+import type { AlternateFrom, BracketArcher, MatchFormat, Side } from '../../../src/core';
+import { alternates, finalPlaces } from '../../../src/core/matches';
 import type { BracketDto, MatchDto, MatchSideDto } from '../../../src/contract/matches';
 import type { Db } from '../../db';
 import { loadRecords, readMatch, type MatchRow } from './matchRows';

@@ -1,4 +1,5 @@
-import { countedEnds, sortEnd, type ArrowValue, type EndOnRecord, type MatchEnd } from '../../../src/core';
+import { sortEnd, type ArrowValue, type EndOnRecord, type MatchEnd } from '../../../src/core';
+import { countedEnds } from '../../../src/core/matches';
 import type { Db } from '../../db';
 import { nowIso } from '../../time';
 import type { EndRow, MatchRow } from './matchRows';

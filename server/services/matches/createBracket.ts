@@ -1,4 +1,4 @@
-import { bracketSize, firstRound, MAX_BRACKET_ENTRANTS } from '../../../src/core';
+import { bracketSize, firstRound, MAX_BRACKET_ENTRANTS } from '../../../src/core/matches';
 import type { CreateBracket } from '../../../src/contract/matches';
 import type { StandingRow } from '../../../src/contract/results';
 import type { Db } from '../../db';

@@ -1,4 +1,4 @@
-import { other } from '../../../src/core';
+import { other } from '../../../src/core/matches';
 import type { MatchEndBody, MatchShootOffBody, MatchWalkover } from '../../../src/contract/matches';
 import type { Db } from '../../db';
 import { badRequest, conflict } from '../../http/httpError';

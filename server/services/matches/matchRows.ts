@@ -1,12 +1,11 @@
 import {
-  countedEnds,
-  matchState,
   ScoringError,
   type ArrowValue,
   type MatchFormat,
   type MatchRecord,
   type Side,
 } from '../../../src/core';
+import { countedEnds, matchState } from '../../../src/core/matches';
 import type { MatchDto, MatchEndDto } from '../../../src/contract/matches';
 import type { Db } from '../../db';
 import { conflict, notFound } from '../../http/httpError';

@@ -1,4 +1,5 @@
-import { alternates, type AlternateFrom } from '../../../src/core';
+import type { AlternateFrom } from '../../../src/core';
+import { alternates } from '../../../src/core/matches';
 import type { MatchFirstShooterArgs } from '../../../src/contract/matches';
 import { roundName } from '../../../src/ui/bracketLabels';
 import type { Db } from '../../db';

@@ -1,10 +1,5 @@
-import {
-  rankArchers,
-  rankTeams,
-  type ArrowValue,
-  type RoundDefinition,
-  type ShootOffArrow,
-} from '../../../src/core';
+import type { ArrowValue, RoundDefinition, ShootOffArrow } from '../../../src/core';
+import { rankArchers, rankTeams } from '../../../src/core/ranking';
 import type {
   DivisionStandings,
   EventResults,

@@ -1,4 +1,5 @@
-import { matchCrossCheck, type MatchEnd } from '../../core';
+import type { MatchEnd } from '../../core';
+import { matchCrossCheck } from '../../core/matches';
 import type { MatchDto, MatchEndArgs } from '../../contract/matches';
 import { Button } from '../../ui/Button';
 import { nameOf, Panel, SIDES } from '../../ui/match/MatchCardParts';

@@ -1,4 +1,5 @@
-import { arrowPoints, rankArchers } from '../../core';
+import { arrowPoints } from '../../core';
+import { rankArchers } from '../../core/ranking';
 import type { EventResults, ShootOffArrowDto, ShootOffRecordArgs, StandingRow } from '../../contract/results';
 import type { OutboxRow } from '../../local/db';
 

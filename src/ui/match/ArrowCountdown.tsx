@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'react';
-import { MATCH_SECONDS_PER_ARROW } from '../../core';
+import { MATCH_SECONDS_PER_ARROW } from '../../core/matches';
 
 /**
  * A plain countdown of the time for one arrow, started by the judge and free to ignore: it only

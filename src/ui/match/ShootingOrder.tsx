@@ -1,4 +1,5 @@
-import { nextInOrder, other, type Side } from '../../core';
+import type { Side } from '../../core';
+import { nextInOrder, other } from '../../core/matches';
 import type { MatchDto } from '../../contract/matches';
 import { Button } from '../Button';
 import { ArrowCountdown } from './ArrowCountdown';

@@ -1,13 +1,5 @@
-import {
-  ScoringError,
-  lastInOrder,
-  nextInOrder,
-  shootingOrder,
-  type ArrowValue,
-  type MatchEnd,
-  type MatchFormat,
-  type Side,
-} from '../../core';
+import { ScoringError, type ArrowValue, type MatchEnd, type MatchFormat, type Side } from '../../core';
+import { lastInOrder, nextInOrder, shootingOrder } from '../../core/matches';
 import type { MatchDto } from '../../contract/matches';
 import { addValues, undoValue, type Draft } from './MatchCardParts';
 

@@ -1,4 +1,5 @@
-import { MATCH_SECONDS_PER_ARROW, type AlternateFrom } from '../../../core';
+import type { AlternateFrom } from '../../../core';
+import { MATCH_SECONDS_PER_ARROW } from '../../../core/matches';
 import type { BracketDto } from '../../../contract/matches';
 import { Notice } from '../../../ui/Notice';
 import { SelectField } from '../../../ui/SelectField';
