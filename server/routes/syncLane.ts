@@ -16,6 +16,11 @@ import { mailFinalCards } from '../services/judging/finalCard';
 /** The API's body limit (server/app.ts). */
 const BODY_LIMIT = 256 * 1024;
 
+const PUSH = { method: 'POST', path: '/api/sync/push' } as const;
+const PULL = { method: 'GET', path: '/api/sync/pull' } as const;
+/** The lane's routes, which Express's router does not list (the authorization table covers them). */
+export const LANE_ROUTES = [PUSH, PULL].map((r) => `${r.method} ${r.path}`);
+
 /** Answers the request when it is the lane's (true), or leaves it to Express (false). */
 export type Lane = (req: IncomingMessage, res: ServerResponse) => boolean;
 
@@ -60,9 +65,9 @@ export function syncLane(ctx: AppContext): Lane {
     const mark = url.indexOf('?');
     const path = mark < 0 ? url : url.slice(0, mark);
     const answer =
-      req.method === 'POST' && path === '/api/sync/push'
+      req.method === PUSH.method && path === PUSH.path
         ? push(req)
-        : req.method === 'GET' && path === '/api/sync/pull'
+        : req.method === PULL.method && path === PULL.path
           ? pull(req, mark < 0 ? '' : url.slice(mark + 1))
           : undefined;
     if (!answer) return false;
