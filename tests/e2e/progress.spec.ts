@@ -1,6 +1,27 @@
-import { expect, test } from '@playwright/test';
+import { expect, test, type Page } from '@playwright/test';
 import { checkA11y } from './support/a11y';
 import { openThenGoOffline } from './support/offline';
+
+/** Puts sessions into the phone's practice store as the phone keeps them (one transaction). */
+function storeSessions(page: Page, sessions: object[]) {
+  return page.evaluate(
+    (rows) =>
+      new Promise<void>((resolve, reject) => {
+        const open = indexedDB.open('ringcall');
+        open.onsuccess = () => {
+          const tx = open.result.transaction('practiceSessions', 'readwrite');
+          for (const row of rows) tx.objectStore('practiceSessions').put(row);
+          tx.oncomplete = () => {
+            open.result.close();
+            resolve();
+          };
+          tx.onerror = () => reject(tx.error);
+        };
+        open.onerror = () => reject(open.error);
+      }),
+    sessions,
+  );
+}
 
 test('with no signal, practice just recorded shows on the progress screen: chart, summary and table', async ({
   page,
@@ -57,23 +78,23 @@ test('a long log draws its 20 newest sessions, the rest on request, each line fr
   await expect(page.getByText('No practice yet')).toBeVisible();
   // 25 sessions as the phone keeps them, each with its parts (30 arrows, 270 points) and no ends:
   // the log's line reads the parts, not the arrows.
-  await page.evaluate(`new Promise((resolve, reject) => {
-    const open = indexedDB.open('ringcall');
-    open.onsuccess = () => {
-      const tx = open.result.transaction('practiceSessions', 'readwrite');
-      for (let s = 0; s < 25; s += 1)
-        tx.objectStore('practiceSessions').put({
-          id: 'long-' + String(s).padStart(2, '0'), ownerId: 0,
-          startedAt: new Date(Date.UTC(2026, 0, 1 + s * 7, 17)).toISOString(),
-          bowStyle: 'recurve', venue: 'indoor', distanceM: 18, faceId: 'full-40', arrowsPerEnd: 3,
-          plannedEnds: 10, shaftDiameterMm: 5.5, finishedAt: '2026-01-01T18:00:00.000Z',
-          progress: [{ distanceM: 18, faceId: 'full-40', arrows: 30, points: 270 }],
-        });
-      tx.oncomplete = () => { open.result.close(); resolve(); };
-      tx.onerror = () => reject(tx.error);
-    };
-    open.onerror = () => reject(open.error);
-  })`);
+  await storeSessions(
+    page,
+    Array.from({ length: 25 }, (_, s) => ({
+      id: 'long-' + String(s).padStart(2, '0'),
+      ownerId: 0,
+      startedAt: new Date(Date.UTC(2026, 0, 1 + s * 7, 17)).toISOString(),
+      bowStyle: 'recurve',
+      venue: 'indoor',
+      distanceM: 18,
+      faceId: 'full-40',
+      arrowsPerEnd: 3,
+      plannedEnds: 10,
+      shaftDiameterMm: 5.5,
+      finishedAt: '2026-01-01T18:00:00.000Z',
+      progress: [{ distanceM: 18, faceId: 'full-40', arrows: 30, points: 270 }],
+    })),
+  );
   await page.reload();
   const lines = page.getByTestId('practice-sessions').getByRole('listitem');
   await expect(lines).toHaveCount(20);
@@ -88,22 +109,29 @@ test('charts below the screen are drawn when scrolled near, the one on screen at
   await page.goto('/practice');
   await expect(page.getByText('No practice yet')).toBeVisible();
   // Three distances, one session each (30 arrows, 270 points): three series, three charts.
-  await page.evaluate(`new Promise((resolve, reject) => {
-    const open = indexedDB.open('ringcall');
-    open.onsuccess = () => {
-      const tx = open.result.transaction('practiceSessions', 'readwrite');
-      [[18, 'full-40'], [30, 'full-80'], [70, 'full-122']].forEach(([distanceM, faceId], s) =>
-        tx.objectStore('practiceSessions').put({
-          id: 'far-' + s, ownerId: 0, startedAt: new Date(Date.UTC(2026, 0, 5 + s * 7, 17)).toISOString(),
-          bowStyle: 'recurve', venue: 'outdoor', distanceM, faceId, arrowsPerEnd: 6,
-          plannedEnds: 5, shaftDiameterMm: 5.5, finishedAt: '2026-02-01T18:00:00.000Z',
-          progress: [{ distanceM, faceId, arrows: 30, points: 270 }],
-        }));
-      tx.oncomplete = () => { open.result.close(); resolve(); };
-      tx.onerror = () => reject(tx.error);
-    };
-    open.onerror = () => reject(open.error);
-  })`);
+  await storeSessions(
+    page,
+    (
+      [
+        [18, 'full-40'],
+        [30, 'full-80'],
+        [70, 'full-122'],
+      ] as const
+    ).map(([distanceM, faceId], s) => ({
+      id: 'far-' + s,
+      ownerId: 0,
+      startedAt: new Date(Date.UTC(2026, 0, 5 + s * 7, 17)).toISOString(),
+      bowStyle: 'recurve',
+      venue: 'outdoor',
+      distanceM,
+      faceId,
+      arrowsPerEnd: 6,
+      plannedEnds: 5,
+      shaftDiameterMm: 5.5,
+      finishedAt: '2026-02-01T18:00:00.000Z',
+      progress: [{ distanceM, faceId, arrows: 30, points: 270 }],
+    })),
+  );
   // Opened at its top (a tap on the log's link keeps the log's scroll).
   await page.goto('/practice/progress');
   const charts = page.getByTestId('progress-chart');
