@@ -1,8 +1,8 @@
-import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { readConfig } from './config';
 import { migrate, openDb } from './db';
 import { createApp } from './app';
+import { createFieldServer } from './http/fieldServer';
 import { seedDemoIfEmpty } from './demo/seedDemo';
 import { DEMO_ARCHER_EMAIL, DEMO_JUDGES, DEMO_ORGANIZER, DEMO_PASSWORD } from './demo/demoPeople';
 import { APP_VERSION } from './version';
@@ -24,7 +24,7 @@ async function main(): Promise<void> {
   const mailInboxKey = catcher ? loadMailInboxKey(config.dataDir, config.mailInboxSecret) : undefined;
 
   // The port is known only once listening (PORT=0 picks one), and links need it: listen, then serve.
-  const server = createServer();
+  const server = createFieldServer();
   await new Promise<void>((resolve) => server.listen(config.port, config.host, resolve));
   const port = (server.address() as AddressInfo).port;
   const linkAddress = resolveLinkAddress({ publicUrl: config.publicUrl, host: config.host, port });

@@ -3,6 +3,8 @@ import { HttpError } from './httpError';
 
 const tooLarge = () => new HttpError(413, 'too_large', 'The request is too large. Send fewer items at once.');
 const notJson = () => new HttpError(400, 'bad_json', 'The request body is not valid JSON.');
+const cutOff = () =>
+  new HttpError(400, 'cut_off', 'The request was cut off before all of it arrived. Send it again.');
 const unreadable = () =>
   new HttpError(415, 'unsupported_encoding', 'The request uses an encoding the server does not read.');
 
@@ -37,7 +39,9 @@ export function readJsonBody(req: IncomingMessage, limit: number): Promise<unkno
       reject(tooLarge());
     };
     req.on('data', onData);
-    req.once('error', reject);
+    // The phone went away, or the server cut off a request too slow to arrive (http/fieldServer.ts):
+    // the request's doing, not the server's, as Express's parser counts it too.
+    req.once('error', () => reject(cutOff()));
     req.once('end', () => {
       if (size > limit) return;
       const text = chunks.length === 1 ? chunks[0]!.toString('utf8') : Buffer.concat(chunks).toString('utf8');
