@@ -18,9 +18,8 @@ import { SafetyNote } from '../../ui/SafetyNote';
 import { RefusedNotice } from '../../ui/scorecard/RefusedNotice';
 import { JudgeOnly } from './JudgeOnly';
 import { WritersDiffer } from './WritersDiffer';
-import { ArrowCountdown } from '../../ui/match/ArrowCountdown';
 import { addInOrder, alternateOrder, asksWhoShootsFirst, undoInOrder } from '../../ui/match/alternateEntry';
-import { NextArrow, WhoShootsFirst } from '../../ui/match/ShootingOrder';
+import { ArrowTurn, WhoShootsFirst } from '../../ui/match/ShootingOrder';
 import { endTitle } from '../../ui/match/endWord';
 import { chosenFirstShooter } from '../../local/firstShooter';
 import { matchCard, matchRowsOf, type MatchCardView } from '../../local/matchCard';
@@ -67,7 +66,6 @@ function EndEntry({
   save: Save;
 }) {
   const complete = draft.a.length === ARROWS && draft.b.length === ARROWS;
-  const side: Side = draft.a.length < ARROWS ? 'a' : 'b';
   const order = alternateOrder(match, format, card.ends.slice(0, draft.endIndex), first?.side ?? null);
   const chooseFirst = (s: Side) => save({ kind: 'match.firstShooter', args: { ...target, side: s } });
   if (asksWhoShootsFirst(match, first?.side ?? null, card.ends.length === 0 ? draft : null))
@@ -79,18 +77,7 @@ function EndEntry({
   return (
     <Panel id="end-entry" title={endTitle(format, draft.endIndex)}>
       <DraftLines match={match} draft={draft} per={ARROWS} />
-      {order ? (
-        <NextArrow match={match} order={order} draft={draft} first={first} onChoose={chooseFirst} />
-      ) : (
-        !complete && (
-          <>
-            <p>
-              Arrows of <span className="font-bold">{nameOf(match, side)}</span>, highest first.
-            </p>
-            <ArrowCountdown key={`${draft.endIndex}:${draft.a.length + draft.b.length}`} />
-          </>
-        )
-      )}
+      <ArrowTurn match={match} order={order} draft={draft} first={first} onChoose={chooseFirst} />
       <ArrowKeypad
         allowed={ARROW_VALUES}
         disabled={complete}

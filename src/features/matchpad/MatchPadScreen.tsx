@@ -15,9 +15,8 @@ import { useLocalSave } from '../../local/useLocalSave';
 import { countersignedLine } from '../../ui/bracketLabels';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
-import { ArrowCountdown } from '../../ui/match/ArrowCountdown';
 import { addInOrder, alternateOrder, asksWhoShootsFirst, undoInOrder } from '../../ui/match/alternateEntry';
-import { NextArrow, WhoShootsFirst } from '../../ui/match/ShootingOrder';
+import { ArrowTurn, WhoShootsFirst } from '../../ui/match/ShootingOrder';
 import {
   ARROWS,
   DraftLines,
@@ -139,7 +138,6 @@ function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
   const stored = view.current !== null ? endOf(view.current) : null;
   // The last tap's end until the stored view catches up: taps quicker than the database never build on an older end.
   const current = stored && typed && typed.endIndex >= stored.endIndex ? typedOrNext(typed) : stored;
-  const next = current && current.a.length < ARROWS ? 'a' : 'b';
   // Shot alternately: the order follows this writer's own ends before the one being written.
   const first = chosenFirstShooter(match, rows ?? []);
   const before = Array.from({ length: current?.endIndex ?? 0 }, (_, i) =>
@@ -165,16 +163,7 @@ function MatchPad({ pad, userId }: { pad: JoinedMatch; userId: number }) {
             <WhoShootsFirst match={match} onChoose={chooseFirst} />
           ) : (
             <>
-              {order ? (
-                <NextArrow match={match} order={order} draft={current} first={first} onChoose={chooseFirst} />
-              ) : (
-                <>
-                  <p>
-                    Arrows of <span className="font-bold">{nameOf(match, next)}</span>, highest first.
-                  </p>
-                  <ArrowCountdown key={`${current.endIndex}:${current.a.length + current.b.length}`} />
-                </>
-              )}
+              <ArrowTurn match={match} order={order} draft={current} first={first} onChoose={chooseFirst} />
               <ArrowKeypad
                 allowed={ARROW_VALUES}
                 onValues={(values: ArrowValue[]) => write(addInOrder(current, values, order))}

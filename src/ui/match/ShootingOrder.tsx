@@ -3,7 +3,7 @@ import { nextInOrder, other } from '../../core/matches';
 import type { MatchDto } from '../../contract/matches';
 import { Button } from '../Button';
 import { ArrowCountdown } from './ArrowCountdown';
-import { nameOf, type Draft } from './MatchCardParts';
+import { ARROWS, nameOf, type Draft } from './MatchCardParts';
 
 /*
  * A match shot alternately, on the writers' pad and the judge's match card: before end 1, who
@@ -83,5 +83,36 @@ export function NextArrow({
         </>
       )}
     </div>
+  );
+}
+
+/**
+ * Whose arrows are entered next, on the writers' pad and the judge's match card: in turn when the
+ * match is shot alternately (`order`), else the upper line's three then the lower's, with the arrow
+ * clock; nothing once the end is complete.
+ */
+export function ArrowTurn({
+  match,
+  order,
+  draft,
+  first,
+  onChoose,
+}: {
+  match: MatchDto;
+  order: Side[] | null;
+  draft: Draft;
+  first: { side: Side; waiting: boolean } | null;
+  onChoose: (side: Side) => void;
+}) {
+  if (order) return <NextArrow match={match} order={order} draft={draft} first={first} onChoose={onChoose} />;
+  if (draft.a.length === ARROWS && draft.b.length === ARROWS) return null;
+  const side: Side = draft.a.length < ARROWS ? 'a' : 'b';
+  return (
+    <>
+      <p>
+        Arrows of <span className="font-bold">{nameOf(match, side)}</span>, highest first.
+      </p>
+      <ArrowCountdown key={`${draft.endIndex}:${draft.a.length + draft.b.length}`} />
+    </>
   );
 }
