@@ -41,6 +41,16 @@ export function WhoShootsFirst({ match, onChoose }: { match: MatchDto; onChoose:
   );
 }
 
+type TurnProps = {
+  match: MatchDto;
+  /** The order of this end's arrows when shot alternately (core `shootingOrder`). */
+  order: Side[] | null;
+  draft: Draft;
+  /** Who was chosen to shoot first in end 1, and whether the choice still waits to sync. */
+  first: { side: Side; waiting: boolean } | null;
+  onChoose: (side: Side) => void;
+};
+
 /**
  * Whose arrow is next in the end being entered (none once it is complete), the arrow clock started
  * again for each arrow, and, until end 1 begins, who was chosen to start it with a key to change it.
@@ -51,14 +61,7 @@ export function NextArrow({
   draft,
   first,
   onChoose,
-}: {
-  match: MatchDto;
-  /** The order of this end's arrows (core `shootingOrder`). */
-  order: Side[];
-  draft: Draft;
-  first: { side: Side; waiting: boolean } | null;
-  onChoose: (side: Side) => void;
-}) {
+}: TurnProps & { order: Side[] }) {
   const arrowsIn = draft.a.length + draft.b.length;
   const next = nextInOrder(order, draft);
   const canChange = first && draft.endIndex === 0 && arrowsIn === 0 && match.ends.length === 0;
@@ -97,13 +100,7 @@ export function ArrowTurn({
   draft,
   first,
   onChoose,
-}: {
-  match: MatchDto;
-  order: Side[] | null;
-  draft: Draft;
-  first: { side: Side; waiting: boolean } | null;
-  onChoose: (side: Side) => void;
-}) {
+}: TurnProps) {
   if (order) return <NextArrow match={match} order={order} draft={draft} first={first} onChoose={onChoose} />;
   if (draft.a.length === ARROWS && draft.b.length === ARROWS) return null;
   const side: Side = draft.a.length < ARROWS ? 'a' : 'b';
