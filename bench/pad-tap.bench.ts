@@ -8,33 +8,8 @@ import { spawnSync } from 'node:child_process';
 import { chromium, devices } from '@playwright/test';
 import { chromiumArgs, chromiumPath } from '../tests/support/chromium';
 import { joinAsWriter, startBenchServer } from './support/fieldPhone';
+import { COMMIT_TRACE_CATEGORIES, commitTimes, type Trace } from './support/idbTrace';
 import { percentile } from './support/stats';
-
-type TraceEvent = { name: string; ph: string; ts: number; dur?: number; args?: { txn_id?: number } };
-type Trace = { traceEvents: TraceEvent[] };
-
-/**
- * For each tap, when IndexedDB committed its write, from Chromium's own trace (µs): the tap starts
- * where the pad's measure starts; the write's transaction is the one whose complete event the
- * page was handling when the measure ended; the commit is the database's "complete" for it.
- * The page hears of a commit only after the frame the tap paints, which Chromium runs first.
- */
-function commitTimes({ traceEvents: events }: Trace): number[] {
-  const measure = (ph: string) => events.filter((e) => e.name === 'ringcall:tap-to-commit' && e.ph === ph);
-  const completes = events.filter((e) => e.name === 'IDBTransaction::onComplete');
-  const commits = new Map(
-    events
-      .filter((e) => e.name === 'Transaction::CommitPhaseTwo.TransactionCompleteCallbacks')
-      .map((e) => [e.args?.txn_id, e.ts]),
-  );
-  const ends = measure('e');
-  return measure('b').flatMap((begin, i) => {
-    const end = ends[i]!.ts;
-    const heard = completes.filter((c) => c.ts <= end && end <= c.ts + (c.dur ?? 0)).at(-1);
-    const committedAt = commits.get(heard?.args?.txn_id);
-    return committedAt === undefined ? [] : [(committedAt - begin.ts) / 1000];
-  });
-}
 
 const server = await startBenchServer(4471, '.tmp/bench-pad');
 
@@ -49,7 +24,7 @@ try {
     pauseMs: number,
   ): Promise<{ durations: number[]; committed: number[]; perSecond: number }> => {
     await page.evaluate(() => performance.clearMeasures('ringcall:tap-to-commit'));
-    await browser.startTracing(page, { categories: ['IndexedDB', 'blink.user_timing'] });
+    await browser.startTracing(page, { categories: COMMIT_TRACE_CATEGORIES });
     const started = performance.now();
     let taps = 0;
     for (let end = 0; end < 4; end += 1) {
@@ -73,7 +48,10 @@ try {
     const durations = await page.evaluate(() =>
       performance.getEntriesByName('ringcall:tap-to-commit').map((e) => e.duration),
     );
-    const committed = commitTimes(JSON.parse((await browser.stopTracing()).toString('utf8')) as Trace);
+    const committed = commitTimes(
+      JSON.parse((await browser.stopTracing()).toString('utf8')) as Trace,
+      'ringcall:tap-to-commit',
+    );
     return { durations, committed, perSecond };
   };
   for (const [label, pauseMs] of [

@@ -57,6 +57,26 @@ describe('practice on the phone', () => {
     db.close();
   });
 
+  it('an arrow after a write from elsewhere (a sync, another tab) builds on that write, and quick taps all land', async () => {
+    const db = new LocalDb('practice-store-elsewhere');
+    const id = await startPracticeSession(free, db);
+    expect(await addPracticeArrow(id, { value: 'X' }, db)).toBe(true);
+    // Another of the person's phones added an arrow to this end; a sync stores it here.
+    const [end] = await practiceEnds(id, db);
+    await db.practiceEnds.put({ ...end!, arrows: [...end!.arrows, { value: '10' }] });
+    expect(await addPracticeArrow(id, { value: '9' }, db)).toBe(true);
+    // Two taps before either commits.
+    await Promise.all([addPracticeArrow(id, { value: '8' }, db), addPracticeArrow(id, { value: '7' }, db)]);
+    expect((await practiceEnds(id, db)).map((e) => e.arrows.map((a) => a.value))).toEqual([
+      ['X', '10', '9'],
+      ['8', '7'],
+    ]);
+    expect((await db.practiceSessions.get(id))?.progress).toEqual([
+      { distanceM: 18, faceId: 'full-40', arrows: 5, points: 44 },
+    ]);
+    db.close();
+  });
+
   it('an open-ended session goes on until finished; a catalog round follows its distances', async () => {
     const db = new LocalDb('practice-store-2');
     const open = await startPracticeSession({ ...free, plannedEnds: null, arrowsPerEnd: 1 }, db);

@@ -36,13 +36,16 @@ const cards: TournamentCard[] = [];
 describe('progressView', () => {
   it('is worked out once per answer and filter, and again for a new answer', () => {
     const all = progressView(own, cards, {});
-    expect(all.series.map((s) => s.distanceM)).toEqual([18, 70]);
+    expect(all.series.map((s) => s.series.distanceM)).toEqual([18, 70]);
+    // Its words worked out with it (dates formatted then, not in the tap's render).
+    expect(all.series[1]?.title).toBe('70 m · 122 cm face');
+    expect(all.series[1]?.summary).toMatch(/^Week of .*: 8\.00 an arrow over 36 arrows\. Best session: 8\.00 an arrow on .* \(36 arrows\), ringed on the chart\.$/);
     expect(all.choices).toEqual({ bowStyles: ['recurve', 'barebow'], distances: [18, 70] });
     // The same answers: the very same view, nothing worked out again.
     expect(progressView(own, cards, {})).toBe(all);
 
     const barebow = progressView(own, cards, { bowStyle: 'barebow' });
-    expect(barebow.series.map((s) => s.distanceM)).toEqual([70]);
+    expect(barebow.series.map((s) => s.series.distanceM)).toEqual([70]);
     expect(barebow.choices).toBe(all.choices);
     expect(progressView(own, cards, { bowStyle: 'barebow' })).toBe(barebow);
 
@@ -50,6 +53,6 @@ describe('progressView', () => {
     const more = [...own, { session: session('c', 18, 'recurve'), parts: own[0]!.parts }];
     const after = progressView(more, cards, {});
     expect(after).not.toBe(all);
-    expect(after.series[0]?.weeks[0]?.sessions).toBe(2);
+    expect(after.series[0]?.series.weeks[0]?.sessions).toBe(2);
   });
 });

@@ -1,3 +1,4 @@
+import { Dexie } from 'dexie';
 import {
   NO_ACCOUNT,
   localDb,
@@ -10,6 +11,7 @@ import type { PracticeArrow } from '../../core/practice';
 import type { ProgressSession } from '../../core/practice/progress';
 import { progressParts, type ProgressPart } from '../../core/practice/progressParts';
 import { endSetup, nextEndIndex } from './plan';
+import { rememberWritten, takeWritten } from './writtenSessions';
 import {
   practiceEndDto,
   practiceSender,
@@ -99,6 +101,15 @@ export async function practiceEnds(sessionId: string, db = localDb()): Promise<P
   return ends.sort((a, b) => a.index - b.index);
 }
 
+/** Commits the current Dexie transaction once its last request is asked for (IndexedDB's commit()). */
+function commitNow(): void {
+  try {
+    Dexie.currentTransaction?.idbtrans.commit();
+  } catch {
+    // Already committing, or a browser without commit(): it commits when its requests are done.
+  }
+}
+
 /**
  * Stores one arrow in the session's current end (a new end when the last is full) and closes the
  * session when its last planned end fills. Refused (false) when the session is already full.
@@ -109,16 +120,17 @@ export async function addPracticeArrow(
   db = localDb(),
 ): Promise<boolean> {
   const sender = await practiceSender(db, phoneOwner());
-  return db.transaction('rw', practiceTables(db), async () => {
-    // Both reads at once: each round trip inside the transaction delays its commit.
-    const [session, ends] = await Promise.all([
-      db.practiceSessions.get(sessionId),
-      practiceEnds(sessionId, db),
-    ]);
-    if (!session || session.finishedAt) return false;
+  const known = takeWritten(db.name, sessionId);
+  const stored = await db.transaction('rw', practiceTables(db), async () => {
+    // Both reads at once, when this page did not write them last: each round trip inside the
+    // transaction delays its commit.
+    const [session, ends] = known
+      ? [known.session, known.ends]
+      : await Promise.all([db.practiceSessions.get(sessionId), practiceEnds(sessionId, db)]);
+    if (!session || session.finishedAt) return undefined;
     const index = nextEndIndex(session, ends);
     const setup = index === undefined ? undefined : endSetup(session, index);
-    if (index === undefined || !setup) return false;
+    if (index === undefined || !setup) return undefined;
     const existing = ends.find((e) => e.index === index);
     const at = new Date().toISOString();
     const end: PracticeEndRow = existing
@@ -132,22 +144,25 @@ export async function addPracticeArrow(
           arrows: [arrow],
           at,
         };
-    await db.practiceEnds.put(end);
     const now = [...ends.filter((e) => e.index !== index), end].sort((a, b) => a.index - b.index);
     // The session's progress parts change with every arrow; finished when its last end fills.
     const finished = nextEndIndex(session, now) === undefined;
-    await db.practiceSessions.update(sessionId, {
-      progress: progressParts(now),
-      ...(finished ? { finishedAt: at } : {}),
-    });
+    const closed = finished ? { ...session, finishedAt: at } : session;
+    const row = { ...closed, progress: progressParts(now) };
+    // Every write asked for at once, the session whole (an update reads it again first).
+    const writes = Promise.all([db.practiceEnds.put(end), db.practiceSessions.put(row)]);
     await sendPractice(db, sender, session.ownerId, [
       { kind: 'practice.end', args: practiceEndDto(end) },
-      ...(finished
-        ? [{ kind: 'practice.session' as const, args: practiceSessionDto({ ...session, finishedAt: at }) }]
-        : []),
+      ...(finished ? [{ kind: 'practice.session' as const, args: practiceSessionDto(closed) }] : []),
     ]);
-    return true;
+    // Nothing more to write: committed now, without waiting for the writes' answers to come back
+    // to the page first (on a busy phone they queue behind the frame the tap paints).
+    commitNow();
+    await writes;
+    return { session: row, ends: now };
   });
+  if (stored) rememberWritten(db.name, stored);
+  return stored !== undefined;
 }
 
 /** Takes back the last arrow of the session (and reopens it if it was finished). */

@@ -1,14 +1,13 @@
 import { lazy, Suspense, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { getFace, type BowStyle } from '../../../core';
-import type { ProgressSeries } from '../../../core/practice/progress';
+import type { BowStyle } from '../../../core';
 import { usePhoneOwner } from '../../../local/phoneOwner';
 import { BOW_STYLE_LABELS } from '../plan';
 import { useOwnSessionParts, useStoredTournamentCards } from '../storedPractice';
 import { useFreshTournamentCards } from '../tournamentCards';
-import { CHART_HEIGHT, dayLabel, perArrow, weekLabel } from './progressData';
+import { CHART_HEIGHT, perArrow, weekLabel } from './progressData';
 import { progressChartLoader } from './loadProgress';
-import { progressView } from './progressView';
+import { progressView, type ShownSeries } from './progressView';
 
 // The log works progress out while idle (warmProgressView): with this chunk, not before.
 export { progressView };
@@ -78,7 +77,7 @@ export function ProgressScreen() {
         <p className="text-lg">No practice with these filters. Choose “All” to see every session.</p>
       )}
       {series?.map((s) => (
-        <SeriesView key={`${s.distanceM}|${s.faceId}`} series={s} />
+        <SeriesView key={`${s.series.distanceM}|${s.series.faceId}`} shown={s} />
       ))}
     </div>
   );
@@ -118,10 +117,8 @@ function FilterRow<T extends string | number>({
   );
 }
 
-function SeriesView({ series }: { series: ProgressSeries }) {
-  const title = `${series.distanceM} m · ${getFace(series.faceId).label}`;
+function SeriesView({ shown: { series, title, summary } }: { shown: ShownSeries }) {
   const id = `progress-${series.distanceM}-${series.faceId}`;
-  const latest = series.weeks[series.weeks.length - 1];
   const best = series.best;
   // The table (the chart's figures in text) is drawn when opened: a year is 52 rows a series.
   const [open, setOpen] = useState(false);
@@ -130,12 +127,7 @@ function SeriesView({ series }: { series: ProgressSeries }) {
       <h2 id={id} className="text-2xl font-bold">
         {title}
       </h2>
-      <p data-testid="progress-summary">
-        {latest &&
-          `Week of ${weekLabel(latest.weekStart)}: ${perArrow(latest.averagePerArrow)} an arrow over ${latest.arrows} arrows. `}
-        Best session: {perArrow(best.averagePerArrow)} an arrow on {dayLabel(best.startedAt)} ({best.arrows}{' '}
-        arrows{best.tournament && `, tournament: ${best.tournament}`}), ringed on the chart.
-      </p>
+      <p data-testid="progress-summary">{summary}</p>
       <Suspense fallback={<div style={{ height: CHART_HEIGHT }} />}>
         <ProgressChart series={series} />
       </Suspense>
