@@ -115,12 +115,22 @@ const countTapsFromNow = (page: Page) =>
 const tapPaints = (page: Page) =>
   page.evaluate(() => [...(globalThis as unknown as WithTaps).tapPaints.values()]);
 
+/** Run in the page (strings: this file is type-checked without the DOM). */
+const COVERED = `(el) => {
+  const r = el.getBoundingClientRect();
+  return !el.contains(document.elementFromPoint(r.x + r.width / 2, r.y + r.height / 2));
+}`;
+const TO_THE_MIDDLE = `(el) => el.scrollIntoView({ block: 'center' })`;
+
 /** A touch tap in the middle of `what` (a button's exact name, or any element), as a finger makes. */
 async function tap(page: Page, what: string | Locator) {
   // A tab in the background gets no input: the page tapped is the one in front, as on a phone.
   await page.bringToFront();
   const target = typeof what === 'string' ? page.getByRole('button', { name: what, exact: true }) : what;
   await target.scrollIntoViewIfNeeded();
+  // Scrolled to the screen's top edge, an element lies under the app's sticky header, which the
+  // tap would hit instead: such an element is brought to the middle of the screen first.
+  if (await target.evaluate(COVERED)) await target.evaluate(TO_THE_MIDDLE);
   const box = (await target.boundingBox())!;
   await page.touchscreen.tap(box.x + box.width / 2, box.y + box.height / 2);
   await page.waitForTimeout(TAP_PAUSE_MS);
