@@ -25,9 +25,14 @@ export async function startBenchServer(port: number, dir: string): Promise<Bench
     env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', DATA_DIR: dir, MAIL_CATCHER_PORT: '0' },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
+  // Seeding the demo hashes a password at cost 12: on a busy machine that alone takes 20 s and more.
   for (let i = 0; ; i += 1) {
     if (await answers()) return { base, dir, child };
-    if (i > 100) throw new Error('The bench server did not start.');
+    if (i > 450) {
+      // Left running, it would hold the port and make the next run fail.
+      child.kill('SIGTERM');
+      throw new Error('The bench server did not start.');
+    }
     await new Promise((r) => setTimeout(r, 200));
   }
 }

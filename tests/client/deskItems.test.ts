@@ -73,7 +73,14 @@ describe('an end signed on the desk', () => {
   const items = deskItems(targets, new Map([endOf(10, SIX), endOf(20, SIX)]), keyOf);
   const signed = items.find((i) => i.target.targetNumber === 1)!;
 
-  it('leaves the desk once stored, even in a read begun before the signature was stored', () => {
+  it('leaves the desk at the tap, before its signature is stored, whatever read comes meanwhile', () => {
+    const signedAt = new Map([[deskItemKey(signed), Infinity]]);
+    for (const readNumber of [1, 3, 4, 100]) {
+      expect(withoutSigned(items, signedAt, readNumber).map((i) => i.target.targetNumber)).toEqual([2]);
+    }
+  });
+
+  it('stays off once stored, even in a read begun before the signature was stored', () => {
     // Reads 1 to 3 had begun when the signature was stored.
     const signedAt = new Map([[deskItemKey(signed), 3]]);
     for (const readNumber of [2, 3]) {

@@ -1,25 +1,21 @@
 import { memo, useState } from 'react';
 import { endsOfRound } from '../../core';
-import { useLocalSave } from '../../local/useLocalSave';
 import { Button } from '../../ui/Button';
-import { Notice } from '../../ui/Notice';
 import { RulingHistory } from '../../ui/scorecard/RulingHistory';
 import { EndArrows } from '../../ui/scorecard/EndArrows';
 import { DESK_KIND_LABELS, type DeskItem } from './deskItems';
 import { RuleForm } from './RuleForm';
-import { signEnds } from './signEnds';
 
 type Props = {
   item: DeskItem;
   eventId: number;
   userId: number;
-  /** Told once the end's signature is stored on the phone (not before); the same function on every render. */
-  onSigned: (item: DeskItem) => void;
+  /** Signs the end (the list hides it and reports a failure); the same function on every render. */
+  onSign: (item: DeskItem) => void;
 };
 
-function DeskItemCardView({ item, eventId, userId, onSigned }: Props) {
+function DeskItemCardView({ item, eventId, userId, onSign }: Props) {
   const [ruling, setRuling] = useState(false);
-  const { save, problem } = useLocalSave();
   const archer = item.target.archers[item.archerIndex]!;
   const label = DESK_KIND_LABELS[item.kind];
   const perEnd = endsOfRound(archer.round)[item.endIndex]?.arrows ?? 0;
@@ -60,20 +56,12 @@ function DeskItemCardView({ item, eventId, userId, onSigned }: Props) {
             Rule on this end
           </Button>
           {item.kind === 'to-sign' && (
-            <Button
-              onClick={() =>
-                save(async () => {
-                  await signEnds(userId, [item]);
-                  onSigned(item);
-                })
-              }
-            >
+            <Button onClick={() => onSign(item)}>
               ✍ Sign end
             </Button>
           )}
         </div>
       )}
-      {problem && <Notice tone="error">{problem}</Notice>}
     </li>
   );
 }
@@ -88,5 +76,5 @@ export const DeskItemCard = memo(
     before.item.revision === after.item.revision &&
     before.eventId === after.eventId &&
     before.userId === after.userId &&
-    before.onSigned === after.onSigned,
+    before.onSign === after.onSign,
 );

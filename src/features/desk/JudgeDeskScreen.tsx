@@ -23,6 +23,7 @@ import {
 } from './deskItems';
 import { DeskItemCard } from './DeskItemCard';
 import { signEnds } from './signEnds';
+import { messageOf } from '../../api/request';
 import { ImportWaiting } from './ImportWaiting';
 import { LateValues } from './LateValues';
 import { TargetGroup } from '../../ui/scorecard/TargetGroup';
@@ -138,10 +139,33 @@ function OneTarget({
     return { ...(await readDesk(sessionId, userId, [target])), readNumber };
   }, [sessionId, userId, target]);
   const [signedAt, setSignedAt] = useState<ReadonlyMap<string, number>>(new Map());
-  const onSigned = useCallback((item: DeskItem) => {
-    const begun = reads.current;
-    setSignedAt((signed) => new Map(signed).set(deskItemKey(item), begun));
-  }, []);
+  const [problem, setProblem] = useState<string>();
+  const onSign = useCallback(
+    (item: DeskItem) => {
+      const key = deskItemKey(item);
+      const mark = (readNumber: number | undefined) =>
+        setSignedAt((signed) => {
+          const next = new Map(signed);
+          if (readNumber === undefined) next.delete(key);
+          else next.set(key, readNumber);
+          return next;
+        });
+      // The end leaves in the tap's own frame, not after the database's answer (which waits behind
+      // a sync's writes): no read shows it until the signature is stored, then reads begun since do.
+      setProblem(undefined);
+      mark(Infinity);
+      signEnds(userId, [item]).then(
+        () => mark(reads.current),
+        (error: unknown) => {
+          mark(undefined);
+          setProblem(
+            `The signature on target ${item.target.targetNumber}${item.target.archers[item.archerIndex]?.position ?? ''}, end ${item.endIndex + 1} was not saved on this phone (${messageOf(error)}). Try again.`,
+          );
+        },
+      );
+    },
+    [userId],
+  );
   if (!data) return <p>Reading the ends on this phone…</p>;
   const items = withoutSigned(data.items, signedAt, data.readNumber);
   return (
@@ -152,6 +176,7 @@ function OneTarget({
         ready={items.filter((i) => i.kind === 'to-sign')}
         suffix={` of target ${target.targetNumber}`}
       />
+      {problem && <Notice tone="error">{problem}</Notice>}
       {items.length === 0 ? (
         <p>
           Nothing waits for a judge on this target. Disputes, incidents and ends to sign appear here as phones
@@ -165,7 +190,7 @@ function OneTarget({
               item={item}
               eventId={eventId}
               userId={userId}
-              onSigned={onSigned}
+              onSign={onSign}
             />
           ))}
         </ul>

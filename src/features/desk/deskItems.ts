@@ -23,10 +23,10 @@ export const deskItemKey = (item: Pick<DeskItem, 'target' | 'archerIndex' | 'end
 
 /**
  * The items a read shows, less the ends signed since that read began. A signed end leaves the desk
- * as soon as its signature is stored, without waiting for the desk's ends to be read again; a read
- * begun after the signature was stored is the truth again (a refused signature brings the end back).
- * `signedAt`: by item key, how many reads had begun when its signature was stored; `readNumber`:
- * this read's own number in that count.
+ * at the tap (`Infinity` until its signature is stored: no read shows it), without waiting for the
+ * desk's ends to be read again; a read begun after the signature was stored is the truth again (a
+ * refused signature brings the end back). `signedAt`: by item key, how many reads had begun when
+ * its signature was stored; `readNumber`: this read's own number in that count.
  */
 export function withoutSigned<T extends Pick<DeskItem, 'target' | 'archerIndex' | 'endIndex'>>(
   items: T[],

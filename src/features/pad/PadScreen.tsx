@@ -205,9 +205,12 @@ function Pad({
       ) : (
         <CallerView target={target} ends={ends} endIndex={endIndex} />
       )}
-      {slot && <CardsToSignLink target={target} slot={slot} ends={ends} />}
-      <SteadySyncLine />
-      <SteadyLeaveTask target={target} unsent={unsent} />
+      {/* Below the keys, off the screen while a writer taps: not laid out or painted until scrolled near. */}
+      <div className="space-y-4 [contain-intrinsic-size:auto_400px] [content-visibility:auto]">
+        {slot && <CardsToSignLink target={target} slot={slot} ends={ends} />}
+        <SteadySyncLine />
+        <SteadyLeaveTask target={target} unsent={unsent} />
+      </div>
     </div>
   );
 }

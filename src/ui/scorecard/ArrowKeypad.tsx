@@ -55,6 +55,8 @@ export function ArrowKeypad({ allowed, onValues, onUndo, canUndo, disabled }: Pr
     return () => window.removeEventListener('keydown', onKey);
   }, [allowed, onValues, onUndo, canUndo, disabled]);
 
+  // Each key keeps a compositor layer of its own (`will-change-transform`), so the press shrink runs
+  // on the compositor: no layer made, painted and dropped again, no repaint of the page, per tap.
   return (
     <div className="grid grid-cols-4 gap-2" role="group" aria-label="Arrow values">
       {allowed.map((value) => (
@@ -63,7 +65,7 @@ export function ArrowKeypad({ allowed, onValues, onUndo, canUndo, disabled }: Pr
           type="button"
           disabled={disabled}
           onClick={() => onValues([value])}
-          className={`h-16 min-w-14 rounded-xl text-[32px] font-bold shadow-sm transition-transform active:scale-95 disabled:opacity-40 ${arrowLook(value)}`}
+          className={`h-16 min-w-14 rounded-xl text-[32px] font-bold shadow-sm transition-transform will-change-transform active:scale-95 disabled:opacity-40 ${arrowLook(value)}`}
           aria-label={value === 'M' ? 'Miss (M)' : `Arrow ${value}`}
         >
           {value}
@@ -73,7 +75,7 @@ export function ArrowKeypad({ allowed, onValues, onUndo, canUndo, disabled }: Pr
         type="button"
         onClick={onUndo}
         disabled={!canUndo}
-        className="col-span-2 h-16 rounded-xl border-2 border-ink bg-card text-xl font-bold active:scale-95 disabled:opacity-40"
+        className="col-span-2 h-16 rounded-xl border-2 border-ink bg-card text-xl font-bold will-change-transform active:scale-95 disabled:opacity-40"
       >
         ↶ Undo
       </button>
