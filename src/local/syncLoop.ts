@@ -37,8 +37,9 @@ function load(): void {
         notify();
       },
       () => {
-        // Not fetched (no signal before the app was installed): the next ask tries again.
+        // Not fetched (no signal before the app was installed): tried again with signal, or at the next ask.
         loading = undefined;
+        window.addEventListener('online', load, { once: true });
       },
     );
 }
