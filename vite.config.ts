@@ -5,6 +5,7 @@ import { VitePWA } from 'vite-plugin-pwa';
 import pkg from './package.json' with { type: 'json' };
 import { precompress } from './scripts/precompress';
 import { firstLoadChunkOf } from './scripts/firstLoadChunks';
+import { reactRouterProduction, reactRouterTrim } from './scripts/reactRouterTrim';
 
 export default defineConfig({
   define: {
@@ -51,11 +52,13 @@ export default defineConfig({
       },
     }),
     precompress(),
+    reactRouterTrim(),
   ],
   resolve: {
     // Dexie's package entry wraps its ES5 build; its ES module build for modern browsers is ~2 KiB gzip smaller.
     // Every import of 'dexie' (ours and dexie-react-hooks') goes here, so there is still one copy.
-    alias: [{ find: /^dexie$/, replacement: 'dexie/dist/modern/dexie.mjs' }],
+    // React Router's production build, trimmed of what the app never uses: scripts/reactRouterTrim.ts.
+    alias: [{ find: /^dexie$/, replacement: 'dexie/dist/modern/dexie.mjs' }, ...reactRouterProduction],
   },
   build: {
     manifest: true,

@@ -1,11 +1,14 @@
 /**
  * Writes a brotli (`.br`) and a gzip (`.gz`) copy beside every text file of the built client, once
  * at build time at the highest levels, so the server sends them as they are (express-static-gzip)
- * instead of compressing on every request or sending the raw bytes.
+ * instead of compressing on every request or sending the raw bytes. The gzip copy (what Chromium
+ * gets over plain HTTP, where it offers no brotli: a field server on the local network) is
+ * Zopfli's: standard gzip that any browser reads, ~3 % smaller than zlib's best, slower to write.
  */
 import { readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
-import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
+import { brotliCompressSync, constants } from 'node:zlib';
+import { gzipAsync } from '@gfx/zopfli';
 import type { Plugin } from 'vite';
 
 /** Text files only: images and woff2 fonts are compressed already. */
@@ -22,7 +25,13 @@ function filesUnder(dir: string): string[] {
   });
 }
 
-export function precompressDir(dir: string): void {
+/**
+ * Zopfli's passes over each file: more than a few gain under 0.1 % on these files and cost
+ * seconds of every build.
+ */
+const ZOPFLI_ITERATIONS = 5;
+
+export async function precompressDir(dir: string): Promise<void> {
   for (const path of filesUnder(dir)) {
     if (!COMPRESSIBLE.test(path)) continue;
     const raw = readFileSync(path);
@@ -33,7 +42,7 @@ export function precompressDir(dir: string): void {
         [constants.BROTLI_PARAM_SIZE_HINT]: raw.length,
       },
     });
-    const gz = gzipSync(raw, { level: constants.Z_BEST_COMPRESSION });
+    const gz = await gzipAsync(raw, { numiterations: ZOPFLI_ITERATIONS });
     if (br.length < raw.length) writeFileSync(`${path}.br`, br);
     if (gz.length < raw.length) writeFileSync(`${path}.gz`, gz);
   }
@@ -51,9 +60,7 @@ export function precompress(): Plugin {
     closeBundle: {
       sequential: true,
       order: 'post',
-      handler() {
-        precompressDir(outDir);
-      },
+      handler: () => precompressDir(outDir),
     },
   };
 }

@@ -1,8 +1,5 @@
-import { ApiError, messageOf } from '../api/request';
-import { localDb, type LocalDb } from './db';
-import { syncOnce, type SyncTransport } from './syncEngine';
-import { httpTransport } from './httpTransport';
-import { ownerSettled } from './phoneOwner';
+import { afterNextPaint } from './afterPaint';
+import type { SyncLoop } from './syncLoopRunner';
 
 export type SyncStatus = {
   /** 'signed-out': changes wait until the person signs in again; nothing is dropped. */
@@ -13,136 +10,63 @@ export type SyncStatus = {
   retryInMs?: number;
 };
 
-const MIN_BACKOFF = 3_000;
-const MAX_BACKOFF = 5 * 60_000;
-const IDLE_PULL = 20_000;
-/** A burst of taps goes as one push once the person pauses, and never waits longer than this. */
-const TYPING_PAUSE = 800;
-const MAX_TYPING_WAIT = 4_000;
+type Ask = (loop: SyncLoop) => void;
+
+const IDLE: SyncStatus = { phase: 'idle' };
+const listeners = new Set<() => void>();
+const notify = () => listeners.forEach((l) => l());
+let loop: SyncLoop | undefined;
+const asked: Ask[] = [];
+let loading: Promise<void> | undefined;
 
 /**
- * Keeps the phone and the server in step: after every change, on `online`, when the app comes
- * back to the foreground, and on a timer (Safari has no Background Sync). Failures back off
- * exponentially; typing never waits for it.
+ * The sync loop and the sync engine load after the first paint, out of the pad's first load:
+ * nothing on screen needs them, and a tap is stored without them (the outbox). What the app asks
+ * of the loop before it is there waits here and reaches it once loaded, so a tap made meanwhile
+ * is still sent.
  */
-export class SyncLoop {
-  private status: SyncStatus = { phase: 'idle' };
-  private listeners = new Set<() => void>();
-  private timer: ReturnType<typeof setTimeout> | undefined;
-  private backoff = MIN_BACKOFF;
-  private running: Promise<void> | undefined;
-  /** Milliseconds to wait before the next round, asked for while a round was running. */
-  private again: number | undefined;
-  private userId: number | undefined;
-  /** When the oldest change typed since the last round was made (for MAX_TYPING_WAIT). */
-  private typingSince: number | undefined;
+function load(): void {
+  loading ??= new Promise<void>((resolve) => afterNextPaint(resolve))
+    .then(() => import('./syncLoopRunner'))
+    .then(
+      ({ startSyncLoop }) => {
+        const started = startSyncLoop();
+        started.subscribe(notify);
+        loop = started;
+        for (const ask of asked.splice(0)) ask(started);
+        notify();
+      },
+      () => {
+        // Not fetched (no signal before the app was installed): tried again with signal, or at the next ask.
+        loading = undefined;
+        window.addEventListener('online', load, { once: true });
+      },
+    );
+}
 
-  constructor(
-    private readonly db: LocalDb,
-    private readonly transport: SyncTransport,
-    /** Resolves when the phone is ready to hold this person's data (see phoneOwner). */
-    private readonly ready: () => Promise<void> = () => Promise.resolve(),
-  ) {}
+function ask(what: Ask): void {
+  if (loop) {
+    what(loop);
+    return;
+  }
+  asked.push(what);
+  load();
+}
 
-  getStatus = (): SyncStatus => this.status;
-
-  subscribe = (listener: () => void): (() => void) => {
-    this.listeners.add(listener);
-    return () => this.listeners.delete(listener);
-  };
-
+const front = {
+  getStatus: (): SyncStatus => loop?.getStatus() ?? IDLE,
+  subscribe: (listener: () => void): (() => void) => {
+    listeners.add(listener);
+    return () => listeners.delete(listener);
+  },
   /** Starts syncing for this person (undefined: signed out, so nothing is sent). */
-  setUser(userId: number | undefined): void {
-    if (this.userId === userId && this.status.phase !== 'signed-out') return;
-    this.userId = userId;
-    this.backoff = MIN_BACKOFF;
-    if (userId === undefined) this.set({ phase: 'signed-out' });
-    else this.kick();
-  }
-
+  setUser: (userId: number | undefined): void => ask((l) => l.setUser(userId)),
   /** Ask for a sync now (on online, focus, or when the person asks). */
-  kick = (): void => this.request(0);
+  kick: (): void => ask((l) => l.kick()),
+  /** Ask for a sync after a change on the pad, once typing pauses. */
+  afterChange: (): void => ask((l) => l.afterChange()),
+};
 
-  /**
-   * Ask for a sync after a change on the pad: once typing pauses, so the database is not busy
-   * with a sync's writes while the next tap is stored.
-   */
-  afterChange = (): void => {
-    this.typingSince ??= Date.now();
-    this.request(Math.min(TYPING_PAUSE, Math.max(0, this.typingSince + MAX_TYPING_WAIT - Date.now())));
-  };
+/** The app's one sync loop. */
+export const syncLoop = () => front;
 
-  private request(ms: number): void {
-    if (this.userId === undefined) return;
-    if (this.running) {
-      this.again = Math.min(this.again ?? ms, ms);
-      return;
-    }
-    this.schedule(ms);
-  }
-
-  private schedule(ms: number) {
-    clearTimeout(this.timer);
-    this.timer = setTimeout(() => void this.run(), ms);
-  }
-
-  private set(next: SyncStatus) {
-    this.status = next;
-    this.listeners.forEach((l) => l());
-  }
-
-  private async run(): Promise<void> {
-    const userId = this.userId;
-    if (userId === undefined || this.running) return;
-    this.set({ ...this.status, phase: 'syncing' });
-    this.typingSince = undefined;
-    this.running = (async () => {
-      try {
-        await this.ready();
-        await syncOnce(this.db, userId, this.transport);
-        this.backoff = MIN_BACKOFF;
-        this.set({ phase: 'idle', lastSyncAt: new Date().toISOString() });
-        this.schedule(this.again ?? IDLE_PULL);
-      } catch (error) {
-        if (error instanceof ApiError && error.status === 401) {
-          // Never touch the outbox: the changes wait for the next sign-in.
-          this.set({
-            ...this.status,
-            phase: 'signed-out',
-            lastError: 'Sign in again to send your waiting changes.',
-          });
-          return;
-        }
-        const offline = error instanceof ApiError && error.status === 0;
-        this.set({
-          ...this.status,
-          phase: offline ? 'offline' : 'error',
-          lastError: messageOf(error),
-          retryInMs: this.backoff,
-        });
-        this.schedule(this.backoff);
-        this.backoff = Math.min(this.backoff * 2, MAX_BACKOFF);
-      } finally {
-        this.again = undefined;
-        this.running = undefined;
-      }
-    })();
-    await this.running;
-  }
-}
-
-let loop: SyncLoop | undefined;
-
-/** The app's one sync loop, wired to the browser's online and focus events. */
-export function syncLoop(): SyncLoop {
-  if (!loop) {
-    const created = new SyncLoop(localDb(), httpTransport, ownerSettled);
-    window.addEventListener('online', created.kick);
-    window.addEventListener('focus', created.kick);
-    document.addEventListener('visibilitychange', () => {
-      if (document.visibilityState === 'visible') created.kick();
-    });
-    loop = created;
-  }
-  return loop;
-}

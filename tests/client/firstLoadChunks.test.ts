@@ -8,14 +8,16 @@ const LAYOUT = src('app/AppLayout.tsx');
 const PAD = src('features/pad/PadScreen.tsx');
 const PRACTICE = src('features/practice/PracticeArea.tsx');
 const RESULTS = src('features/results/ResultsScreen.tsx');
+const DESK = src('features/desk/JudgeDeskScreen.tsx');
 
 /** A small module graph: id → what it imports statically. */
 const graph: Record<string, string[]> = {
   [ENTRY]: ['react'],
   [LAYOUT]: ['dexie', 'outbox', 'core'],
   [PAD]: ['outbox', 'padOnly', 'keypad', 'core'],
-  [PRACTICE]: ['keypad'],
-  [RESULTS]: ['core'],
+  [PRACTICE]: ['keypad', 'practiceOnly'],
+  [RESULTS]: ['core', 'resultsOnly'],
+  [DESK]: ['deskOnly', 'padOnly'],
   padOnly: ['dexie'],
 };
 const ctx = { getModuleInfo: (id: string) => ({ importedIds: graph[id] ?? [] }) };
@@ -33,13 +35,21 @@ describe('the first-load chunk groups', () => {
     expect(named('padOnly')).toBe('pad');
   });
 
-  it('leave to the bundler what the practice log or public pages also load, and the screens themselves', () => {
-    // In the pad's group the practice log would load the pad's code; in the layout's, a
-    // spectator's page would load the phone's database.
-    expect(named('keypad')).toBeNull();
-    expect(named('core')).toBeNull();
+  it('put what the pad shares with the practice log in the layout, which the practice log loads anyway', () => {
+    // In the pad's group the practice log would load the pad's code.
+    expect(named('keypad')).toBe('layout');
+  });
+
+  it("put what a spectator's page shares with the pad in a chunk of its own, never with the database", () => {
+    expect(named('core')).toBe('common');
+  });
+
+  it('leave to the bundler the entry, the screens, and what the pad does not load', () => {
     expect(named('react')).toBeNull();
     expect(named(PAD)).toBeNull();
     expect(named(LAYOUT)).toBeNull();
+    expect(named('practiceOnly')).toBeNull();
+    expect(named('resultsOnly')).toBeNull();
+    expect(named('deskOnly')).toBeNull();
   });
 });

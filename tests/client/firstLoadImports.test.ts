@@ -107,6 +107,14 @@ describe("the pad's first load", () => {
     expect(rules).toEqual([]);
   });
 
+  it('reaches no sync loop or sync engine: they load after the first paint (src/local/syncLoop.ts)', () => {
+    const files = new Set<string>();
+    packagesReached(PAD_FIRST_LOAD, files);
+    const sync = [...files].filter((f) => /src\/local\/(syncLoopRunner|syncEngine|httpTransport)\.ts/.test(f));
+    expect(sync).toEqual([]);
+    expect(files.has('src/local/syncLoop.ts')).toBe(true);
+  });
+
   it('is walked into the core', () => {
     const files = new Set<string>();
     packagesReached(PAD_FIRST_LOAD, files);

@@ -2,7 +2,7 @@ import 'fake-indexeddb/auto';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { LocalDb } from '../../src/local/db';
 import { recordChange } from '../../src/local/outbox';
-import { SyncLoop } from '../../src/local/syncLoop';
+import { SyncLoop } from '../../src/local/syncLoopRunner';
 import type { SyncTransport } from '../../src/local/syncEngine';
 import { ApiError } from '../../src/api/request';
 import type { PushRequest } from '../../src/contract/sync';

@@ -26,7 +26,7 @@ beforeAll(async () => {
   writeFileSync(join(clientDir, 'sw.js'), `self.version = ${JSON.stringify('v'.repeat(2000))};`);
   writeFileSync(join(clientDir, 'assets', 'pad-abc123.js'), script);
   writeFileSync(join(clientDir, 'assets', 'tiny-abc123.js'), 'export {};');
-  precompressDir(clientDir);
+  await precompressDir(clientDir);
   withClient = await startTestServer({ clientDir });
 });
 afterAll(async () => {
