@@ -27,7 +27,8 @@ export async function startBenchServer(port: number, dir: string): Promise<Bench
   });
   for (let i = 0; ; i += 1) {
     if (await answers()) return { base, dir, child };
-    if (i > 100) throw new Error('The bench server did not start.');
+    // Seeding the demo takes ~30 s when the machine is busy.
+    if (i > 300) throw new Error('The bench server did not start.');
     await new Promise((r) => setTimeout(r, 200));
   }
 }
