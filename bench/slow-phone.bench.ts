@@ -10,7 +10,7 @@
  *   viewport, touch taps, throttle and warm-up), each pad tap followed by one there: budget p95 ≤
  *   1.5× the one-button page's.
  * Needs a built client (`npm run build`) and Debian's Chromium. Figures are printed, never asserted.
- * SLOW_PHONE_PARTS=taps (or loads) runs one part alone; CLIENT_DIR=<folder> serves another build.
+ * SLOW_PHONE_PARTS=taps (of cold, offline, taps) runs parts alone, SLOW_PHONE_LOADS more loads; CLIENT_DIR=<folder> serves another build.
  */
 import { chromium, devices, type Browser, type BrowserContext, type Page } from '@playwright/test';
 import { chromiumArgs, chromiumPath } from '../tests/support/chromium';
@@ -24,7 +24,9 @@ const WEAK_SIGNAL = {
   downloadThroughput: 1_600_000 / 8,
   uploadThroughput: 750_000 / 8,
 };
-const LOADS = 3;
+const LOADS = Number(process.env.SLOW_PHONE_LOADS ?? 3);
+/** Which parts run (`SLOW_PHONE_PARTS=offline` for the offline repeat load alone). */
+const PARTS = (process.env.SLOW_PHONE_PARTS ?? 'cold,offline,taps').split(',');
 const TAPS = 120;
 const TAP_PAUSE_MS = 250;
 const WARM_UP_TAPS = 6;
@@ -201,7 +203,9 @@ async function offlineRepeat(browser: Browser, server: Awaited<ReturnType<typeof
   return lcps;
 }
 
-const server = await startBenchServer(4474, '.tmp/bench-slow-phone');
+// Another port when two people bench at once (`SLOW_PHONE_PORT`).
+const port = Number(process.env.SLOW_PHONE_PORT ?? 4474);
+const server = await startBenchServer(port, `.tmp/bench-slow-phone-${port}`);
 try {
   const browser = await chromium.launch({ executablePath: chromiumPath(), args: chromiumArgs });
   // Cold loads and taps without a service worker: every file comes over the (slowed) network.
@@ -213,32 +217,35 @@ try {
   const s = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
   const loads = (label: string, lcps: number[], budgetMs: number) =>
     console.log(
-      `${label}: LCP median ${s(median(lcps))}, worst ${s(Math.max(...lcps))} over ${lcps.length} loads (budget ≤ ${s(budgetMs)})`,
+      `${label}: LCP median ${s(median(lcps))}, worst ${s(Math.max(...lcps))} over ${lcps.length} loads (budget ≤ ${s(budgetMs)}; each: ${lcps.map(s).join(', ')})`,
     );
   console.log(
     `CPU ${CPU_SLOWDOWN}× slower; network 1.6 Mbps down, 750 kbps up, ${WEAK_SIGNAL.latency} ms round trip.`,
   );
-  const parts = process.env.SLOW_PHONE_PARTS ?? 'loads,taps';
-  if (parts.includes('loads')) {
+  if (PARTS.includes('cold')) {
     loads('cold pad', await coldLoads(context, padUrl, (p) => p.getByTestId('end-number').waitFor()), 2500);
     loads(
       'cold home (signed in)',
       await coldLoads(context, `${server.base}/`, (p) => p.getByTestId('signed-in-name').waitFor()),
       2500,
     );
+  }
+  if (PARTS.includes('offline')) {
     loads('offline repeat pad (service worker)', await offlineRepeat(browser, server), 1000);
   }
-  if (parts.includes('taps')) {
-    const { pad, floor } = await tapsSideBySide(page, await oneButtonPage(context, server.base));
-    const figures = (ms: number[]) =>
-      `p50 ${percentile(ms, 50).toFixed(0)} ms, p95 ${percentile(ms, 95).toFixed(0)} ms, max ${Math.max(...ms).toFixed(0)} ms (${ms.length} taps)`;
-    console.log(`tap → next paint, one-button page: ${figures(floor)}`);
-    console.log(`tap → next paint, pad arrow keys: ${figures(pad)}`);
-    console.log(
-      `pad p95 / one-button p95 = ${(percentile(pad, 95) / percentile(floor, 95)).toFixed(2)} (budget ≤ 1.5)`,
-    );
-  }
+  if (PARTS.includes('taps')) await tapFigures(page, context);
   await browser.close();
 } finally {
   server.child.kill('SIGTERM');
+}
+
+async function tapFigures(page: Page, context: BrowserContext) {
+  const { pad, floor } = await tapsSideBySide(page, await oneButtonPage(context, server.base));
+  const figures = (ms: number[]) =>
+    `p50 ${percentile(ms, 50).toFixed(0)} ms, p95 ${percentile(ms, 95).toFixed(0)} ms, max ${Math.max(...ms).toFixed(0)} ms (${ms.length} taps)`;
+  console.log(`tap → next paint, one-button page: ${figures(floor)}`);
+  console.log(`tap → next paint, pad arrow keys: ${figures(pad)}`);
+  console.log(
+    `pad p95 / one-button p95 = ${(percentile(pad, 95) / percentile(floor, 95)).toFixed(2)} (budget ≤ 1.5)`,
+  );
 }

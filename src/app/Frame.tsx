@@ -2,6 +2,7 @@ import { Suspense, lazy, type ReactNode } from 'react';
 import { Link, Outlet } from 'react-router-dom';
 import { ThemeToggle } from '../ui/ThemeToggle';
 import { RingMark } from '../ui/RingMark';
+import { useFirstScreenShown } from '../local/firstScreen';
 
 // Nothing to show before a new version has downloaded: its code (and the service worker's
 // registration) comes after the first paint, out of every page's first load.
@@ -9,6 +10,8 @@ const UpdatePrompt = lazy(async () => ({ default: (await import('./pwa/UpdatePro
 
 /** Ringcall's page frame: the header with the mark and the theme, the update prompt, the screen. */
 export function Frame({ status }: { status?: ReactNode }) {
+  // Opened on the pad, the prompt (and the service worker's registration) waits until it has drawn.
+  const shown = useFirstScreenShown();
   return (
     <div className="flex min-h-dvh flex-col">
       <header className="sticky top-0 z-40 bg-ink text-white shadow">
@@ -23,9 +26,11 @@ export function Frame({ status }: { status?: ReactNode }) {
           </div>
         </div>
       </header>
-      <Suspense fallback={null}>
-        <UpdatePrompt />
-      </Suspense>
+      {shown && (
+        <Suspense fallback={null}>
+          <UpdatePrompt />
+        </Suspense>
+      )}
       <main className="mx-auto w-full max-w-3xl flex-1 px-4 py-5">
         <Outlet />
       </main>

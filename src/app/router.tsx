@@ -3,6 +3,7 @@ import { Outlet, useRoutes, type RouteObject } from 'react-router-dom';
 import { Frame } from './Frame';
 import { lazyScreen } from './lazyScreen';
 import { RouteBoundary } from './RouteBoundary';
+import { opensOnPad } from '../local/firstScreen';
 import { authRoutes } from '../features/auth/routes';
 import { joinRoutes } from '../features/join/routes';
 import { padRoutes } from '../features/pad/routes';
@@ -30,6 +31,9 @@ const loadAppLayout = async () => ({ default: (await import('./AppLayout')).AppL
 const AppLayout = lazy(loadAppLayout);
 // Fetched at once (beside the entry) for every page but the public results, which never need it.
 if (typeof location !== 'undefined' && !location.pathname.startsWith('/results/')) void loadAppLayout();
+// The pad too, when it is the page opened: offline, the service worker's copy of the page has no
+// preload hints, and the pad's chunks would otherwise be asked for only once the layout has run.
+if (opensOnPad) void import('../features/pad/PadScreen');
 
 /**
  * Each screen is its own lazily loaded chunk, so a phone downloads the pad without the organizer's

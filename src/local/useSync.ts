@@ -5,6 +5,7 @@ import { syncLoop, type SyncStatus } from './syncLoop';
 import { summarizeWaiting, type WaitingSummary } from './waitingSummary';
 import { useMe } from './me';
 import { usePhoneOwner } from './phoneOwner';
+import { afterFirstScreen } from './firstScreen';
 
 export function useSyncStatus(): SyncStatus {
   const loop = syncLoop();
@@ -43,7 +44,9 @@ export function useSyncBridge(): void {
   useEffect(() => {
     // Until the sign-in is known (offline start), keep the loop idle rather than "signed out".
     if (!known) return;
-    syncLoop().setUser(userId);
+    // Opened on the pad, the first round waits until the pad has drawn; no change is lost
+    // meanwhile: the round then sends everything waiting in the outbox.
+    return afterFirstScreen(() => syncLoop().setUser(userId));
   }, [userId, known]);
 }
 

@@ -1,4 +1,4 @@
-import { memo, useState } from 'react';
+import { memo, useEffect, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { endsOfRound } from '../../core';
 import { padEndView } from './padEndView';
@@ -8,6 +8,7 @@ import type { LocalEnd } from '../../local/endFacts';
 import { SafetyNote } from '../../ui/SafetyNote';
 import { useMe } from '../../local/me';
 import { usePhoneOwner } from '../../local/phoneOwner';
+import { screenShown } from '../../local/firstScreen';
 import { CardsToSignLink } from '../../ui/scorecard/CardsToSignLink';
 import { CallerView } from './CallerView';
 import { openFlags } from '../../ui/scorecard/endFlags';
@@ -223,6 +224,9 @@ export function PadScreen() {
   // After a sign-in ran out, the pad still opens for the person whose phone it is (not for anyone else).
   const owner = usePhoneOwner();
   const data = usePadData(sessionId, targetNumber, me.data?.user.id ?? owner);
+  useEffect(() => {
+    if (data !== undefined) screenShown();
+  }, [data]);
   if (data === undefined) return <p>Opening the pad…</p>;
   if (data === null) {
     return (
