@@ -7,7 +7,7 @@ import { routeSizes } from '../../scripts/routeSizes';
  * weighs now, so any growth fails here. The others are their goals.
  */
 const CEILINGS: Record<string, number> = {
-  'features/pad/PadScreen': 134.5,
+  'features/pad/PadScreen': 135,
   'features/practice/PracticeArea': 150,
   'features/results/ResultsScreen': 110,
 };
