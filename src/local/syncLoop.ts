@@ -41,7 +41,9 @@ function load(): void {
         loading = undefined;
         window.addEventListener('online', load, { once: true });
       },
-    );
+    )
+    // A loop that fetched but could not start is a fault to see, not an unhandled rejection.
+    .catch((error: unknown) => console.error('The sync loop could not start:', error));
 }
 
 function ask(what: Ask): void {
