@@ -155,6 +155,8 @@ test('an organizer builds an event from nothing to printed scorecards and an inv
   await expect(page.getByTestId('target-1')).not.toContainText('Dagny Vik');
   // Moving a compound archer onto a recurve target is shown as a conflict, not refused.
   await page.getByRole('button', { name: 'Move or swap Emrys Cole' }).click();
+  // The form still holds the last archer moved until it has taken this one.
+  await expect(page.getByLabel('Archer', { exact: true }).locator('option:checked')).toHaveText(/Emrys Cole/);
   await page.getByLabel('Target', { exact: true }).fill('3');
   await page.getByLabel('Position', { exact: true }).selectOption('B');
   await page.getByRole('button', { name: 'Move here' }).click();
