@@ -87,7 +87,8 @@ test("a shoot-off recorded offline reaches the standings when the judge's phone 
 
   // Signal again: the arrows go once and the server's standings settle the tie.
   await judge.context().setOffline(false);
-  await expect(rowB.getByTestId('shootoff-arrow-1')).toContainText('9 · 25 mm ✓ synced', { timeout: 30_000 });
+  // 17 s alone, up to ~40 s late in a whole run (see issue 15's note: why the first round after signal is slow there).
+  await expect(rowB.getByTestId('shootoff-arrow-1')).toContainText('9 · 25 mm ✓ synced', { timeout: 60_000 });
   await expect(
     judge.getByTestId(`shootoff-group-${sessionId}:${divisions[0]!.division_id}:720`),
   ).toContainText('Settled by the shoot-off', { timeout: 30_000 });
