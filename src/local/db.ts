@@ -10,6 +10,7 @@ import type {
 import type { PracticeDeleteArgs, PracticeEndDto, PracticeSessionDto } from '../contract/practice';
 import { Dexie, type EntityTable } from 'dexie';
 import { storeRecords } from './cardRecords';
+import { practiceWriteCounter } from './practiceWriteCount';
 import type { BowStyle, FaceId, Venue } from '../core';
 import type { PracticeArrow } from '../core/practice';
 import type { ProgressPart } from '../core/practice/progressParts';
@@ -149,11 +150,18 @@ export class LocalDb extends Dexie {
   practiceSessions!: EntityTable<PracticeSessionRow, 'id'>;
   practiceEnds!: EntityTable<PracticeEndRow, 'key'>;
   matchPads!: EntityTable<JoinedMatch, 'key'>;
+  /** Read-write transactions over practice opened by this page so far (practiceWriteCount.ts). */
+  practiceWrites = 0;
 
   constructor(name = 'ringcall') {
     // No live-query cache: a tap's write bypasses Dexie (see writeAtOnce), and a cached answer
     // would not see it. Every live query reads IndexedDB again when a change is announced.
     super(name, { cache: 'disabled' });
+    this.use(
+      practiceWriteCounter(() => {
+        this.practiceWrites += 1;
+      }),
+    );
     this.version(1).stores({
       meta: 'key',
       targets: 'key, userId',

@@ -1,6 +1,6 @@
 import 'fake-indexeddb/auto';
 import { Dexie } from 'dexie';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { LocalDb } from '../../src/local/db';
 import { forgetOthers } from '../../src/local/forgetOthers';
 import {
@@ -74,6 +74,26 @@ describe('practice on the phone', () => {
     expect((await db.practiceSessions.get(id))?.progress).toEqual([
       { distanceM: 18, faceId: 'full-40', arrows: 5, points: 44 },
     ]);
+    db.close();
+  });
+
+  it('a tap taken while an earlier tap is still being written builds on that tap (keys typed fast)', async () => {
+    const db = new LocalDb('practice-store-overlap');
+    const id = await startPracticeSession(free, db);
+    // "X" then "10" asked for at once, and "9" asked for as soon as "X" is stored, while "10" may
+    // still be on its way: "9" must not be written on top of "X" alone.
+    const first = addPracticeArrow(id, { value: 'X' }, db);
+    const second = addPracticeArrow(id, { value: '10' }, db);
+    await first;
+    const third = addPracticeArrow(id, { value: '9' }, db);
+    expect(await Promise.all([second, third])).toEqual([true, true]);
+    expect((await practiceEnds(id, db)).map((e) => e.arrows.map((a) => a.value))).toEqual([['X', '10', '9']]);
+    // A tap after the last one was stored builds on what this page wrote, with no read.
+    const read = vi.spyOn(db.practiceSessions, 'get');
+    expect(await addPracticeArrow(id, { value: '8' }, db)).toBe(true);
+    expect(await addPracticeArrow(id, { value: '7' }, db)).toBe(true);
+    expect(read).not.toHaveBeenCalled();
+    expect((await practiceEnds(id, db)).map((e) => e.arrows.length)).toEqual([3, 2]);
     db.close();
   });
 

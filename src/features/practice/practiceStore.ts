@@ -11,7 +11,7 @@ import type { PracticeArrow } from '../../core/practice';
 import type { ProgressSession } from '../../core/practice/progress';
 import { progressParts, type ProgressPart } from '../../core/practice/progressParts';
 import { endSetup, nextEndIndex } from './plan';
-import { rememberWritten, takeWritten } from './writtenSessions';
+import { buildsOnWritten, rememberWritten, takeWritten } from './writtenSessions';
 import {
   practiceEndDto,
   practiceSender,
@@ -122,9 +122,10 @@ export async function addPracticeArrow(
   const sender = await practiceSender(db, phoneOwner());
   const known = takeWritten(db.name, sessionId);
   const stored = await db.transaction('rw', practiceTables(db), async () => {
+    const writes = db.practiceWrites;
     // Both reads at once, when this page did not write them last: each round trip inside the
     // transaction delays its commit.
-    const [session, ends] = known
+    const [session, ends] = buildsOnWritten(db, known)
       ? [known.session, known.ends]
       : await Promise.all([db.practiceSessions.get(sessionId), practiceEnds(sessionId, db)]);
     if (!session || session.finishedAt) return undefined;
@@ -150,7 +151,7 @@ export async function addPracticeArrow(
     const closed = finished ? { ...session, finishedAt: at } : session;
     const row = { ...closed, progress: progressParts(now) };
     // Every write asked for at once, the session whole (an update reads it again first).
-    const writes = Promise.all([db.practiceEnds.put(end), db.practiceSessions.put(row)]);
+    const asked = Promise.all([db.practiceEnds.put(end), db.practiceSessions.put(row)]);
     await sendPractice(db, sender, session.ownerId, [
       { kind: 'practice.end', args: practiceEndDto(end) },
       ...(finished ? [{ kind: 'practice.session' as const, args: practiceSessionDto(closed) }] : []),
@@ -158,8 +159,8 @@ export async function addPracticeArrow(
     // Nothing more to write: committed now, without waiting for the writes' answers to come back
     // to the page first (on a busy phone they queue behind the frame the tap paints).
     commitNow();
-    await writes;
-    return { session: row, ends: now };
+    await asked;
+    return { session: row, ends: now, writes };
   });
   if (stored) rememberWritten(db.name, stored);
   return stored !== undefined;
