@@ -25,6 +25,8 @@ export class SyncLoop {
   private running: Promise<void> | undefined;
   /** Milliseconds to wait before the next round, asked for while a round was running. */
   private again: number | undefined;
+  /** Signal came back (or the person asked) while a round was running: a failed round retries at once. */
+  private kicked = false;
   private userId: number | undefined;
   /** When the oldest change typed since the last round was made (for MAX_TYPING_WAIT). */
   private typingSince: number | undefined;
@@ -53,7 +55,10 @@ export class SyncLoop {
   }
 
   /** Ask for a sync now (on online, focus, or when the person asks). */
-  kick = (): void => this.request(0);
+  kick = (): void => {
+    if (this.running) this.kicked = true;
+    this.request(0);
+  };
 
   /**
    * Ask for a sync after a change on the pad: once typing pauses, so the database is not busy
@@ -112,10 +117,13 @@ export class SyncLoop {
           lastError: messageOf(error),
           retryInMs: this.backoff,
         });
-        this.schedule(this.backoff);
+        // A round that failed because it began just before signal returned must not make the
+        // 'online' that came meanwhile wait for the backoff (up to minutes after a long time offline).
+        this.schedule(this.kicked ? 0 : this.backoff);
         this.backoff = Math.min(this.backoff * 2, MAX_BACKOFF);
       } finally {
         this.again = undefined;
+        this.kicked = false;
         this.running = undefined;
       }
     })();

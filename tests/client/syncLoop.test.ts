@@ -125,6 +125,35 @@ describe('the sync loop', () => {
     expect(loop.getStatus().retryInMs).toBe(12_000);
   });
 
+  it('signal returning while a round fails on the way is not left waiting for the backoff', async () => {
+    const db = freshDb();
+    let online = false;
+    let calls = 0;
+    let failNow: (() => void) | undefined;
+    const transport: SyncTransport = {
+      push: async () => ({ results: [], lastSeq: 0 }) as unknown as Awaited<ReturnType<SyncTransport['push']>>,
+      pull: async (cursor) => {
+        calls += 1;
+        if (online) return { changes: [], cursor, hasMore: false };
+        // Asked while offline; the answer (a failure) comes after signal is back.
+        await new Promise<void>((resolve) => (failNow = resolve));
+        throw new ApiError(0, 'offline', 'No connection');
+      },
+    };
+    const loop = new SyncLoop(db, transport);
+    loop.setUser(5);
+    await vi.advanceTimersByTimeAsync(0);
+    await vi.waitFor(() => expect(failNow).toBeDefined());
+    // The 'online' event: the round under way still fails, and the next one follows at once.
+    online = true;
+    loop.kick();
+    failNow!();
+    await advance(loop, 0);
+    await advance(loop, 0);
+    expect(calls).toBe(2);
+    expect(loop.getStatus().phase).toBe('idle');
+  });
+
   it('stops on a 401 without touching the outbox, and resumes when the person signs in again', async () => {
     const db = freshDb();
     await tap(db, ['X']);
