@@ -31,7 +31,7 @@ test('with no signal, practice just recorded shows on the progress screen: chart
 
   await page.goto('/practice/progress');
   await expect(page.getByRole('heading', { level: 1, name: 'Progress' })).toBeVisible();
-  await expect(page.getByText('No practice yet')).toBeVisible();
+  await expect(page.getByText('Nothing to draw yet')).toBeVisible();
   await checkA11y(page, 'progress, empty');
   await page.screenshot({ path: '.tmp/screens/progress-empty.png', fullPage: true });
 

@@ -19,7 +19,7 @@ import { SafetyNote } from '../../ui/SafetyNote';
 import { BOW_STYLE_LABELS, sessionTitle } from './plan';
 import { useStored } from './useStored';
 import { practiceCsv } from './practiceCsv';
-import { warmProgress, warmProgressView } from './progress/loadProgress';
+import { warmProgressView } from './progress/loadProgress';
 import {
   deletePracticeSession,
   ownPractice,
@@ -56,7 +56,6 @@ function savedShaft(): string {
 
 /** The practice log: start a session in two taps, and the sessions kept on this phone. */
 export function PracticeScreen() {
-  useEffect(warmProgress, []);
   return (
     <div className="space-y-6">
       <header className="space-y-2">

@@ -62,7 +62,7 @@ export function ProgressScreen() {
       {sessions && sessions.length === 0 && (
         <div className="surface space-y-3 rounded-xl border border-line bg-card p-4">
           <p className="text-lg">
-            No practice yet. Record a session in the practice log: its average per arrow will be drawn here,
+            Nothing to draw yet. Record a session in the practice log: its average per arrow will be drawn here,
             week by week.
           </p>
           <Link

@@ -54,15 +54,18 @@ function whenIdle(run: () => void): () => void {
 /**
  * Fetches and runs the progress screen's and the chart's code while the practice log sits idle
  * (a chart drawn once, unseen: warmChart), so the tap on "Progress over weeks" does not wait for
- * them to be fetched and compiled. A failed warm-up changes nothing: the tap loads them again.
+ * them to be fetched and compiled; then `warmed`. A failed warm-up changes nothing: the tap loads
+ * them again.
  */
-export function warmProgress(): () => void {
+export function warmProgress(warmed: () => void): () => void {
   let cancelled = false;
   const stop = whenIdle(() => {
     void loadProgressScreen()
       .then(() => (cancelled ? undefined : loadProgressChart()))
       .then((chart) => {
-        if (!cancelled) chart?.warmChart();
+        if (cancelled || !chart) return;
+        chart.warmChart();
+        warmed();
       })
       .catch(() => undefined);
   });
