@@ -12,7 +12,13 @@ export function useSyncStatus(): SyncStatus {
   return useSyncExternalStore(loop.subscribe, loop.getStatus, loop.getStatus);
 }
 
-const NOTHING_WAITING: WaitingSummary = { changes: 0, ends: 0, signatures: 0, shootOffArrows: 0 };
+const NOTHING_WAITING: WaitingSummary = {
+  changes: 0,
+  ends: 0,
+  signatures: 0,
+  shootOffArrows: 0,
+  practiceSessions: 0,
+};
 
 /**
  * The changes of the person whose data this phone holds that the server has not accepted yet, as

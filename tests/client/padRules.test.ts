@@ -218,7 +218,7 @@ describe('what waits to sync, in words', () => {
       Array.from({ length: 6 }, () => ({ kind: 'end.write' as const, endKey: `1:${archer}:0` })),
     );
     const summary = summarizeWaiting(taps);
-    expect(summary).toEqual({ changes: 24, ends: 4, signatures: 0, shootOffArrows: 0 });
+    expect(summary).toEqual({ changes: 24, ends: 4, signatures: 0, shootOffArrows: 0, practiceSessions: 0 });
     expect(waitingWords(summary)).toBe('4 ends');
     expect(changesWords(summary)).toBe('24 changes');
   });
@@ -241,5 +241,21 @@ describe('what waits to sync, in words', () => {
     ]);
     expect(summary.shootOffArrows).toBe(2);
     expect(waitingWords(summary)).toBe('1 signature and 2 shoot-off arrows');
+  });
+
+  it('names a practice session waiting with no end of its own, and folds it into its ends otherwise', () => {
+    // Just started (its setup alone), and another deleted: nothing reads "· waiting" with no noun.
+    const started = summarizeWaiting([
+      { kind: 'practice.session', endKey: 'practice:s1' },
+      { kind: 'practice.delete', endKey: 'practice:s2' },
+    ]);
+    expect(waitingWords(started)).toBe('2 practice sessions');
+    const shot = summarizeWaiting([
+      { kind: 'practice.session', endKey: 'practice:s1' },
+      { kind: 'practice.end', endKey: 'practice:s1:0' },
+      { kind: 'practice.end', endKey: 'practice:s1:0' },
+    ]);
+    expect(waitingWords(shot)).toBe('1 end');
+    expect(changesWords(shot)).toBe('3 changes');
   });
 });
