@@ -2,6 +2,7 @@ import { Suspense, lazy, type ReactNode } from 'react';
 import { Link, Outlet } from 'react-router-dom';
 import { ThemeToggle } from '../ui/ThemeToggle';
 import { RingMark } from '../ui/RingMark';
+import { NARROW_WHILE_WAITING } from '../ui/frameRoom';
 import { useFirstScreenShown } from '../local/firstScreen';
 
 // Nothing to show before a new version has downloaded: its code (and the service worker's
@@ -14,11 +15,16 @@ export function Frame({ status }: { status?: ReactNode }) {
   const shown = useFirstScreenShown();
   return (
     <div className="flex min-h-dvh flex-col">
-      <header className="sticky top-0 z-40 bg-ink text-white shadow">
-        <div className="mx-auto flex max-w-3xl flex-wrap items-center gap-x-3 gap-y-2 px-4 py-3">
-          <Link to="/" className="flex min-h-12 items-center gap-2 text-2xl font-bold tracking-tight">
+      {/* On a phone, while the badge says what is waiting, the name beside the mark and the theme's
+          word give way to it (frameRoom.ts). */}
+      <header className="group/frame sticky top-0 z-40 bg-ink text-white shadow">
+        <div className="mx-auto flex max-w-3xl flex-wrap items-center gap-x-2 gap-y-2 min-[480px]:gap-x-3 px-4 py-3">
+          <Link
+            to="/"
+            className="flex min-h-12 min-w-12 items-center gap-2 text-2xl font-bold tracking-tight"
+          >
             <RingMark className="h-9 w-9" />
-            Ringcall
+            <span className={NARROW_WHILE_WAITING}>Ringcall</span>
           </Link>
           <div className="ml-auto flex flex-wrap items-center justify-end gap-2">
             <ThemeToggle />

@@ -20,13 +20,17 @@ export function ConnectionBadge() {
           .filter(Boolean)
           .join('. ') || undefined
       }
-      className={`inline-flex items-center gap-2 whitespace-nowrap rounded-full border-2 px-3 py-1 text-base font-bold ${
+      className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border-2 px-2.5 py-1 min-[480px]:gap-2 min-[480px]:px-3 text-base font-bold ${
         attention ? 'border-caution-bg bg-caution-bg text-caution-ink' : 'border-white/70 text-white'
       }`}
     >
       <span aria-hidden="true">{attention ? '▲' : status.phase === 'syncing' ? '↻' : '●'}</span>
       {label}
-      {waiting > 0 && <span data-testid="waiting-count">· {waitingWords(summary)} waiting</span>}
+      {waiting > 0 && (
+        <span data-testid="waiting-count" data-waiting="">
+          · {waitingWords(summary)} waiting
+        </span>
+      )}
     </span>
   );
 }

@@ -1,4 +1,5 @@
 import { useEffect, useState } from 'react';
+import { NARROW_WHILE_WAITING } from './frameRoom';
 
 const KEY = 'ringcall.theme';
 
@@ -19,7 +20,7 @@ export function ThemeToggle() {
         sun ? 'bg-white text-ink' : 'text-white'
       }`}
     >
-      <span aria-hidden="true">{sun ? '✓' : '☀'}</span> Sun
+      <span aria-hidden="true">{sun ? '✓' : '☀'}</span> <span className={NARROW_WHILE_WAITING}>Sun</span>
     </button>
   );
 }
