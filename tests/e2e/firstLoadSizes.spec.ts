@@ -6,7 +6,7 @@ import { GOALS, meetsGoal, routeSizes } from '../../scripts/routeSizes';
  * each route with a goal meets it, and the pad's whole first load (its CSS too) does not grow
  * past what it weighs now.
  */
-const PAD_WHOLE_CEILING_KIB = 135;
+const PAD_WHOLE_CEILING_KIB = 136;
 
 test('the pad, the practice log and the public results load within their goals', () => {
   const rows = routeSizes();
