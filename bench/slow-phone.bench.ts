@@ -4,7 +4,8 @@
  * through the DevTools protocol.
  * - Cold load (empty HTTP cache, no service worker; the phone has signed in and joined) of the pad
  *   and of the home screen: largest contentful paint, budget ≤ 2.5 s.
- * - Offline repeat load of the pad from the service worker: largest contentful paint, budget ≤ 1 s.
+ * - Offline repeat load of the pad from the service worker: largest contentful paint, budget ≤ 1 s,
+ *   beside the floor: a one-line page from a service worker, loaded the same way (support/offlineFloor.ts).
  * - Tap → next paint on the pad's keys (Event Timing: an interaction's longest event, from the
  *   input to the frame after its handlers), against a one-button page tapped the same way (same
  *   viewport, touch taps, throttle and warm-up), each pad tap followed by one there: budget p95 ≤
@@ -16,6 +17,7 @@ import { chromium, devices, type Browser, type BrowserContext, type Page } from 
 import { chromiumArgs, chromiumPath } from '../tests/support/chromium';
 import { joinAsWriter, startBenchServer } from './support/fieldPhone';
 import { median, percentile } from './support/stats';
+import { offlineFloor } from './support/offlineFloor';
 
 const CPU_SLOWDOWN = 4;
 const WEAK_SIGNAL = {
@@ -245,6 +247,15 @@ try {
   }
   if (PARTS.includes('offline')) {
     loads('offline repeat pad (service worker)', await offlineRepeat(browser, server), 1000);
+    const floor = await offlineFloor(browser, LOADS, async (tab, url) => {
+      await slowDown(tab, false);
+      await tab.goto(url);
+      await tab.waitForTimeout(500);
+      const lcp = await largestContentfulPaint(tab);
+      await tab.close();
+      return lcp;
+    });
+    loads('  floor: a one-line page from a service worker, the same way', floor, 1000);
   }
   if (PARTS.includes('taps')) await tapFigures(page, context);
   await browser.close();
