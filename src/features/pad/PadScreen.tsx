@@ -206,8 +206,7 @@ function Pad({
       ) : (
         <CallerView target={target} ends={ends} endIndex={endIndex} />
       )}
-      {/* Below the keys, off the screen while a writer taps: not laid out or painted until scrolled near. */}
-      <div className="space-y-4 [contain-intrinsic-size:auto_400px] [content-visibility:auto]">
+      <div className="space-y-4">
         {slot && <CardsToSignLink target={target} slot={slot} ends={ends} />}
         <SteadySyncLine />
         <SteadyLeaveTask target={target} unsent={unsent} />
