@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'react';
-import { NARROW_WHILE_WAITING } from './frameRoom';
+import { NARROW_WHILE_WAITING, NARROW_WHILE_WAITING_HIDDEN, NARROW_WHILE_WAITING_SHOWN } from './frameRoom';
 
 const KEY = 'ringcall.theme';
 
@@ -20,7 +20,14 @@ export function ThemeToggle() {
         sun ? 'bg-white text-ink' : 'text-white'
       }`}
     >
-      <span aria-hidden="true">{sun ? '✓' : '☀'}</span> <span className={NARROW_WHILE_WAITING}>Sun</span>
+      {/* Where the word gives way (frameRoom.ts), the sun stays: a lone ✓ would not say what is on. */}
+      <span aria-hidden="true" className={NARROW_WHILE_WAITING_HIDDEN}>
+        {sun ? '✓' : '☀'}
+      </span>
+      <span aria-hidden="true" className={`hidden ${NARROW_WHILE_WAITING_SHOWN}`}>
+        ☀
+      </span>{' '}
+      <span className={NARROW_WHILE_WAITING}>Sun</span>
     </button>
   );
 }

@@ -4,3 +4,7 @@
  * `group/frame` is the header; the badge's count carries `data-waiting`.
  */
 export const NARROW_WHILE_WAITING = 'max-[479px]:group-has-[[data-waiting]]/frame:sr-only';
+
+/** The same condition: a part left out altogether, and one shown only then. */
+export const NARROW_WHILE_WAITING_HIDDEN = 'max-[479px]:group-has-[[data-waiting]]/frame:hidden';
+export const NARROW_WHILE_WAITING_SHOWN = 'max-[479px]:group-has-[[data-waiting]]/frame:inline';
