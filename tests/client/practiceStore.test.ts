@@ -97,6 +97,21 @@ describe('practice on the phone', () => {
     db.close();
   });
 
+  it('a session wiped from the phone (a sign-out on a shared phone) is not written back from what a tap remembered', async () => {
+    const db = new LocalDb('practice-store-wiped');
+    const id = await startPracticeSession(free, db);
+    expect(await addPracticeArrow(id, { value: 'X' }, db)).toBe(true);
+    // The next person's sign-in clears the last one's practice, in a transaction of its own.
+    await db.transaction('rw', db.practiceSessions, db.practiceEnds, async () => {
+      await db.practiceEnds.where('sessionId').equals(id).delete();
+      await db.practiceSessions.delete(id);
+    });
+    expect(await addPracticeArrow(id, { value: '9' }, db)).toBe(false);
+    expect(await db.practiceSessions.get(id)).toBeUndefined();
+    expect(await practiceEnds(id, db)).toEqual([]);
+    db.close();
+  });
+
   it('an open-ended session goes on until finished; a catalog round follows its distances', async () => {
     const db = new LocalDb('practice-store-2');
     const open = await startPracticeSession({ ...free, plannedEnds: null, arrowsPerEnd: 1 }, db);
