@@ -1,6 +1,7 @@
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { devices, type Browser, type Page } from '@playwright/test';
+import type { Page } from '@playwright/test';
+import { closeAppTabs, phoneProfile } from './installedPhone';
 
 /** One line of text, the size of the pad's end heading, and the service worker that keeps it. */
 const PAGE = `<!doctype html><meta charset="utf-8">
@@ -14,11 +15,10 @@ self.addEventListener('fetch', (e) => e.respondWith(caches.match('/')));`;
 
 /**
  * The floor of an offline repeat load on this browser and throttle: a one-line page served by a
- * service worker from its cache, opened in a new tab offline as the pad is (`load` gives each
- * tab its throttle and returns its largest contentful paint).
+ * service worker from its cache, reopened offline in a phone's profile as the pad is (`load`
+ * gives each tab its throttle and returns its largest contentful paint).
  */
 export async function offlineFloor(
-  browser: Browser,
   loads: number,
   load: (page: Page, url: string) => Promise<number>,
 ): Promise<number[]> {
@@ -29,18 +29,20 @@ export async function offlineFloor(
   });
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}/`;
-  const context = await browser.newContext({ ...devices['Pixel 7'] });
+  const phone = await phoneProfile();
+  const { context } = phone;
   try {
     const page = await context.newPage();
     await page.goto(url);
     await page.evaluate('navigator.serviceWorker.ready.then(() => new Promise((r) => setTimeout(r, 200)))');
     await page.reload();
+    await closeAppTabs(context);
     await context.setOffline(true);
     const lcps: number[] = [];
     for (let i = 0; i < loads; i += 1) lcps.push(await load(await context.newPage(), url));
     return lcps;
   } finally {
-    await context.close();
+    await phone.close();
     server.close();
   }
 }

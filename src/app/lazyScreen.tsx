@@ -1,4 +1,5 @@
-import { lazy, type ComponentType, type ReactElement } from 'react';
+import { use, type ComponentType, type ReactElement } from 'react';
+import { loadOnce, type Settling } from './loadOnce';
 
 type ScreenNeeds = {
   /**
@@ -8,24 +9,40 @@ type ScreenNeeds = {
   serverData?: boolean;
 };
 
+type ScreenLoader = () => Settling<ComponentType>;
+
 /**
- * A screen in its own chunk, fetched the first time it is shown. Screens use named exports;
- * React.lazy wants a default one.
+ * A screen in its own chunk, fetched the first time it is shown (or asked for ahead, see
+ * firstDrawing in router.tsx). Screens use named exports.
  */
-export function lazyScreen(
+export function screenLoader(
   load: () => Promise<ComponentType>,
   { serverData = true }: ScreenNeeds = {},
-): ReactElement {
-  const Screen = lazy(async () => {
-    if (!serverData) return { default: await load() };
+): ScreenLoader {
+  return loadOnce(async () => {
+    if (!serverData) return load();
     const [Loaded, data] = await Promise.all([load(), import('./ServerData')]);
     await data.restored;
-    const WithServerData = () => (
-      <data.ServerData>
-        <Loaded />
-      </data.ServerData>
-    );
-    return { default: WithServerData };
+    return function WithServerData() {
+      return (
+        <data.ServerData>
+          <Loaded />
+        </data.ServerData>
+      );
+    };
   });
-  return <Screen />;
 }
+
+/** Draws the loaded screen; until it is in, the nearest Suspense fallback shows. */
+function Screen({ loaded }: { loaded: ScreenLoader }) {
+  const Loaded = use(loaded());
+  // eslint-disable-next-line react-hooks/static-components -- the same component on every drawing (loadOnce)
+  return <Loaded />;
+}
+
+/** The route element of a screen loaded by `loaded`. */
+export const loadedScreen = (loaded: ScreenLoader): ReactElement => <Screen loaded={loaded} />;
+
+/** The route element of a screen in its own chunk. */
+export const lazyScreen = (load: () => Promise<ComponentType>, needs?: ScreenNeeds): ReactElement =>
+  loadedScreen(screenLoader(load, needs));

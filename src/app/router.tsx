@@ -1,12 +1,13 @@
-import { Suspense, lazy } from 'react';
+import { Suspense, use } from 'react';
 import { Outlet, useRoutes, type RouteObject } from 'react-router-dom';
 import { Frame } from './Frame';
 import { lazyScreen } from './lazyScreen';
+import { loadOnce } from './loadOnce';
 import { RouteBoundary } from './RouteBoundary';
 import { opensOnPad } from '../local/firstScreen';
 import { authRoutes } from '../features/auth/routes';
 import { joinRoutes } from '../features/join/routes';
-import { padRoutes } from '../features/pad/routes';
+import { loadPadScreen, padRoutes } from '../features/pad/routes';
 import { deskRoutes } from '../features/desk/routes';
 import { verifyRoutes } from '../features/verify/routes';
 import { cardRoutes } from '../features/cards/routes';
@@ -27,13 +28,36 @@ function ScreenArea() {
   );
 }
 
-const loadAppLayout = async () => ({ default: (await import('./AppLayout')).AppLayout });
-const AppLayout = lazy(loadAppLayout);
+const loadAppLayout = loadOnce(async () => (await import('./AppLayout')).AppLayout);
+function AppLayout() {
+  const Layout = use(loadAppLayout());
+  // eslint-disable-next-line react-hooks/static-components -- the same component on every drawing (loadOnce)
+  return <Layout />;
+}
 // Fetched at once (beside the entry) for every page but the public results, which never need it.
 if (typeof location !== 'undefined' && !location.pathname.startsWith('/results/')) void loadAppLayout();
-// The pad too, when it is the page opened: offline, the service worker's copy of the page has no
-// preload hints, and the pad's chunks would otherwise be asked for only once the layout has run.
-if (opensOnPad) void import('../features/pad/PadScreen');
+
+/** The longest the app's first drawing waits for the pad it was opened on. */
+const FIRST_DRAWING_WAIT_MS = 3_000;
+
+/**
+ * When the app's first drawing may start. Opened on the pad (a reload, the phone's home-screen
+ * link), it waits for the layout's and the pad's code and the pad's first read, asked for now:
+ * the pad is then drawn whole, in one pass. Drawn at once, a slow phone drew the frame, then
+ * "Opening…", then the pad, each with its own layout, and React holds back content replacing a
+ * fallback for up to 300 ms. Offline, the service worker's copy of the page has no preload hints
+ * either: the pad's chunks would be asked for only once the layout had run. Other pages draw at once.
+ */
+export const firstDrawing: Promise<void> = opensOnPad
+  ? Promise.race([
+      Promise.all([loadAppLayout(), loadPadScreen()]).then(
+        () => undefined,
+        // A chunk that cannot load is the screen's to show (RouteError).
+        () => undefined,
+      ),
+      new Promise<void>((resolve) => setTimeout(resolve, FIRST_DRAWING_WAIT_MS)),
+    ])
+  : Promise.resolve();
 
 /**
  * Each screen is its own lazily loaded chunk, so a phone downloads the pad without the organizer's

@@ -2,6 +2,7 @@ import { useEffect, useSyncExternalStore } from 'react';
 import { apiRequest, isSignedOutError } from '../api/request';
 import type { Me } from '../contract/auth';
 import { claimPhone } from './phoneOwner';
+import { afterFirstScreen } from './firstScreen';
 
 /**
  * Who is signed in, and their roles. Kept apart from the query cache so the field screens (pad,
@@ -51,6 +52,9 @@ let state: MeState = {
   isPending: saved === undefined,
 };
 const listeners = new Set<() => void>();
+
+/** Who this page knows is signed in, outside React (what `useMe` starts from). */
+export const knownMe = (): Me | null | undefined => state.data;
 
 function update(next: Partial<MeState>) {
   state = { ...state, ...next };
@@ -114,10 +118,11 @@ if (typeof window !== 'undefined') {
 
 /**
  * The signed-in person. Every screen that shows it asks the server again when it mounts: a saved
- * answer may predate a sign-out elsewhere.
+ * answer may predate a sign-out elsewhere. Opened on the pad, the question waits until the pad has
+ * drawn (from the saved answer): on a slow phone it came before that drawing's first frame.
  */
 export function useMe(): MeState {
-  useEffect(() => void checkMe(), []);
+  useEffect(() => afterFirstScreen(() => void checkMe()), []);
   return useSyncExternalStore(
     subscribe,
     () => state,

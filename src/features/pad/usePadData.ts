@@ -1,19 +1,9 @@
 import { useState } from 'react';
 import { useLiveQuery } from 'dexie-react-hooks';
-import { localDb, targetKeyOf, type JoinedTarget, type OutboxRow } from '../../local/db';
-import type { LocalEnd } from '../../local/endFacts';
-import { loadSessionEnds, type EndCache } from '../../local/sessionEnds';
+import { newPadMemory, readPad, type PadData } from './padRead';
+import { readAheadFor } from './padReadAhead';
 
-export type PadData = {
-  target: JoinedTarget;
-  /** By session:entry:end. */
-  ends: Map<string, LocalEnd>;
-  rejected: OutboxRow[];
-  /** Changes the server holds for a judge (they arrived after the session closed). */
-  held: OutboxRow[];
-  /** This person's changes on the target not sent yet. */
-  unsent: number;
-};
+export type { PadData } from './padRead';
 
 /** Everything the pad shows for one joined target, live from IndexedDB (works offline). */
 export function usePadData(
@@ -21,49 +11,11 @@ export function usePadData(
   targetNumber: number,
   userId: number | undefined,
 ): PadData | null | undefined {
-  // Each tap reads every end again; the ends it did not change come back as the same objects.
-  const [cache] = useState<EndCache>(() => new Map());
-  // What reads the same as last time comes back as the same object, so the parts of the pad
-  // that show only it are not drawn again after a tap (they are memoized on their props).
-  const [same] = useState(() => new Map<string, { json: string; value: unknown }>());
-  const steady = <T,>(name: string, value: T): T => {
-    const json = JSON.stringify(value);
-    const last = same.get(name);
-    if (last?.json === json) return last.value as T;
-    same.set(name, { json, value });
-    return value;
-  };
-  return useLiveQuery(() => {
-    const db = localDb();
-    // One read transaction per refresh: the next tap's write waits for every open one.
-    return db.transaction(
-      'r',
-      [db.targets, db.cardRecords, db.settlements, db.outbox, db.rulings, db.endSignatures],
-      async () => {
-        // Only the signed-in person's own target: a shared phone never shows another's pad.
-        const target =
-          userId === undefined
-            ? undefined
-            : await db.targets.get(targetKeyOf(userId, sessionId, targetNumber));
-        if (!target) return null;
-        const { ends, rejected, held, unsent } = await loadSessionEnds(
-          db,
-          sessionId,
-          target.userId,
-          [target],
-          cache,
-        );
-        const entryIds = new Set(target.archers.map((a) => a.entryId));
-        const onTarget = (rows: OutboxRow[]) =>
-          rows.filter((r) => 'entryId' in r.args && entryIds.has(r.args.entryId));
-        return {
-          target: steady('target', target),
-          ends,
-          rejected: steady('rejected', onTarget(rejected)),
-          held: steady('held', onTarget(held)),
-          unsent,
-        };
-      },
-    );
-  }, [sessionId, targetNumber, userId]);
+  const key = { sessionId, targetNumber, userId };
+  // Opened on the pad, its first read was started as the app loaded (padReadAhead): the pad is
+  // drawn from it at once, and the live read that follows shares its memory, so what reads the
+  // same is not drawn again.
+  const [ahead] = useState(() => readAheadFor(key));
+  const [memory] = useState(() => ahead?.memory ?? newPadMemory());
+  return useLiveQuery(() => readPad(key, memory), [sessionId, targetNumber, userId], ahead?.data);
 }
