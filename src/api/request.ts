@@ -1,6 +1,6 @@
 import type { ApiErrorBody } from '../contract/apiError';
 import { serverFetch } from './serverFetch';
-import { accessToken, forgetAccessToken, refreshSession } from './session';
+import { accessToken, forgetAccessToken, lastRefreshUnanswered, refreshSession } from './session';
 
 /** A failed API call, carrying the server's readable message. */
 export class ApiError extends Error {
@@ -34,12 +34,14 @@ async function send(path: string, init: RequestInit, token: string | undefined):
 
 /**
  * Sends with the access token; on a 401 refreshes the sign-in once and tries again. Sent with no
- * token, the refresh has just answered already: a phone never signed in asks once, not twice.
+ * token because the refresh just said "signed out", it is not asked again: a phone never signed in
+ * asks once, not twice. Sent with none because the refresh found no signal, and the request found
+ * it back (a phone whose signal returns), the refresh is asked again.
  */
 async function authorizedFetch(path: string, init: RequestInit): Promise<Response> {
   const token = await accessToken();
   let response = await send(path, init, token);
-  if (response.status === 401 && token) {
+  if (response.status === 401 && (token || lastRefreshUnanswered())) {
     forgetAccessToken();
     const session = await refreshSession();
     if (session) response = await send(path, init, session.accessToken);

@@ -8,6 +8,8 @@ import type { AuthSession } from '../contract/auth';
  */
 let current: AuthSession | undefined;
 let refreshing: Promise<AuthSession | undefined> | undefined;
+/** The last refresh got no answer (no signal, a server fault): whether the person is signed in is not known. */
+let unanswered = false;
 const listeners = new Set<() => void>();
 
 export function setSession(session: AuthSession | undefined): void {
@@ -31,6 +33,7 @@ export function refreshSession(): Promise<AuthSession | undefined> {
   refreshing ??= (async () => {
     try {
       const response = await serverFetch('/api/auth/refresh', { method: 'POST', credentials: 'same-origin' });
+      unanswered = !response.ok && response.status !== 401;
       if (response.status === 401) {
         setSession(undefined);
         return undefined;
@@ -41,6 +44,7 @@ export function refreshSession(): Promise<AuthSession | undefined> {
       return session;
     } catch {
       // Offline: keep whatever we had; the caller decides what to do without a token.
+      unanswered = true;
       return undefined;
     } finally {
       refreshing = undefined;
@@ -48,6 +52,12 @@ export function refreshSession(): Promise<AuthSession | undefined> {
   })();
   return refreshing;
 }
+
+/** Whether the last refresh went unanswered, so a request sent without a token may still be the person's. */
+export const lastRefreshUnanswered = (): boolean => unanswered;
+
+/** Whether this page holds a sign-in now (from a sign-in or a refresh). */
+export const hasSession = (): boolean => current !== undefined;
 
 export function forgetAccessToken(): void {
   current = undefined;

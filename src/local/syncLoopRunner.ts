@@ -2,6 +2,7 @@ import { ApiError, messageOf } from '../api/request';
 import { localDb, type LocalDb } from './db';
 import { syncOnce, type SyncTransport } from './syncEngine';
 import { httpTransport } from './httpTransport';
+import { hasSession, onSessionChange } from '../api/session';
 import { ownerSettled } from './phoneOwner';
 import type { SyncStatus } from './syncLoop';
 
@@ -53,6 +54,15 @@ export class SyncLoop {
     if (userId === undefined) this.set({ phase: 'signed-out' });
     else this.kick();
   }
+
+  /**
+   * The page holds a sign-in again: a loop a 401 stopped sends what waits. The same person
+   * signing in again does not change who the loop is for, so `setUser` is not called for it.
+   */
+  signedIn = (): void => {
+    // Signed out for good (no person), `request` sends nothing.
+    if (this.status.phase === 'signed-out') this.kick();
+  };
 
   /** Ask for a sync now (on online, focus, or when the person asks). */
   kick = (): void => {
@@ -134,6 +144,9 @@ export class SyncLoop {
 /** The app's one sync loop, wired to the browser's online and focus events (src/local/syncLoop.ts starts it). */
 export function startSyncLoop(): SyncLoop {
   const loop = new SyncLoop(localDb(), httpTransport, ownerSettled);
+  onSessionChange(() => {
+    if (hasSession()) loop.signedIn();
+  });
   window.addEventListener('online', loop.kick);
   window.addEventListener('focus', loop.kick);
   document.addEventListener('visibilitychange', () => {

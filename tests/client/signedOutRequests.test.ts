@@ -1,9 +1,14 @@
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import type { AuthSession } from '../../src/contract/auth';
 
-const answers: Record<string, Response[]> = {};
+/** What the server answers each path, in turn; an Error is no answer at all (no signal). */
+const answers: Record<string, (Response | Error)[]> = {};
 vi.mock('../../src/api/serverFetch', () => ({
-  serverFetch: vi.fn(async (path: string) => answers[path]!.shift()!),
+  serverFetch: vi.fn(async (path: string) => {
+    const answer = answers[path]!.shift()!;
+    if (answer instanceof Error) throw answer;
+    return answer;
+  }),
 }));
 
 const { serverFetch } = await import('../../src/api/serverFetch');
@@ -42,6 +47,16 @@ describe('requests of a phone that is not signed in', () => {
     expect(await apiRequest('/api/me')).toEqual({ id: 1 });
     expect(paths()).toEqual(['/api/me', '/api/auth/refresh', '/api/me']);
     const sent = vi.mocked(serverFetch).mock.calls[2]![1]!.headers as Headers;
+    expect(sent.get('Authorization')).toBe('Bearer new');
+  });
+
+  it('ask again when the refresh before a request found no signal and the request found it back', async () => {
+    // A phone whose signal returns between the two: the request's 401 says nothing of the sign-in.
+    answers['/api/auth/refresh'] = [new TypeError('Failed to fetch'), json(200, session('new'))];
+    answers['/api/sync/push'] = [signedOut(), json(200, { lastSeq: 3 })];
+    expect(await apiRequest('/api/sync/push', { method: 'POST', body: '{}' })).toEqual({ lastSeq: 3 });
+    expect(paths()).toEqual(['/api/auth/refresh', '/api/sync/push', '/api/auth/refresh', '/api/sync/push']);
+    const sent = vi.mocked(serverFetch).mock.calls[3]![1]!.headers as Headers;
     expect(sent.get('Authorization')).toBe('Bearer new');
   });
 });

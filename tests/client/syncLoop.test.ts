@@ -131,7 +131,8 @@ describe('the sync loop', () => {
     let calls = 0;
     let failNow: (() => void) | undefined;
     const transport: SyncTransport = {
-      push: async () => ({ results: [], lastSeq: 0 }) as unknown as Awaited<ReturnType<SyncTransport['push']>>,
+      push: async () =>
+        ({ results: [], lastSeq: 0 }) as unknown as Awaited<ReturnType<SyncTransport['push']>>,
       pull: async (cursor) => {
         calls += 1;
         if (online) return { changes: [], cursor, hasMore: false };
@@ -154,7 +155,8 @@ describe('the sync loop', () => {
     expect(loop.getStatus().phase).toBe('idle');
   });
 
-  it('stops on a 401 without touching the outbox, and resumes when the person signs in again', async () => {
+  /** A loop whose one waiting tap meets a 401 until `signIn` is called. */
+  async function stoppedBy401() {
     const db = freshDb();
     await tap(db, ['X']);
     let signedIn = false;
@@ -168,15 +170,32 @@ describe('the sync loop', () => {
     };
     const loop = await startedLoop(db, transport);
     expect(loop.getStatus().phase).toBe('signed-out');
-    await advance(loop, 10 * 60_000);
-    expect(pushes).toHaveLength(0);
-    expect(await db.outbox.where('status').equals('pending').count()).toBe(1);
+    return { db, loop, pushes, signIn: () => (signedIn = true) };
+  }
 
-    signedIn = true;
-    loop.setUser(5);
+  /** After a sign-in: the waiting tap was sent once and the loop is idle. */
+  async function expectSent({ db, loop, pushes }: Awaited<ReturnType<typeof stoppedBy401>>) {
     await advance(loop, 0);
     expect(pushes).toHaveLength(1);
     expect(loop.getStatus().phase).toBe('idle');
     expect(await db.outbox.where('status').equals('applied').count()).toBe(1);
+  }
+
+  it('stops on a 401 without touching the outbox, and resumes when the person signs in again', async () => {
+    const stopped = await stoppedBy401();
+    await advance(stopped.loop, 10 * 60_000);
+    expect(stopped.pushes).toHaveLength(0);
+    expect(await stopped.db.outbox.where('status').equals('pending').count()).toBe(1);
+
+    stopped.signIn();
+    stopped.loop.setUser(5);
+    await expectSent(stopped);
+  });
+
+  it('a loop a 401 stopped resumes when the same person has a sign-in again, without setUser', async () => {
+    const stopped = await stoppedBy401();
+    stopped.signIn();
+    stopped.loop.signedIn();
+    await expectSent(stopped);
   });
 });
