@@ -87,8 +87,11 @@ describe('the outbox', () => {
     await vi.waitFor(() => expect(counts).toEqual([1]));
     await vi.waitFor(() => expect(lists).toEqual([['X']]));
     await recordChange(db, 5, write(0, ['X', '9']));
-    await vi.waitFor(() => expect(counts).toEqual([1, 2]));
-    await vi.waitFor(() => expect(lists).toEqual([['X'], ['X', 'X 9']]));
+    // A query may run again and answer the same (a busy machine); never with what was before the write.
+    const answers = <T>(all: T[]) =>
+      all.filter((a, i) => i === 0 || JSON.stringify(a) !== JSON.stringify(all[i - 1]));
+    await vi.waitFor(() => expect(answers(counts)).toEqual([1, 2]));
+    await vi.waitFor(() => expect(answers(lists)).toEqual([['X'], ['X', 'X 9']]));
     subscriptions.forEach((s) => s.unsubscribe());
   });
 
