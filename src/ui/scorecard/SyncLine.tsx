@@ -1,4 +1,5 @@
 import { useLiveQuery } from 'dexie-react-hooks';
+import { Link, useLocation } from 'react-router-dom';
 import { localDb } from '../../local/db';
 import { saveWaitingFile } from '../../local/saveWaitingFile';
 import { useSyncStatus, useWaiting } from '../../local/useSync';
@@ -12,6 +13,7 @@ export function SyncLine() {
   const waiting = summary.changes;
   const status = useSyncStatus();
   const online = useOnline();
+  const here = useLocation();
   const persistence = useLiveQuery(() => localDb().meta.get('storagePersistence'), [])?.value;
   // What waits in a person's terms, with the exact number of changes beside it.
   const what = `${waitingWords(summary)} (${changesWords(summary)})`;
@@ -21,7 +23,7 @@ export function SyncLine() {
         ? `✓ Everything on this phone has reached the event server.`
         : '✓ Nothing waiting to send.'
       : status.phase === 'signed-out'
-        ? `▲ ${what} waiting. Sign in again to send them; they are kept on this phone.`
+        ? `▲ ${what} waiting for you to sign in again. They are kept on this phone.`
         : !online || status.phase === 'offline'
           ? `▲ ${what} waiting for signal. They are kept on this phone.`
           : status.phase === 'error'
@@ -37,6 +39,15 @@ export function SyncLine() {
       )}
       {waiting > 0 && (
         <div className="flex flex-wrap gap-2">
+          {status.phase === 'signed-out' && (
+            // Back here after signing in: the loop then sends what waits (see SyncLoop.signedIn).
+            <Link
+              to={`/sign-in?next=${encodeURIComponent(here.pathname + here.search)}`}
+              className="inline-flex min-h-12 items-center rounded-lg border-2 border-ink px-3 font-bold"
+            >
+              Sign back in to send them
+            </Link>
+          )}
           <button
             type="button"
             className="min-h-12 rounded-lg border-2 border-ink px-3 font-bold"
