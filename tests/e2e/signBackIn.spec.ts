@@ -67,3 +67,17 @@ test('values waiting when the sign-in ran out are sent once the writer signs bac
   );
   await expect(page.getByTestId('waiting-count')).toHaveCount(0);
 });
+
+test('a sign-in link that names another site as its next page brings the person home instead', async ({
+  page,
+}) => {
+  for (const next of ['https://evil.example/x', '//evil.example/x']) {
+    await page.context().clearCookies();
+    await page.goto(`/sign-in?next=${encodeURIComponent(next)}`);
+    await page.getByLabel('E-mail').fill(demoArchers()[27]!.email);
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect(page.getByTestId('signed-in-name')).toBeVisible({ timeout: 15_000 });
+    expect(new URL(page.url()).pathname).toBe('/');
+  }
+});

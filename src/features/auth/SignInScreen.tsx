@@ -5,11 +5,12 @@ import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { useSignIn } from '../../account/signIn';
 import { tapLinkClass } from '../../account/AccountFields';
+import { nextPath } from '../../account/nextPath';
 
 /** Sign-in; `?next=` brings the person back where they were sent from. */
 export function SignInScreen() {
   const [params] = useSearchParams();
-  const next = params.get('next') ?? '/';
+  const next = nextPath(params.get('next'));
   const navigate = useNavigate();
   const signIn = useSignIn();
   const [email, setEmail] = useState('');

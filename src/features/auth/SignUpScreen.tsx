@@ -11,10 +11,11 @@ import {
   type AccountProblems,
 } from '../../account/AccountFields';
 import { CheckYourMail } from '../../account/CheckYourMail';
+import { nextPath } from '../../account/nextPath';
 
 export function SignUpScreen() {
   const [params] = useSearchParams();
-  const next = params.get('next') ?? '/';
+  const next = nextPath(params.get('next'));
   const inviteToken = params.get('invite') ?? undefined;
   const navigate = useNavigate();
   const signUp = useSignUp();
