@@ -3,6 +3,7 @@ import { Navigate, useLocation } from 'react-router-dom';
 import type { Me } from '../contract/auth';
 import { Notice } from '../ui/Notice';
 import { useMe } from '../local/me';
+import { signInThenBack } from './nextPath';
 
 /** Renders its children for a signed-in person, otherwise sends them to sign in and back. */
 export function RequireSignIn({ children }: { children: (me: Me) => ReactNode }) {
@@ -12,9 +13,7 @@ export function RequireSignIn({ children }: { children: (me: Me) => ReactNode })
   // A stored "signed out" may be older than a sign-in a moment ago: ask the server before sending anyone away.
   if (me.data === null && me.isFetching) return <p>Checking your sign-in…</p>;
   if (me.data === null) {
-    return (
-      <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname + location.search)}`} replace />
-    );
+    return <Navigate to={signInThenBack(location.pathname + location.search)} replace />;
   }
   if (me.isPending) return <p>Checking your sign-in…</p>;
   return (

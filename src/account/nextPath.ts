@@ -7,3 +7,6 @@ export function nextPath(asked: string | null): string {
   if (!asked || !asked.startsWith('/') || asked.startsWith('//') || asked.startsWith('/\\')) return '/';
   return asked;
 }
+
+/** The sign-in page, which brings the person back to `path` (a path on this site) once signed in. */
+export const signInThenBack = (path: string): string => `/sign-in?next=${encodeURIComponent(path)}`;

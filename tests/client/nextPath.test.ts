@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { nextPath } from '../../src/account/nextPath';
+import { nextPath, signInThenBack } from '../../src/account/nextPath';
 
 describe('where a sign-in sends the person next', () => {
   it('keeps a path on this site, with its query', () => {
@@ -17,5 +17,12 @@ describe('where a sign-in sends the person next', () => {
     ['no parameter', null],
   ])('sends home instead of %s', (_, asked) => {
     expect(nextPath(asked)).toBe('/');
+  });
+
+  it('comes back from the sign-in page to the very path it was sent from, query and all', () => {
+    const from = '/join?code=AB12CD&x=1 2';
+    const signIn = new URL(signInThenBack(from), 'https://ringcall.example');
+    expect(signIn.pathname).toBe('/sign-in');
+    expect(nextPath(signIn.searchParams.get('next'))).toBe(from);
   });
 });

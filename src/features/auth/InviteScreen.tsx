@@ -6,6 +6,7 @@ import type { AcceptedInvitation } from '../../contract/auth';
 import { Button } from '../../ui/Button';
 import { Notice } from '../../ui/Notice';
 import { checkMe, useMe } from '../../local/me';
+import { signInThenBack } from '../../account/nextPath';
 
 /** Opened from an invitation mail: accept the role, signing in or creating an account first. */
 export function InviteScreen() {
@@ -76,7 +77,7 @@ export function InviteScreen() {
               Create an account
             </Link>
             <Link
-              to={`/sign-in?next=${back}`}
+              to={signInThenBack(`/invite?token=${token}`)}
               className="flex min-h-14 items-center justify-center rounded-lg border-2 border-ink px-5 font-bold"
             >
               I have an account

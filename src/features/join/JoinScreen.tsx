@@ -11,6 +11,7 @@ import { Notice } from '../../ui/Notice';
 import { useOnline } from '../../local/online';
 import { TASK_HINTS, TASK_LABELS } from '../../ui/scorecard/taskNames';
 import { useJoinTarget } from './api/joinTarget';
+import { signInThenBack } from '../../account/nextPath';
 
 /**
  * Joining a target with its code (typed, or from the sheet's QR code). Someone without an account
@@ -54,7 +55,7 @@ function JoinForm({ userId }: { userId: number | undefined }) {
   if (signUp.data && isPending(signUp.data)) return <CheckYourMail email={signUp.data.email} />;
   const busy = signUp.isPending || join.isPending;
   const failure = problem ?? signUp.error?.message ?? join.error?.message;
-  const next = encodeURIComponent(`/join${code ? `?code=${encodeURIComponent(code)}` : ''}`);
+  const back = `/join${code ? `?code=${encodeURIComponent(code)}` : ''}`;
   return (
     <form onSubmit={submit} className="space-y-5" noValidate>
       <JoinCodeField
@@ -100,7 +101,7 @@ function JoinForm({ userId }: { userId: number | undefined }) {
       </Button>
       {newcomer && (
         <Link
-          to={`/sign-in?next=${next}`}
+          to={signInThenBack(back)}
           className="flex min-h-14 items-center justify-center rounded-lg border-2 border-ink px-5 font-bold"
         >
           I already have an account

@@ -6,6 +6,7 @@ import { useSyncStatus, useWaiting } from '../../local/useSync';
 import { changesWords, waitingWords } from '../../local/waitingSummary';
 import { syncLoop } from '../../local/syncLoop';
 import { useOnline } from '../../local/online';
+import { signInThenBack } from '../../account/nextPath';
 
 /** What waits to sync, in words, with a way to send now and a file for the judge if it cannot. */
 export function SyncLine() {
@@ -42,7 +43,7 @@ export function SyncLine() {
           {status.phase === 'signed-out' && (
             // Back here after signing in: the loop then sends what waits (see SyncLoop.signedIn).
             <Link
-              to={`/sign-in?next=${encodeURIComponent(here.pathname + here.search)}`}
+              to={signInThenBack(here.pathname + here.search)}
               className="inline-flex min-h-12 items-center rounded-lg border-2 border-ink px-3 font-bold"
             >
               Sign back in to send them
