@@ -56,8 +56,8 @@ export function refreshSession(): Promise<AuthSession | undefined> {
 /** Whether the last refresh went unanswered, so a request sent without a token may still be the person's. */
 export const lastRefreshUnanswered = (): boolean => unanswered;
 
-/** Whether this page holds a sign-in now (from a sign-in or a refresh). */
-export const hasSession = (): boolean => current !== undefined;
+/** Who this page holds a sign-in for now (from a sign-in or a refresh), if anyone. */
+export const sessionUserId = (): number | undefined => current?.user.id;
 
 export function forgetAccessToken(): void {
   current = undefined;

@@ -2,7 +2,7 @@ import { ApiError, messageOf } from '../api/request';
 import { localDb, type LocalDb } from './db';
 import { syncOnce, type SyncTransport } from './syncEngine';
 import { httpTransport } from './httpTransport';
-import { hasSession, onSessionChange } from '../api/session';
+import { onSessionChange, sessionUserId } from '../api/session';
 import { ownerSettled } from './phoneOwner';
 import type { SyncStatus } from './syncLoop';
 
@@ -56,12 +56,12 @@ export class SyncLoop {
   }
 
   /**
-   * The page holds a sign-in again: a loop a 401 stopped sends what waits. The same person
-   * signing in again does not change who the loop is for, so `setUser` is not called for it.
+   * The page holds a sign-in again: a loop a 401 stopped sends what waits, if the sign-in is the
+   * loop's own person's. The same person signing in again does not change who the loop is for, so
+   * `setUser` is not called for it; another person's sign-in never sends this person's changes.
    */
-  signedIn = (): void => {
-    // Signed out for good (no person), `request` sends nothing.
-    if (this.status.phase === 'signed-out') this.kick();
+  signedIn = (userId: number): void => {
+    if (this.status.phase === 'signed-out' && userId === this.userId) this.kick();
   };
 
   /** Ask for a sync now (on online, focus, or when the person asks). */
@@ -145,7 +145,8 @@ export class SyncLoop {
 export function startSyncLoop(): SyncLoop {
   const loop = new SyncLoop(localDb(), httpTransport, ownerSettled);
   onSessionChange(() => {
-    if (hasSession()) loop.signedIn();
+    const userId = sessionUserId();
+    if (userId !== undefined) loop.signedIn(userId);
   });
   window.addEventListener('online', loop.kick);
   window.addEventListener('focus', loop.kick);

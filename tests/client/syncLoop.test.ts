@@ -195,7 +195,17 @@ describe('the sync loop', () => {
   it('a loop a 401 stopped resumes when the same person has a sign-in again, without setUser', async () => {
     const stopped = await stoppedBy401();
     stopped.signIn();
-    stopped.loop.signedIn();
+    stopped.loop.signedIn(5);
     await expectSent(stopped);
+  });
+
+  it("another person's sign-in on a shared phone never sends the stopped person's changes", async () => {
+    const stopped = await stoppedBy401();
+    stopped.signIn();
+    stopped.loop.signedIn(6);
+    await advance(stopped.loop, 0);
+    expect(stopped.pushes).toHaveLength(0);
+    expect(stopped.loop.getStatus().phase).toBe('signed-out');
+    expect(await stopped.db.outbox.where('status').equals('pending').count()).toBe(1);
   });
 });
