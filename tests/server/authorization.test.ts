@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer, type TestServer } from './support/testServer';
-import { giveRole, makeEvent, makePerson } from './support/people';
+import { callRoute, makeRouteFixture } from './support/routeFixture';
 import { listRoutes } from './support/routeList';
 import { LANE_ROUTES } from '../../server/routes/syncLane';
 import {
@@ -10,11 +10,8 @@ import {
   PNG,
   ROUTES,
   ev,
-  photo,
   se,
-  type Caller,
   type Fixture,
-  type RouteRule,
 } from './support/routeRoles';
 
 /*
@@ -34,81 +31,6 @@ afterAll(async () => {
   await server.close();
 });
 
-/** A fresh event: organizer, judge, an archer with an entry, a stranger; a session laid out on targets; a pending invitation. */
-async function makeFixture(): Promise<Fixture> {
-  const { db, app } = server;
-  const people = {
-    organizer: await makePerson(db, 'Table Organizer'),
-    judge: await makePerson(db, 'Table Judge'),
-    archer: await makePerson(db, 'Table Archer'),
-    stranger: await makePerson(db, 'Table Stranger'),
-  };
-  const eventId = await makeEvent(db, people.organizer);
-  await giveRole(db, eventId, people.judge, 'judge');
-  const api = (method: 'post', path: string, body: object) =>
-    request(app)[method](`/api/events/${eventId}${path}`).set(people.organizer.auth).send(body);
-  const divisionId = (await api('post', '/divisions', { bowStyle: 'recurve', className: 'Women' })).body.id;
-  const emptyDivisionId = (await api('post', '/divisions', { bowStyle: 'compound', className: 'Men' })).body
-    .id;
-  const entryIds: number[] = [];
-  entryIds.push(
-    (await api('post', '/entries', { name: 'Table Archer', email: people.archer.email, divisionId })).body.id,
-  );
-  for (const name of ['Second Archer', 'Third Archer'])
-    entryIds.push((await api('post', '/entries', { name, divisionId })).body.id);
-  const sessionId = (
-    await api('post', '/sessions', {
-      name: 'Morning',
-      startsAt: '2026-12-12T09:00',
-      rounds: [{ divisionId, roundId: '70m' }],
-    })
-  ).body.id;
-  await api('post', `/sessions/${sessionId}/assign`, {});
-  const closedSessionId = (
-    await api('post', '/sessions', { name: 'Closed', startsAt: '2026-12-12T15:00', rounds: [] })
-  ).body.id;
-  await api('post', `/sessions/${closedSessionId}/close`, {});
-  const invitationId = (
-    await api('post', '/staff', { email: `pending.${eventId}@example.org`, role: 'organizer' })
-  ).body.id;
-  const joinCode = (
-    await db('join_codes')
-      .where({ session_id: sessionId, target_number: 1 })
-      .whereNull('revoked_at')
-      .first('code')
-  ).code;
-  const upload = photo().upload;
-  const photoId = (
-    await request(app)
-      .post(`/api/events/${eventId}/photos`)
-      .set(people.organizer.auth)
-      .attach(upload.field, upload.content as Buffer, { filename: upload.filename, contentType: 'image/png' })
-  ).body.photoId;
-  return {
-    people,
-    eventId,
-    photoId,
-    divisionId,
-    emptyDivisionId,
-    sessionId,
-    closedSessionId,
-    entryIds,
-    invitationId,
-    joinCode,
-  };
-}
-
-function call(rule: RouteRule, f: Fixture, caller: Caller) {
-  let req = request(server.app)[rule.method](rule.path(f));
-  if (caller !== 'anonymous') req = req.set(f.people[caller].auth);
-  const body = rule.body?.(f);
-  if (body && 'upload' in body) {
-    const { field, content, filename, contentType } = body.upload;
-    return req.attach(field, Buffer.from(content), contentType ? { filename, contentType } : filename);
-  }
-  return body ? req.send(body) : req;
-}
-
 const NAMING_FIXTURE = {
   entryIds: [0],
   people: { judge: { id: 0 }, archer: { id: 0 } },
@@ -116,7 +38,7 @@ const NAMING_FIXTURE = {
 
 describe('authorization table: every route × every kind of caller', () => {
   it('the archer in the fixture holds the archer role (linked through their entry)', async () => {
-    const f = await makeFixture();
+    const f = await makeRouteFixture(server);
     const role = await server
       .db('event_roles')
       .where({ event_id: f.eventId, user_id: f.people.archer.id })
@@ -133,7 +55,7 @@ describe('authorization table: every route × every kind of caller', () => {
   });
 
   it("each row's path is an address of the route it names", async () => {
-    const f = await makeFixture();
+    const f = await makeRouteFixture(server);
     for (const rule of ROUTES) {
       const pattern = new RegExp(`^${rule.route.replace(/\./g, '\\.').replace(/:\w+/g, '[^/]+')}$`);
       expect(rule.path(f).split('?')[0], rule.route).toMatch(pattern);
@@ -145,10 +67,10 @@ describe('authorization table: every route × every kind of caller', () => {
     const query = rule.path(NAMING_FIXTURE).split('?')[1];
     const label = `${rule.method.toUpperCase()} ${rule.route}${query ? `?${query}` : ''}`;
     it(`${label} → allowed: ${rule.allowed.join(', ') || 'no app caller'}`, async () => {
-      const f = await makeFixture();
+      const f = await makeRouteFixture(server);
       const refused = CALLERS.filter((c) => !rule.allowed.includes(c));
       for (const caller of [...refused, ...rule.allowed]) {
-        const res = await call(rule, f, caller);
+        const res = await callRoute(server, rule, f, caller);
         const expected = rule.allowed.includes(caller)
           ? rule.ok
           : (rule.refused ?? (caller === 'anonymous' ? 401 : 403));
@@ -241,7 +163,7 @@ const BODY_ROUTES: BodyRule[] = [
 describe('bad input is refused with a readable message', () => {
   let f: Fixture;
   beforeAll(async () => {
-    f = await makeFixture();
+    f = await makeRouteFixture(server);
   });
 
   for (const rule of BODY_ROUTES) {
