@@ -29,6 +29,7 @@ import { LateValues } from './LateValues';
 import { TargetGroup } from '../../ui/scorecard/TargetGroup';
 import { PaperCountersigns } from './PaperCountersigns';
 import { usePrepareDesk } from './api/prepareDesk';
+import { localStart } from '../../ui/localStart';
 
 const keyOf = (t: JoinedTarget, entryId: number, endIndex: number) =>
   endKeyOf(t.session.id, entryId, endIndex);
@@ -293,29 +294,39 @@ function MatchesLink({ eventId }: { eventId: number }) {
   );
 }
 
+/** Where a judge starts: the event's sessions (the ends to sign), then its shoot-offs and matches. */
 function SessionPicker({ eventId }: { eventId: number }) {
   const summary = useEventSummary(eventId);
   if (summary.isPending) return <p>Loading the event…</p>;
   if (summary.error) return <Notice tone="error">{summary.error.message}</Notice>;
+  const { event, sessions } = summary.data;
   return (
-    <ul className="space-y-2">
-      <li>
-        <ShootOffsLink eventId={eventId} />
-      </li>
-      <li>
-        <MatchesLink eventId={eventId} />
-      </li>
-      {summary.data.sessions.map((s) => (
-        <li key={s.id}>
-          <Link
-            to={`/desk/${eventId}/${s.id}`}
-            className="surface flex min-h-16 items-center rounded-xl border-2 border-ink bg-card p-3 text-xl font-bold"
-          >
-            {s.name} ▸
-          </Link>
+    <>
+      <p className="text-lg">{event.name}</p>
+      {sessions.length === 0 && <p>This event has no sessions yet: the organizer sets them up.</p>}
+      <ul className="space-y-2">
+        {sessions.map((s) => (
+          <li key={s.id}>
+            <Link
+              to={`/desk/${eventId}/${s.id}`}
+              className="surface flex min-h-16 flex-col justify-center rounded-xl border-2 border-ink bg-card p-3"
+            >
+              <span className="text-xl font-bold">{s.name} ▸</span>
+              <span>
+                {localStart(s.startsAt)}
+                {s.closedAt ? ' · closed' : ''}
+              </span>
+            </Link>
+          </li>
+        ))}
+        <li>
+          <ShootOffsLink eventId={eventId} />
         </li>
-      ))}
-    </ul>
+        <li>
+          <MatchesLink eventId={eventId} />
+        </li>
+      </ul>
+    </>
   );
 }
 

@@ -20,7 +20,7 @@ import { OrganizerSessionScreen } from './components/OrganizerSessionScreen';
 import { LinkAddressNote } from './components/LinkAddressNote';
 import { PlacesPanel } from './components/PlacesPanel';
 import { TargetCard } from './components/TargetCard';
-import { localStart } from './components/formProblems';
+import { localStart } from '../../ui/localStart';
 
 function Targets({ summary, sessionId }: { summary: EventSummary; sessionId: number }) {
   const eventId = summary.event.id;

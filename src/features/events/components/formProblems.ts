@@ -26,6 +26,3 @@ export function dateRange(startsOn: string, endsOn: string): string {
 
 /** Keeps a number with its unit on one line: "70 m round" never breaks between 70 and m. */
 export const keepUnits = (text: string): string => text.replace(/(\d) (m|cm)\b/g, '$1\u00a0$2');
-
-/** A session's local start ("2026-12-12T09:30") as the organizer typed it: date and time, no zone shift. */
-export const localStart = (startsAt: string): string => startsAt.replace('T', ' at ');

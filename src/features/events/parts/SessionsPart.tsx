@@ -12,7 +12,8 @@ import { ConfirmButton } from '../components/ConfirmButton';
 import { CloseSessionButton } from '../components/CloseSessionButton';
 import { GoToPart } from '../components/GoToPart';
 import { archersOnTargets } from '../components/archersOnTargets';
-import { keepUnits, localStart } from '../components/formProblems';
+import { keepUnits } from '../components/formProblems';
+import { localStart } from '../../../ui/localStart';
 import { SessionForm } from './SessionForm';
 
 const linkButton = 'inline-flex min-h-14 items-center rounded-lg bg-moss px-5 text-lg font-bold text-white';

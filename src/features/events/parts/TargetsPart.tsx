@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import type { EventSummary } from '../../../contract/events';
-import { localStart } from '../components/formProblems';
+import { localStart } from '../../../ui/localStart';
 import { GoToPart } from '../components/GoToPart';
 import { archersOnTargets } from '../components/archersOnTargets';
 
