@@ -25,6 +25,16 @@ test('a judge signs an end and the public results page shows the new total witho
 
   // The organizer publishes the results; until then a stranger is refused.
   expect((await request.get(`/api/results/${eventId}`)).status()).toBe(403);
+  // The page says so as news, not as a failure, and offers the event's own people a way in.
+  const early = await (await browser.newContext()).newPage();
+  await early.goto(`/results/${eventId}`);
+  await expect(early.getByRole('status')).toContainText('not published yet');
+  const signIn = early.getByRole('link', { name: 'Sign in', exact: true });
+  expect((await signIn.boundingBox())!.height).toBeGreaterThanOrEqual(44);
+  await checkA11y(early);
+  await signIn.click();
+  await expect(early).toHaveURL(`/sign-in?next=${encodeURIComponent(`/results/${eventId}`)}`);
+  await early.context().close();
   const organizer = await token(request, DEMO_ORGANIZER.email);
   const published = await request.patch(`/api/events/${eventId}/results-settings`, {
     headers: { Authorization: `Bearer ${organizer}` },

@@ -12,6 +12,7 @@ import {
   type JudgingField,
 } from './support/judging';
 import { startTestServer, type TestServer } from './support/testServer';
+import { RESULTS_NOT_PUBLISHED } from '../../src/contract/resultsAccess';
 
 let server: TestServer;
 let j: JudgingField;
@@ -40,7 +41,11 @@ describe('results: who may see them', () => {
     const anonymous = await results();
     expect(anonymous.status).toBe(403);
     expect(anonymous.body.error.message).toMatch(/not published yet/);
-    expect((await results(j.people.stranger.auth)).status).toBe(403);
+    // Signing in may help a person without an account here (the page offers it), not a stranger.
+    expect(anonymous.body.error.code).toBe(RESULTS_NOT_PUBLISHED);
+    const stranger = await results(j.people.stranger.auth);
+    expect(stranger.status).toBe(403);
+    expect(stranger.body.error.code).toBe('forbidden');
     expect((await request(server.app).get(`/api/results/${j.field.eventId}/csv`)).status).toBe(403);
   });
 

@@ -1,5 +1,6 @@
 import type { Db } from '../../db';
-import { forbidden, notFound } from '../../http/httpError';
+import { RESULTS_NOT_PUBLISHED } from '../../../src/contract/resultsAccess';
+import { HttpError, forbidden, notFound } from '../../http/httpError';
 
 /** What the results of an event need to know about the event itself. */
 export type ResultsEvent = {
@@ -46,7 +47,8 @@ export async function requireResultsViewer(
 ): Promise<void> {
   if (event.published) return;
   const message = `The results of ${event.name} are not published yet.`;
-  if (userId === undefined) throw forbidden(`${message} Sign in if you organize, judge or shoot in it.`);
+  if (userId === undefined)
+    throw new HttpError(403, RESULTS_NOT_PUBLISHED, `${message} Sign in if you organize, judge or shoot in it.`);
   const [role, entry] = await Promise.all([
     db('event_roles')
       .where({ event_id: event.id, user_id: userId })
