@@ -130,6 +130,11 @@ test('a value the phone could not save is not shown as entered, and the writer i
   await join(writer, code, /Writer 1/, target);
   await enterEnd(writer, 'A', ['X']);
   await expect(writer.getByTestId('end-total')).toHaveText('10');
+  // The X is stored (and sent) before storage breaks: the first tap's write waits for the phone's
+  // database to open, and broken sooner, it would refuse the X too (rightly shown as not entered).
+  await expect(writer.getByTestId('sync-line')).toContainText('reached the event server', {
+    timeout: 20_000,
+  });
   // The phone's storage refuses the next write, as when it is full.
   await writer.evaluate(() => {
     IDBObjectStore.prototype.add = () => {

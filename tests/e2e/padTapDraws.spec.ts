@@ -56,8 +56,18 @@ function crossCheckProps(page: Page) {
   return page.evaluate(() => {
     const node = document.querySelector('[data-testid="cross-check"]')!;
     const key = Object.keys(node).find((k) => k.startsWith('__reactFiber$'))!;
-    type Fiber = { elementType?: { $$typeof?: symbol }; memoizedProps: unknown; return?: Fiber };
-    let fiber = (node as unknown as Record<string, Fiber | undefined>)[key];
+    const propsKey = Object.keys(node).find((k) => k.startsWith('__reactProps$'))!;
+    type Fiber = {
+      elementType?: { $$typeof?: symbol };
+      memoizedProps: unknown;
+      return?: Fiber;
+      alternate?: Fiber | null;
+    };
+    const element = node as unknown as Record<string, unknown>;
+    let fiber = element[key] as Fiber | undefined;
+    // The element keeps the fiber it was made with, which after later drawings may be the copy
+    // React works on, not the one on screen: the one on screen holds the element's current props.
+    if (fiber && fiber.memoizedProps !== element[propsKey] && fiber.alternate) fiber = fiber.alternate;
     // Up to the memo boundary: the nearest component given as an object (memo), not a function or tag.
     while (fiber && typeof fiber.elementType !== 'object') fiber = fiber.return;
     return JSON.stringify(fiber?.memoizedProps);
