@@ -31,13 +31,13 @@ export function archerPlaceRoutes(ctx: AppContext): Router {
     if (!event.published) {
       const userId = req.user?.id;
       if (userId === undefined)
-        throw unauthorized(`The results of ${event.name} are not published yet. Sign in to see your place.`);
+        throw unauthorized('The results of this event are not published yet. Sign in to see your place.');
       const staff = (await rolesInEvent(db, userId, event.id)).some(
         (r) => r === 'organizer' || r === 'judge',
       );
       if (!staff && entry.user_id !== userId)
         throw forbidden(
-          `The results of ${event.name} are not published yet: each archer sees only their own place.`,
+          'The results of this event are not published yet: each archer sees only their own place.',
         );
     }
     res.setHeader('Cache-Control', 'no-store');

@@ -40,6 +40,9 @@ describe("an archer's live place", () => {
     const anonymous = await place(ids.ada);
     expect(anonymous.status).toBe(401);
     expect(anonymous.body.error.message).toMatch(/not published yet/);
+    // A refusal does not tell an outsider the unpublished event's name.
+    const { name } = await server.db('events').where({ id: j.field.eventId }).first('name');
+    for (const refused of [other, anonymous]) expect(JSON.stringify(refused.body)).not.toContain(name);
   });
 
   it('has no place before any end counts', async () => {

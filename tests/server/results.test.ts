@@ -46,7 +46,12 @@ describe('results: who may see them', () => {
     const stranger = await results(j.people.stranger.auth);
     expect(stranger.status).toBe(403);
     expect(stranger.body.error.code).toBe('forbidden');
-    expect((await request(server.app).get(`/api/results/${j.field.eventId}/csv`)).status).toBe(403);
+    const csv = await request(server.app).get(`/api/results/${j.field.eventId}/csv`);
+    expect(csv.status).toBe(403);
+    // Anyone can try any event's number: a refusal does not tell them the event's name.
+    const { name } = await server.db('events').where({ id: j.field.eventId }).first('name');
+    for (const refused of [anonymous, stranger, csv])
+      expect(JSON.stringify(refused.body)).not.toContain(name);
   });
 
   it('shows unpublished results to the organizer, the judges and the event’s archers', async () => {

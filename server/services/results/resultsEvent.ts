@@ -46,9 +46,14 @@ export async function requireResultsViewer(
   userId: number | undefined,
 ): Promise<void> {
   if (event.published) return;
-  const message = `The results of ${event.name} are not published yet.`;
+  // Not named: anyone can ask for any event's number, and an unpublished event's name is not theirs.
+  const message = 'The results of this event are not published yet.';
   if (userId === undefined)
-    throw new HttpError(403, RESULTS_NOT_PUBLISHED, `${message} Sign in if you organize, judge or shoot in it.`);
+    throw new HttpError(
+      403,
+      RESULTS_NOT_PUBLISHED,
+      `${message} Sign in if you organize, judge or shoot in it.`,
+    );
   const [role, entry] = await Promise.all([
     db('event_roles')
       .where({ event_id: event.id, user_id: userId })
@@ -67,7 +72,8 @@ export async function requireResultsPrinter(
   userId: number | undefined,
 ): Promise<void> {
   if (event.published) return;
-  const message = `The results of ${event.name} are not published yet; until then only its organizers can print them.`;
+  const message =
+    'The results of this event are not published yet; until then only its organizers can print them.';
   if (userId === undefined) throw forbidden(`${message} Sign in if you organize it.`);
   const role = await db('event_roles')
     .where({ event_id: event.id, user_id: userId, role: 'organizer' })
